@@ -1,0 +1,14 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#pragma once
+// The one door into the engine: the workbench, the command line, the report and the tests all
+// evaluate a design through this function. It never throws for a design that passed validation;
+// points it cannot solve come back marked invalid with their reason.
+
+#include "core/engine/results.h"
+#include "core/model/design.h"
+
+namespace amp {
+
+Results evaluate(const Design& design);
+
+} // namespace amp

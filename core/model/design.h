@@ -1,0 +1,184 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#pragma once
+// The design: everything the user states about one power stage. Plain data, SI units (°C where a
+// name ends in _C, mm² where it ends in _mm2, rpm where it ends in _rpm). The member names are the
+// project file's keys. Defaults are the documented values a field takes when a file omits it.
+// Ranges, units and descriptions of every field live in model/fields.h.
+
+#include "core/model/parts.h"
+
+#include <string>
+#include <vector>
+
+namespace amp {
+
+/// Title block of the design sheet.
+struct Meta {
+    std::string title = "Untitled design";
+    std::string author;
+    std::string revision = "A";
+    std::string date;                   ///< ISO date as typed by the user
+    std::string notes;
+    bool operator==(const Meta&) const = default;
+};
+
+/// The traction battery and its wiring resistance to the bus capacitors.
+struct Supply {
+    double nominal_V = 48.0;
+    double max_V = 54.6;                ///< highest: full charge, charger connected, braking
+    double min_V = 42.0;                ///< lowest under load (sag, discharged)
+    double internalResistance_ohm = 0.02; ///< battery internal resistance (cables are in Wiring)
+    std::string chemistry = "lead-acid"; ///< "lead-acid", "lithium", "nickel" or "other"
+    bool operator==(const Supply&) const = default;
+};
+
+/// One point of a series motor's magnetisation table: torque constant at a current.
+struct MagnetisationPoint {
+    double current_A = 0.0;
+    double torqueConstant_NmPerA = 0.0;
+    bool operator==(const MagnetisationPoint&) const = default;
+};
+
+/// The brushed DC motor.
+struct Motor {
+    std::string kind = "permanentMagnet"; ///< "permanentMagnet" or "seriesWound"
+    double armatureResistance20_ohm = 0.05; ///< armature (+ brushes, + series field) at 20 °C
+    double windingTemperature_C = 80.0; ///< winding temperature used for R_a
+    double inductance_H = 0.5e-3;
+    double torqueConstant_NmPerA = 0.12; ///< k in N·m/A = V·s/rad (permanent magnet)
+    double noLoadCurrent_A = 4.0;
+    double rotorInertia_kgm2 = 0.01;
+    double loadInertia_kgm2 = 0.0;      ///< reflected to the motor shaft
+    double demagCurrent_A = 0.0;        ///< highest current the magnets tolerate (0 = not stated)
+    std::vector<MagnetisationPoint> magnetisation; ///< series-wound k(I), ascending current
+    bool operator==(const Motor&) const = default;
+};
+
+/// Modulation and control.
+struct Pwm {
+    double frequency_Hz = 16000.0;
+    std::string topology = "lowSideChopper"; ///< "lowSideChopper", "synchronousHalfBridge", "fullBridge"
+    double currentLimit_A = 200.0;      ///< controller current limit (0 = none)
+    double maxDuty = 0.98;
+    double deadTime_s = 500e-9;         ///< synchronous topologies only
+    bool operator==(const Pwm&) const = default;
+};
+
+/// Gate or base drive shared by the bank.
+struct Drive {
+    double supply_V = 12.0;             ///< driver output high level at nominal battery voltage
+    double minSupply_V = 11.0;          ///< driver output at the lowest battery voltage
+    double driverResistance_ohm = 2.0;  ///< driver output resistance
+    double driverPeakCurrent_A = 2.0;   ///< driver's rated peak current
+    double pulldown_ohm = 10e3;         ///< gate pull-down per device (0 = none)
+    double baseDriveCurrent_A = 0.0;    ///< bipolar/Darlington: total base current (0 = from forced β)
+    double forcedBeta = 10.0;           ///< bipolar: I_C/I_B the drive is designed for
+    bool operator==(const Drive&) const = default;
+};
+
+/// One device of the bank: its deviation from the nominal part and its own resistors.
+struct BankDevice {
+    double rdsOnDeviation = 0.0;        ///< relative: R_ds(on) = nominal·(1 + deviation)
+    double vthDeviation_V = 0.0;
+    double vbeDeviation_V = 0.0;        ///< bipolar: shift of V_BE at fixed I_C (via I_S)
+    double betaDeviation = 0.0;         ///< relative
+    double gateResistorDeviation_ohm = 0.0;
+    double ballastDeviation_ohm = 0.0;
+    double legResistanceDeviation_ohm = 0.0;
+    bool operator==(const BankDevice&) const = default;
+};
+
+/// Statistical spread of the bank's parameters, for corners and Monte Carlo.
+struct Spread {
+    std::string distribution = "normal"; ///< "normal" (σ) or "uniform" (± band)
+    double rdsOn = 0.05;                ///< relative σ or band
+    double vth_V = 0.15;
+    double vbe_V = 0.01;
+    double beta = 0.2;                  ///< relative
+    double gateResistor = 0.05;         ///< relative
+    int samples = 1000;
+    int seed = 12345;
+    bool operator==(const Spread&) const = default;
+};
+
+/// The parallel switch bank, its freewheel diode and the interface to the heatsink.
+struct Bank {
+    SwitchPart device;                  ///< the nominal part, copied from the library
+    int count = 6;
+    std::vector<BankDevice> devices;    ///< one entry per device, size == count
+    double gateResistor_ohm = 4.7;      ///< external gate/base resistor per device
+    double ballast_ohm = 0.0;           ///< source/emitter ballast resistor per device
+    double legResistance_ohm = 0.3e-3;  ///< busbar/trace resistance of each device's leg
+    double derating = 0.5;              ///< highest share of the rated current per device
+    double sharingTarget = 1.10;        ///< accepted max/min device current ratio
+    double neighbourCoupling_KperW = 0.0; ///< case-to-case coupling to adjacent devices (0 = none)
+    InterfacePart interface;
+    DiodePart freewheelDiode;
+    int diodeCount = 2;                 ///< freewheel diodes in parallel
+    Spread spread;
+    bool operator==(const Bank&) const = default;
+};
+
+/// The heatsink and where it sits.
+struct Heatsink {
+    HeatsinkPart part;
+    double ambient_C = 30.0;
+    bool insulatedFromTabs = false;     ///< heatsink isolated from every live tab
+    bool wetLocation = false;           ///< boats, outdoor wash-down: lower touch-voltage limit
+    bool exposed = true;                ///< can be touched in use
+    bool operator==(const Heatsink&) const = default;
+};
+
+/// The reversing contactor.
+struct Reversing {
+    bool present = true;
+    ContactorPart contactor;
+    std::string suppression = "diodeZener"; ///< coil suppression: "none", "diode", "diodeZener", "tvs"
+    double reversalsPerDay = 50.0;
+    double stopSpeed_rpm = 30.0;        ///< speed below which a change-over is allowed
+    bool operator==(const Reversing&) const = default;
+};
+
+/// One segment of the duty profile: an operating point held for a duration.
+struct Segment {
+    std::string name = "Cruise";
+    double duration_s = 60.0;
+    std::string mode = "torqueSpeed";   ///< "torqueSpeed", "currentSpeed", "currentDuty", "stall"
+    double torque_Nm = 10.0;
+    double speed_rpm = 2000.0;
+    double motorCurrent_A = 80.0;
+    double duty = 0.5;
+    std::string direction = "forward"; ///< "forward" or "reverse"
+    bool operator==(const Segment&) const = default;
+};
+
+/// Cables, bus capacitors, fuse.
+struct Wiring {
+    double batteryCableLength_m = 1.5;  ///< conductor length battery → controller, both poles
+    double batteryCable_mm2 = 35.0;
+    double motorCableLength_m = 1.0;    ///< conductor length controller → motor, both poles
+    double motorCable_mm2 = 35.0;
+    double cableTemperature_C = 60.0;   ///< conductor temperature used for its resistance
+    double busCapacitance_F = 2.0e-3;
+    bool operator==(const Wiring&) const = default;
+};
+
+/// A complete design.
+struct Design {
+    Meta meta;
+    Supply supply;
+    Motor motor;
+    Pwm pwm;
+    Drive drive;
+    Bank bank;
+    Heatsink heatsink;
+    Reversing reversing;
+    std::vector<Segment> dutyProfile;
+    Wiring wiring;
+    bool operator==(const Design&) const = default;
+};
+
+/// Make the per-device list match the count: entries beyond it are dropped, new ones are nominal.
+void normalizeBank(Bank& bank);
+
+} // namespace amp

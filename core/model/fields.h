@@ -1,0 +1,64 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#pragma once
+// The one table of design fields: path, unit, valid range, meaning. Validation of project files,
+// part files and --set overrides, the workbench's field editors and the README's field list all
+// read it.
+
+#include "core/model/problem.h"
+#include "core/units/units.h"
+
+#include <nlohmann/json_fwd.hpp>
+
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace amp {
+
+struct FieldSpec {
+    enum class Type { Number, Integer, Boolean, Text, Choice, List };
+    std::string path;               ///< "supply.nominal_V"; list items as "dutyProfile[].duration_s"
+    Type type = Type::Number;
+    units::Unit unit = units::Unit::None;
+    double min = 0.0;               ///< inclusive, unless minExclusive
+    double max = 0.0;               ///< inclusive
+    bool minExclusive = false;
+    std::vector<std::string> choices; ///< for Choice
+    std::string label;              ///< short label for the workbench
+    std::string help;               ///< meaning and typical range, for tooltips and docs
+};
+
+/// Every field of a design, in a stable order (sections as in the workbench).
+const std::vector<FieldSpec>& designFields();
+
+/// The fields of a part file of the given kind ("switch", "diode", "interface", "contactor",
+/// "heatsink"), with paths relative to the part object.
+const std::vector<FieldSpec>& partFields(std::string_view partKind);
+
+/// The spec for a concrete path ("dutyProfile[2].duration_s" matches "dutyProfile[].duration_s"),
+/// or nullptr.
+const FieldSpec* findField(std::string_view concretePath);
+
+/// "dutyProfile[2].duration_s" -> "dutyProfile[].duration_s".
+std::string fieldPattern(std::string_view concretePath);
+
+/// Check a raw design JSON object: every known field's type and range, unknown keys, choices.
+/// Returns every problem found (empty when valid).
+std::vector<Problem> validateDesignJson(const nlohmann::json& design);
+
+/// Check a raw part object against partFields(kind); `prefix` is prepended to the paths.
+std::vector<Problem> validatePartJson(const nlohmann::json& part, std::string_view partKind,
+                                      std::string_view prefix = {});
+
+/// Cross-field checks that a single range cannot express (min ≤ nominal ≤ max voltage, ...).
+struct Design;
+std::vector<Problem> validateDesign(const Design& design);
+
+/// Convert every string value whose key carries a unit suffix ("rdsOn25_ohm": "3.5 mΩ") into its
+/// SI number, in place, recursively. Problems name the path and the text.
+std::vector<Problem> convertUnitStrings(nlohmann::json& object, std::string_view prefix = {});
+
+/// The field table as a Markdown table (for the README and `ampwright fields`).
+std::string fieldsMarkdown();
+
+} // namespace amp
