@@ -1,0 +1,15 @@
+# SPDX-License-Identifier: GPL-3.0-or-later
+# Fails when a source under CORE_DIR includes a Qt header or links against Qt.
+file(GLOB_RECURSE _files ${CORE_DIR}/*.h ${CORE_DIR}/*.cpp ${CORE_DIR}/CMakeLists.txt)
+set(_bad "")
+foreach(_f IN LISTS _files)
+  file(STRINGS ${_f} _lines REGEX "^[ \t]*#[ \t]*include[ \t]*[<\"]Q[A-Za-z]|Qt6::|find_package\\(Qt")
+  if(_lines)
+    list(APPEND _bad "${_f}: ${_lines}")
+  endif()
+endforeach()
+if(_bad)
+  message(FATAL_ERROR "core/ must not use Qt:\n${_bad}")
+endif()
+list(LENGTH _files _n)
+message(STATUS "checked ${_n} files under core/: no Qt")
