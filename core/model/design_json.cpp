@@ -22,9 +22,9 @@ AMP_JSON(SoaPoint, voltage_V, current_A, pulse_s)
 AMP_JSON(RdsOnPoint, tj_C, factor)
 AMP_JSON(MosfetParams, rdsOn25_ohm, rdsOnTempExponent, rdsOnTable,
                                                 rdsOnSpecGate_V, vth_V, vthTempCoeff_VperK,
-                                                transconductance_AperV2, qg_C, qgs_C, qgs2_C, qgd_C,
+                                                transconductance_AperV2, qg_As, qgs_As, qgs2_As, qgd_As,
                                                 plateau_V, rgInternal_ohm, coss_F, cossRef_V, cossLaw,
-                                                bodyDiodeVf_V, bodyDiodeRd_ohm, bodyDiodeQrr_C,
+                                                bodyDiodeVf_V, bodyDiodeRd_ohm, bodyDiodeQrr_As,
                                                 avalancheRepetitive_J, breakdown_V)
 AMP_JSON(BjtParams, saturationCurrent25_A, betaF, betaR,
                                                 highCurrentKnee_A, emissionCoefficient, baseResistance_ohm,
@@ -36,7 +36,7 @@ AMP_JSON(SwitchPart, partId, name, kind, package, tabLive,
                                                 rthJc_KperW, zthJc, soa, shortCircuitTime_s, cost, mosfet,
                                                 bjt, driver)
 AMP_JSON(DiodePart, partId, name, package, tabLive, vf0_V, rd_ohm,
-                                                vfTempCoeff_VperK, qrr_C, currentRating_A, voltageRating_V,
+                                                vfTempCoeff_VperK, qrr_As, currentRating_A, voltageRating_V,
                                                 tjMax_C, rthJc_KperW, zthJc, cost)
 AMP_JSON(InterfacePart, partId, name, kind, conductivity_WperMK,
                                                 thickness_m, area_m2, contactResistance_KperW, insulating,

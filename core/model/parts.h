@@ -41,10 +41,10 @@ struct MosfetParams {
     double vth_V = 3.0;                 ///< threshold voltage at 25 °C
     double vthTempCoeff_VperK = -5e-3;  ///< dV_th/dT
     double transconductance_AperV2 = 60.0; ///< K in I_D = K·(V_GS − V_th)² (saturation, 25 °C)
-    double qg_C = 80e-9;                ///< total gate charge at the drive voltage
-    double qgs_C = 25e-9;
-    double qgs2_C = 10e-9;              ///< gate charge from V_th to the plateau
-    double qgd_C = 25e-9;               ///< Miller charge
+    double qg_As = 80e-9;                ///< total gate charge at the drive voltage
+    double qgs_As = 25e-9;
+    double qgs2_As = 10e-9;              ///< gate charge from V_th to the plateau
+    double qgd_As = 25e-9;               ///< Miller charge
     double plateau_V = 5.0;             ///< Miller plateau voltage
     double rgInternal_ohm = 1.5;
     double coss_F = 1.0e-9;             ///< output capacitance at cossRef_V
@@ -52,7 +52,7 @@ struct MosfetParams {
     std::string cossLaw = "sqrt";       ///< "constant" or "sqrt" (C ∝ V^−½)
     double bodyDiodeVf_V = 0.8;         ///< body diode forward drop at low current, 25 °C
     double bodyDiodeRd_ohm = 3e-3;
-    double bodyDiodeQrr_C = 100e-9;
+    double bodyDiodeQrr_As = 100e-9;
     double avalancheRepetitive_J = 0.0; ///< repetitive avalanche energy rating (0 = not rated)
     double breakdown_V = 0.0;           ///< avalanche breakdown (0 = 1.2 × the voltage rating)
     bool operator==(const MosfetParams&) const = default;
@@ -109,7 +109,7 @@ struct DiodePart {
     double vf0_V = 0.55;                ///< V_f = vf0 + rd·I at 25 °C
     double rd_ohm = 4e-3;
     double vfTempCoeff_VperK = -1.5e-3; ///< dV_f0/dT
-    double qrr_C = 100e-9;
+    double qrr_As = 100e-9;
     double currentRating_A = 60.0;      ///< average forward current rating
     double voltageRating_V = 200.0;
     double tjMax_C = 175.0;
