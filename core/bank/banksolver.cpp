@@ -1,0 +1,530 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "core/bank/banksolver.h"
+
+#include "core/bank/banknetwork.h"
+#include "core/bank/thermalnetwork.h"
+#include "core/bank/thermalvoltage.h"
+
+#include <Eigen/Dense>
+
+#include <algorithm>
+#include <cmath>
+#include <complex>
+#include <sstream>
+
+namespace amp {
+
+const char* toString(BankFailure f) {
+    switch (f) {
+    case BankFailure::None: return "none";
+    case BankFailure::InvalidInput: return "invalidInput";
+    case BankFailure::ThermalRunaway: return "thermalRunaway";
+    case BankFailure::CannotCarryLoad: return "cannotCarryLoad";
+    case BankFailure::NoConvergence: return "noConvergence";
+    }
+    return "none";
+}
+
+const char* toString(BankMode m) { return m == BankMode::Differential ? "differential" : "common"; }
+
+namespace {
+
+std::string num(double v, int precision = 4) {
+    std::ostringstream s;
+    s.precision(precision);
+    s << v;
+    return s.str();
+}
+
+class Checker {
+  public:
+    explicit Checker(std::vector<Problem>& out) : m_out(out) {}
+    void range(double v, double lo, double hi, const std::string& path, const char* unit = "") {
+        if (!std::isfinite(v)) {
+            m_out.push_back({path, "is not a finite number"});
+        } else if (v < lo || v > hi) {
+            m_out.push_back({path, "is " + num(v) + unit + "; it must lie between " + num(lo) + unit + " and " +
+                                       num(hi) + unit});
+        }
+    }
+    void above(double v, double lo, double hi, const std::string& path, const char* unit = "") {
+        if (!std::isfinite(v)) {
+            m_out.push_back({path, "is not a finite number"});
+        } else if (v <= lo || v > hi) {
+            m_out.push_back({path, "is " + num(v) + unit + "; it must be above " + num(lo) + unit + " and at most " +
+                                       num(hi) + unit});
+        }
+    }
+    void fail(const std::string& path, const std::string& message) { m_out.push_back({path, message}); }
+
+  private:
+    std::vector<Problem>& m_out;
+};
+
+void checkBjt(Checker& c, const BjtParams& b, const std::string& prefix) {
+    c.above(b.saturationCurrent25_A, 0.0, 1.0, prefix + ".saturationCurrent25_A", " A");
+    c.above(b.betaF, 0.0, 1e12, prefix + ".betaF");
+    c.above(b.betaR, 0.0, 1e6, prefix + ".betaR");
+    c.range(b.highCurrentKnee_A, 0.0, 1e6, prefix + ".highCurrentKnee_A", " A");
+    c.range(b.emissionCoefficient, 0.5, 4.0, prefix + ".emissionCoefficient");
+    c.range(b.baseResistance_ohm, 0.0, 1e6, prefix + ".baseResistance_ohm", " Ω");
+    c.range(b.emitterResistance_ohm, 0.0, 1e3, prefix + ".emitterResistance_ohm", " Ω");
+    c.range(b.collectorResistance_ohm, 0.0, 1e3, prefix + ".collectorResistance_ohm", " Ω");
+    c.range(b.xti, -5.0, 10.0, prefix + ".xti");
+    c.range(b.bandgap_eV, 0.1, 3.0, prefix + ".bandgap_eV", " eV");
+    c.range(b.betaTempExponent, -5.0, 5.0, prefix + ".betaTempExponent");
+}
+
+double rippleFactor(const BankProblem& p) {
+    if (p.feed == BankFeed::Voltage || p.load_A <= 0.0)
+        return 1.0;
+    const double r = p.ripplePeakToPeak_A / p.load_A;
+    return 1.0 + r * r / 12.0;
+}
+
+std::string heldText(BankFeed f) {
+    switch (f) {
+    case BankFeed::Current: return "bank current and duty held";
+    case BankFeed::Voltage: return "drain/collector voltage and drive held";
+    case BankFeed::Linear: return "bank current and drain/collector voltage held";
+    }
+    return "";
+}
+
+// Loop gain of Z·S; S is the N×N average-power sensitivity.
+BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& s, BankFeed feed) {
+    const int n = th.count;
+    BankStability st;
+    st.held = heldText(feed);
+    st.sensitivity_WperK = s;
+    Eigen::MatrixXd z(n, n), sm(n, n);
+    for (int k = 0; k < n; ++k)
+        for (int j = 0; j < n; ++j) {
+            z(k, j) = th.at(k, j);
+            sm(k, j) = s[static_cast<std::size_t>(k * n + j)];
+        }
+    const Eigen::MatrixXd m = z * sm;
+    if (!m.allFinite())
+        return st;
+    Eigen::EigenSolver<Eigen::MatrixXd> es(m, true);
+    if (es.info() != Eigen::Success)
+        return st;
+    int dom = 0;
+    for (int i = 1; i < n; ++i)
+        if (std::abs(es.eigenvalues()(i)) > std::abs(es.eigenvalues()(dom)))
+            dom = i;
+    const std::complex<double> lambda = es.eigenvalues()(dom);
+    Eigen::VectorXcd v = es.eigenvectors().col(dom);
+    int big = 0;
+    for (int i = 1; i < n; ++i)
+        if (std::abs(v(i)) > std::abs(v(big)))
+            big = i;
+    if (std::abs(v(big)) > 0.0)
+        v /= v(big);
+    st.valid = true;
+    st.loopGain = std::abs(lambda);
+    st.dominantEigenvalue = lambda.real();
+    st.modeShape.resize(static_cast<std::size_t>(n));
+    bool mixed = false;
+    for (int i = 0; i < n; ++i) {
+        st.modeShape[static_cast<std::size_t>(i)] = v(i).real();
+        if (v(i).real() < -1e-3)
+            mixed = true;
+    }
+    st.mode = mixed ? BankMode::Differential : BankMode::Common;
+    return st;
+}
+
+struct Context {
+    const BankProblem& p;
+    ThermalMatrices th;
+    double scaleP = 1.0; // duty × ripple factor
+    double ta_K = 0.0;
+    double cap_K = 0.0;
+};
+
+std::vector<double> averagePower(const Context& c, const detail::ElectricalPoint& pt) {
+    std::vector<double> pw(pt.pDevice_W.size());
+    for (std::size_t k = 0; k < pw.size(); ++k)
+        pw[k] = c.scaleP * pt.pDevice_W[k] + c.p.switchingPowerPerDevice_W;
+    return pw;
+}
+
+std::vector<double> thermalResidual(const Context& c, const std::vector<double>& t, const std::vector<double>& pw) {
+    const int n = c.th.count;
+    std::vector<double> g(static_cast<std::size_t>(n));
+    for (int k = 0; k < n; ++k) {
+        double rise = c.th.zSink[static_cast<std::size_t>(k)] * c.p.sinkExtraPower_W;
+        for (int j = 0; j < n; ++j)
+            rise += c.th.at(k, j) * pw[static_cast<std::size_t>(j)];
+        g[static_cast<std::size_t>(k)] = t[static_cast<std::size_t>(k)] - c.ta_K - rise;
+    }
+    return g;
+}
+
+void fillDevices(const Context& c, const detail::ElectricalPoint& pt, const std::vector<double>& t,
+                 BankSolution& sol) {
+    const BankProblem& p = c.p;
+    const std::size_t n = t.size();
+    sol.devices.assign(n, BankDeviceState{});
+    double total = 0.0;
+    for (std::size_t k = 0; k < n && k < pt.current_A.size(); ++k)
+        total += pt.current_A[k];
+    const std::vector<double> pw = pt.pDevice_W.size() == n ? averagePower(c, pt) : std::vector<double>(n, 0.0);
+    double sumP = 0.0;
+    sol.deviceLoss_W = 0.0;
+    sol.ballastLoss_W = 0.0;
+    for (std::size_t k = 0; k < n; ++k) {
+        BankDeviceState& d = sol.devices[k];
+        d.tj_C = toCelsius(t[k]);
+        d.switching_W = p.switchingPowerPerDevice_W;
+        if (k < pt.current_A.size()) {
+            d.current_A = pt.current_A[k];
+            d.share = std::abs(total) > 0.0 ? d.current_A / total : 1.0 / static_cast<double>(n);
+            d.ratingShare = d.current_A / p.part.currentRating_A;
+            d.deratedShare = d.current_A / (p.derating * p.part.currentRating_A);
+            d.voltage_V = pt.voltage_V[k];
+            d.controlVoltage_V = pt.control_V[k];
+            d.driveCurrent_A = pt.drive_A[k];
+            d.onStatePower_W = pt.pDevice_W[k];
+            d.conduction_W = c.scaleP * pt.pDevice_W[k];
+            d.ballast_W = c.scaleP * pt.pBallast_W[k];
+            d.leg_W = c.scaleP * pt.pLeg_W[k];
+            d.drive_W = p.duty * pt.pDrive_W[k];
+            d.region = pt.region[k];
+        }
+        d.loss_W = d.conduction_W + d.switching_W;
+        d.tcase_C = d.tj_C - p.part.rthJc_KperW * pw[k];
+        sumP += pw[k];
+        sol.deviceLoss_W += d.loss_W;
+        sol.ballastLoss_W += d.ballast_W;
+    }
+    sol.heatsink_C = toCelsius(c.ta_K) + p.rthSa_KperW * (sumP + p.sinkExtraPower_W);
+    if (p.isothermal)
+        for (auto& d : sol.devices)
+            d.tcase_C = d.tj_C;
+    double imax = 0.0, imin = 0.0, tmax = -1e300;
+    for (std::size_t k = 0; k < n; ++k) {
+        const double i = sol.devices[k].current_A;
+        if (k == 0 || i > imax)
+            imax = i;
+        if (k == 0 || i < imin)
+            imin = i;
+        if (sol.devices[k].tj_C > tmax) {
+            tmax = sol.devices[k].tj_C;
+            sol.hottest = static_cast<int>(k);
+        }
+        sol.maxShare = std::max(sol.maxShare, sol.devices[k].share);
+    }
+    if (imax <= 0.0)
+        sol.maxMinCurrentRatio = 1.0;
+    else if (imin <= 1e-6 * imax)
+        sol.maxMinCurrentRatio = 1e6;
+    else
+        sol.maxMinCurrentRatio = imax / imin;
+    sol.load_A = total;
+    sol.commonNode_V = pt.vC;
+    sol.driveNode_V = pt.vG;
+}
+
+void fillVerdict(const BankProblem& p, BankSolution& sol) {
+    std::ostringstream s;
+    const int h = sol.hottest;
+    if (sol.failure == BankFailure::InvalidInput) {
+        s << "Not solved: " << sol.reason;
+    } else if (sol.failure == BankFailure::ThermalRunaway) {
+        s << "Thermal runaway: no steady state below " << num(p.part.tjMax_C + 125.0, 4) << " °C; device "
+          << h + 1 << " heats first.";
+    } else if (!sol.converged) {
+        s << "Not solved: " << sol.reason;
+    } else if (sol.stability.valid && sol.stability.loopGain >= 1.0) {
+        s << "Unstable: loop gain " << num(sol.stability.loopGain, 3) << " ≥ 1 ("
+          << (sol.stability.mode == BankMode::Differential ? "one device takes over from the others"
+                                                          : "the whole bank heats up together")
+          << "); device " << h + 1 << " goes first.";
+    } else if (sol.overTemperature) {
+        s << "Over temperature: device " << h + 1 << " reaches " << num(sol.devices[static_cast<std::size_t>(h)].tj_C, 4)
+          << " °C, above T_j,max " << num(p.part.tjMax_C, 4) << " °C.";
+    } else {
+        s << "Stable: loop gain " << num(sol.stability.loopGain, 3) << ", max/min current "
+          << num(sol.maxMinCurrentRatio, 4) << ".";
+    }
+    sol.verdict = s.str();
+}
+
+void finishStability(const BankProblem& p, BankSolution& sol) {
+    sol.overTemperature = false;
+    for (const auto& d : sol.devices)
+        if (d.tj_C >= p.part.tjMax_C)
+            sol.overTemperature = true;
+    sol.stable = sol.fixedPoint && !sol.overTemperature && sol.stability.valid && sol.stability.loopGain < 1.0;
+}
+
+} // namespace
+
+std::vector<Problem> validateBankProblem(const BankProblem& p) {
+    std::vector<Problem> out;
+    Checker c(out);
+    const int n = static_cast<int>(p.devices.size());
+    if (n < 1 || n > 256)
+        c.fail("bank.count", "is " + std::to_string(n) + "; a bank has 1 to 256 devices");
+    const SwitchPart& s = p.part;
+    if (s.kind != "mosfet" && s.kind != "bipolar" && s.kind != "darlington")
+        c.fail("bank.device.kind", "is \"" + s.kind + "\"; it must be \"mosfet\", \"bipolar\" or \"darlington\"");
+    c.above(s.currentRating_A, 0.0, 1e6, "bank.device.currentRating_A", " A");
+    c.range(s.tjMax_C, 25.0, 400.0, "bank.device.tjMax_C", " °C");
+    c.range(s.rthJc_KperW, 0.0, 1e3, "bank.device.rthJc_KperW", " K/W");
+    c.range(s.voltageRating_V, 0.0, 1e5, "bank.device.voltageRating_V", " V");
+    if (s.kind == "mosfet") {
+        const MosfetParams& m = s.mosfet;
+        c.above(m.rdsOn25_ohm, 0.0, 1e3, "bank.device.mosfet.rdsOn25_ohm", " Ω");
+        c.range(m.rdsOnTempExponent, -1.0, 5.0, "bank.device.mosfet.rdsOnTempExponent");
+        c.above(m.rdsOnSpecGate_V, 0.0, 100.0, "bank.device.mosfet.rdsOnSpecGate_V", " V");
+        c.range(m.vth_V, -5.0, 30.0, "bank.device.mosfet.vth_V", " V");
+        c.range(m.vthTempCoeff_VperK, -0.05, 0.02, "bank.device.mosfet.vthTempCoeff_VperK", " V/K");
+        c.above(m.transconductance_AperV2, 0.0, 1e6, "bank.device.mosfet.transconductance_AperV2", " A/V²");
+        for (std::size_t i = 0; i < m.rdsOnTable.size(); ++i) {
+            const std::string path = "bank.device.mosfet.rdsOnTable[" + std::to_string(i) + "]";
+            c.range(m.rdsOnTable[i].tj_C, -100.0, 500.0, path + ".tj_C", " °C");
+            c.above(m.rdsOnTable[i].factor, 0.0, 100.0, path + ".factor");
+        }
+    } else if (s.kind == "bipolar" || s.kind == "darlington") {
+        checkBjt(c, s.bjt, "bank.device.bjt");
+        if (s.kind == "darlington")
+            checkBjt(c, s.driver, "bank.device.driver");
+    }
+    c.range(p.gateResistor_ohm, 0.0, 1e6, "bank.gateResistor_ohm", " Ω");
+    c.range(p.ballast_ohm, 0.0, 1e6, "bank.ballast_ohm", " Ω");
+    c.range(p.legResistance_ohm, 0.0, 1e3, "bank.legResistance_ohm", " Ω");
+    c.range(p.pulldown_ohm, 0.0, 1e9, "drive.pulldown_ohm", " Ω");
+    c.range(p.driveVoltage_V, -100.0, 1e3, "drive.supply_V", " V");
+    c.range(p.driveResistance_ohm, 0.0, 1e9, "drive.driverResistance_ohm", " Ω");
+    for (int k = 0; k < n && k <= 256; ++k) {
+        const BankDevice& d = p.devices[static_cast<std::size_t>(k)];
+        const std::string path = "bank.devices[" + std::to_string(k) + "]";
+        c.above(d.rdsOnDeviation, -0.95, 100.0, path + ".rdsOnDeviation");
+        c.range(d.vthDeviation_V, -20.0, 20.0, path + ".vthDeviation_V", " V");
+        c.range(d.vbeDeviation_V, -1.0, 1.0, path + ".vbeDeviation_V", " V");
+        c.above(d.betaDeviation, -0.95, 100.0, path + ".betaDeviation");
+        c.range(d.gateResistorDeviation_ohm, -1e6, 1e6, path + ".gateResistorDeviation_ohm", " Ω");
+        c.range(d.ballastDeviation_ohm, -1e6, 1e6, path + ".ballastDeviation_ohm", " Ω");
+        c.range(d.legResistanceDeviation_ohm, -1e3, 1e3, path + ".legResistanceDeviation_ohm", " Ω");
+    }
+    c.range(p.load_A, 0.0, 1e6, "load_A", " A");
+    if (p.feed != BankFeed::Current)
+        c.range(p.commonNode_V, 0.0, 1e5, "commonNode_V", " V");
+    c.range(p.busVoltage_V, 0.0, 1e5, "supply.max_V", " V");
+    c.range(p.duty, 0.0, 1.0, "duty");
+    c.range(p.ripplePeakToPeak_A, 0.0, 1e6, "ripplePeakToPeak_A", " A");
+    c.range(p.switchingPowerPerDevice_W, 0.0, 1e6, "switchingPowerPerDevice_W", " W");
+    c.range(p.sinkExtraPower_W, 0.0, 1e6, "sinkExtraPower_W", " W");
+    c.range(p.ambient_C, -60.0, 200.0, "heatsink.ambient_C", " °C");
+    c.range(p.rthCs_KperW, 0.0, 1e3, "bank.interface", " K/W");
+    c.range(p.rthSa_KperW, 0.0, 1e3, "heatsink.part.rthSa_KperW", " K/W");
+    c.range(p.neighbourCoupling_KperW, 0.0, 1e6, "bank.neighbourCoupling_KperW", " K/W");
+    c.range(p.isothermalTj_C, -60.0, 400.0, "isothermalTj_C", " °C");
+    c.above(p.derating, 0.0, 2.0, "bank.derating");
+    c.range(p.sharingTarget, 1.0, 1e3, "bank.sharingTarget");
+    if (p.maxNewtonIterations < 1 || p.maxNewtonIterations > 10000)
+        c.fail("maxNewtonIterations", "must be 1 to 10000");
+    if (p.maxThermalIterations < 1 || p.maxThermalIterations > 10000)
+        c.fail("maxThermalIterations", "must be 1 to 10000");
+    return out;
+}
+
+BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
+    BankSolution sol;
+    const std::vector<Problem> problems = validateBankProblem(p);
+    if (!problems.empty()) {
+        sol.failure = BankFailure::InvalidInput;
+        std::string msg;
+        for (const Problem& pr : problems)
+            msg += (msg.empty() ? "" : "; ") + pr.path + " " + pr.message;
+        sol.reason = msg;
+        fillVerdict(p, sol);
+        return sol;
+    }
+    const int n = static_cast<int>(p.devices.size());
+    const auto nn = static_cast<std::size_t>(n);
+    detail::BankNetwork net(p);
+    sol.notes = net.notes();
+    Context c{p, buildThermalMatrices({n, p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW, p.neighbourCoupling_KperW}),
+              p.duty * rippleFactor(p), toKelvin(p.ambient_C), toKelvin(p.part.tjMax_C) + 125.0};
+
+    // Warm start: [network unknowns..., junction temperatures (K)...].
+    std::vector<double> x;
+    std::vector<double> t;
+    if (warmStart && warmStart->state.size() > nn) {
+        x.assign(warmStart->state.begin(), warmStart->state.end() - static_cast<long>(nn));
+        t.assign(warmStart->state.end() - static_cast<long>(nn), warmStart->state.end());
+    }
+    auto finish = [&](const detail::ElectricalPoint& pt, const std::vector<double>& temps) {
+        fillDevices(c, pt, temps, sol);
+        sol.state = pt.x;
+        sol.state.insert(sol.state.end(), temps.begin(), temps.end());
+    };
+
+    if (p.isothermal) {
+        t.assign(nn, toKelvin(p.isothermalTj_C));
+        const detail::ElectricalPoint pt = net.solve(t, x.empty() ? nullptr : &x, true);
+        sol.newtonIterations = pt.iterations;
+        if (!pt.ok) {
+            sol.failure = pt.failure;
+            sol.reason = pt.reason;
+            fillDevices(c, pt, t, sol);
+            fillVerdict(p, sol);
+            return sol;
+        }
+        sol.converged = true;
+        sol.fixedPoint = true;
+        finish(pt, t);
+        std::vector<double> s(pt.sOn);
+        for (double& v : s)
+            v *= c.scaleP;
+        sol.stability = stabilityOf(c.th, s, p.feed);
+        finishStability(p, sol);
+        fillVerdict(p, sol);
+        return sol;
+    }
+
+    // Start: one fixed-point step from ambient (below the stable fixed point when P rises with T),
+    // unless a warm start gives temperatures.
+    detail::ElectricalPoint pt;
+    if (t.size() != nn || !std::all_of(t.begin(), t.end(), [](double v) { return std::isfinite(v); })) {
+        t.assign(nn, c.ta_K);
+        pt = net.solve(t, x.empty() ? nullptr : &x, false);
+        sol.newtonIterations += pt.iterations;
+        if (!pt.ok) {
+            sol.failure = pt.failure;
+            sol.reason = pt.reason;
+            fillDevices(c, pt, t, sol);
+            fillVerdict(p, sol);
+            return sol;
+        }
+        x = pt.x;
+        const std::vector<double> g = thermalResidual(c, t, averagePower(c, pt));
+        for (std::size_t k = 0; k < nn; ++k)
+            t[k] = std::min(t[k] - g[k], c.cap_K);
+    }
+
+    const double tol_K = 1e-6;
+    const double stepMax_K = 40.0;
+    int atCap = 0;
+    detail::ElectricalPoint last;
+    bool haveLast = false;
+    double lastCorrection = 0.0;
+    Eigen::MatrixXd a(n, n);
+    Eigen::VectorXd gv(n);
+    for (int it = 0; it < p.maxThermalIterations; ++it) {
+        sol.thermalIterations = it + 1;
+        pt = net.solve(t, x.empty() ? nullptr : &x, true);
+        sol.newtonIterations += pt.iterations;
+        if (!pt.ok) {
+            sol.failure = pt.failure;
+            sol.reason = pt.reason + " (at junction temperatures up to " +
+                         num(toCelsius(*std::max_element(t.begin(), t.end())), 4) + " °C)";
+            fillDevices(c, haveLast ? last : pt, t, sol);
+            fillVerdict(p, sol);
+            return sol;
+        }
+        x = pt.x;
+        last = pt;
+        haveLast = true;
+        const std::vector<double> pw = averagePower(c, pt);
+        const std::vector<double> g = thermalResidual(c, t, pw);
+        double gmax = 0.0;
+        bool heatingEverywhere = true;
+        for (std::size_t k = 0; k < nn; ++k) {
+            gmax = std::max(gmax, std::abs(g[k]));
+            if (g[k] > 0.0)
+                heatingEverywhere = false;
+        }
+        if (gmax < tol_K) {
+            sol.converged = true;
+            sol.fixedPoint = true;
+            finish(pt, t);
+            std::vector<double> s(pt.sOn);
+            for (double& v : s)
+                v *= c.scaleP;
+            sol.stability = stabilityOf(c.th, s, p.feed);
+            finishStability(p, sol);
+            fillVerdict(p, sol);
+            return sol;
+        }
+        // A junction held at the cap whose heat still exceeds what the sink removes there.
+        bool capped = false;
+        for (std::size_t k = 0; k < nn; ++k)
+            if (t[k] >= c.cap_K - 1e-9 && g[k] < 0.0)
+                capped = true;
+        atCap = capped ? atCap + 1 : 0;
+        if (atCap >= 3) {
+            sol.failure = BankFailure::ThermalRunaway;
+            sol.reason = "no electrothermal fixed point below " + num(toCelsius(c.cap_K), 4) +
+                         " °C: the devices' heat grows faster with temperature than the heatsink removes it";
+            finish(pt, t);
+            fillVerdict(p, sol);
+            return sol;
+        }
+        // Newton step on G(T) = T − T_amb − Z·P(T): (I − Z·S)·ΔT = −G.
+        for (int k = 0; k < n; ++k) {
+            gv(k) = -g[static_cast<std::size_t>(k)];
+            for (int j = 0; j < n; ++j) {
+                double zs = 0.0;
+                for (int l = 0; l < n; ++l)
+                    zs += c.th.at(k, l) * c.scaleP * pt.sOn[static_cast<std::size_t>(l * n + j)];
+                a(k, j) = (k == j ? 1.0 : 0.0) - zs;
+            }
+        }
+        const Eigen::PartialPivLU<Eigen::MatrixXd> lu(a);
+        Eigen::VectorXd dt = lu.solve(gv);
+        const double det = lu.determinant();
+        // Past a fold (det ≤ 0) with every junction still heating, Newton would point back down
+        // the curve; follow the heating instead (one fixed-point step).
+        if (!dt.allFinite() || (det <= 0.0 && heatingEverywhere))
+            dt = gv;
+        const double big = dt.cwiseAbs().maxCoeff();
+        if (big > stepMax_K)
+            dt *= stepMax_K / big;
+        lastCorrection = dt.cwiseAbs().maxCoeff();
+        for (std::size_t k = 0; k < nn; ++k)
+            t[k] = std::clamp(t[k] + dt(static_cast<long>(k)), c.ta_K - 50.0, c.cap_K);
+    }
+    // Out of iterations.
+    const double tmax = *std::max_element(t.begin(), t.end());
+    if (tmax >= c.cap_K - 1.0) {
+        sol.failure = BankFailure::ThermalRunaway;
+        sol.reason = "no electrothermal fixed point below " + num(toCelsius(c.cap_K), 4) + " °C";
+    } else {
+        sol.failure = BankFailure::NoConvergence;
+        sol.reason = "the electrothermal iteration did not settle in " + std::to_string(p.maxThermalIterations) +
+                     " steps (last correction " + num(lastCorrection, 3) + " K)";
+    }
+    if (haveLast)
+        finish(last, t);
+    fillVerdict(p, sol);
+    return sol;
+}
+
+BankStability analyseStability(const BankProblem& p, const BankSolution& at) {
+    if (!validateBankProblem(p).empty() || at.devices.size() != p.devices.size())
+        return {};
+    detail::BankNetwork net(p);
+    const std::size_t nn = p.devices.size();
+    std::vector<double> t(nn), x;
+    for (std::size_t k = 0; k < nn; ++k)
+        t[k] = toKelvin(at.devices[k].tj_C);
+    if (at.state.size() > nn)
+        x.assign(at.state.begin(), at.state.end() - static_cast<long>(nn));
+    const detail::ElectricalPoint pt = net.solve(t, x.empty() ? nullptr : &x, true);
+    if (!pt.ok)
+        return {};
+    const ThermalMatrices th =
+        buildThermalMatrices({static_cast<int>(nn), p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW,
+                              p.neighbourCoupling_KperW});
+    std::vector<double> s(pt.sOn);
+    for (double& v : s)
+        v *= p.duty * rippleFactor(p);
+    return stabilityOf(th, s, p.feed);
+}
+
+} // namespace amp

@@ -1,0 +1,144 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "core/bank/mosfetmodel.h"
+
+#include "core/bank/dual.h"
+#include "core/bank/thermalvoltage.h"
+
+#include <algorithm>
+#include <cmath>
+
+namespace amp {
+
+namespace {
+
+// s·ln(1 + e^(x/s)) without overflow; equals x to double precision for x ≫ s.
+template <class S>
+S softplus(const S& x, const S& s) {
+    using std::exp;
+    using std::log1p;
+    const S u = x / s;
+    if (ad::val(u) > 30.0)
+        return x + s * log1p(exp(-u));
+    return s * log1p(exp(u));
+}
+
+template <class S>
+S tableFactor(const std::vector<RdsOnPoint>& table, const S& t_K) {
+    const S tC = t_K - kZeroCelsius_K;
+    if (table.size() == 1)
+        return S(std::max(table.front().factor, 0.05));
+    // Segment containing T (or the end segment, extrapolated linearly).
+    std::size_t i = 1;
+    while (i + 1 < table.size() && ad::val(tC) > table[i].tj_C)
+        ++i;
+    const RdsOnPoint& a = table[i - 1];
+    const RdsOnPoint& b = table[i];
+    const double slope = (b.factor - a.factor) / (b.tj_C - a.tj_C);
+    const S f = a.factor + (tC - a.tj_C) * slope;
+    if (ad::val(f) < 0.05)
+        return S(0.05); // a table extrapolated below zero means nonsense; hold a floor
+    return f;
+}
+
+} // namespace
+
+MosfetModel MosfetModel::make(const MosfetParams& p, double rdsOnDeviation, double vthDeviation_V,
+                              double tMax_K) {
+    MosfetModel m;
+    m.rdsOn25_ohm = p.rdsOn25_ohm;
+    m.tempExponent = p.rdsOnTempExponent;
+    m.table = p.rdsOnTable;
+    std::sort(m.table.begin(), m.table.end(),
+              [](const RdsOnPoint& a, const RdsOnPoint& b) { return a.tj_C < b.tj_C; });
+    // Repeated temperatures would make a zero-width segment.
+    m.table.erase(std::unique(m.table.begin(), m.table.end(),
+                              [](const RdsOnPoint& a, const RdsOnPoint& b) { return a.tj_C == b.tj_C; }),
+                  m.table.end());
+    m.specGate_V = p.rdsOnSpecGate_V;
+    m.vth25_V = p.vth_V;
+    m.vthTempCoeff_VperK = p.vthTempCoeff_VperK;
+    m.k25_AperV2 = p.transconductance_AperV2;
+
+    // Consistency: the channel alone must not take more than 90 % of R_ds(on) anywhere in range.
+    double worst = 0.0;
+    for (double t = 233.15; t <= tMax_K + 1e-9; t += 5.0) {
+        const double rch = 1.0 / (2.0 * m.channelK(t) * m.overdrive(m.specGate_V, t));
+        worst = std::max(worst, rch / m.nominalOnResistance(t));
+    }
+    if (worst > 0.9) {
+        m.kRaise = worst / 0.9;
+        m.k25_AperV2 *= m.kRaise;
+    }
+    m.scale = 1.0 + rdsOnDeviation;
+    m.vthShift_V = vthDeviation_V;
+    return m;
+}
+
+double MosfetModel::nominalOnResistance(double t_K) const {
+    if (!table.empty())
+        return rdsOn25_ohm * tableFactor(table, t_K);
+    return rdsOn25_ohm * std::pow(t_K / kPartReference_K, tempExponent);
+}
+
+template <class S>
+S MosfetModel::threshold(const S& t_K) const {
+    return (vth25_V + vthShift_V) + vthTempCoeff_VperK * (t_K - kPartReference_K);
+}
+
+template <class S>
+S MosfetModel::channelK(const S& t_K) const {
+    using std::pow;
+    return (k25_AperV2 / scale) * pow(t_K / kPartReference_K, -1.5);
+}
+
+template <class S>
+S MosfetModel::overdrive(const S& vgs, const S& t_K) const {
+    return softplus(vgs - threshold(t_K), 3.0 * thermalVoltage(t_K));
+}
+
+template <class S>
+S MosfetModel::driftResistance(const S& t_K) const {
+    using std::pow;
+    // Nominal die: R_ds(on) law minus the nominal channel at the specified gate voltage.
+    const S kNom = k25_AperV2 * pow(t_K / kPartReference_K, -1.5);
+    const S vovNom = softplus(specGate_V - (vth25_V + vthTempCoeff_VperK * (t_K - kPartReference_K)),
+                              3.0 * thermalVoltage(t_K));
+    S ron;
+    if (!table.empty())
+        ron = rdsOn25_ohm * tableFactor(table, t_K);
+    else
+        ron = rdsOn25_ohm * pow(t_K / kPartReference_K, tempExponent);
+    return scale * (ron - 1.0 / (2.0 * kNom * vovNom));
+}
+
+template <class S>
+S MosfetModel::onResistance(const S& t_K) const {
+    return driftResistance(t_K) + 1.0 / (2.0 * channelK(t_K) * overdrive(S(specGate_V), t_K));
+}
+
+template <class S>
+S MosfetModel::channelCurrent(const S& vgs, const S& vds, const S& t_K) const {
+    const S vov = overdrive(vgs, t_K);
+    const S k = channelK(t_K);
+    const bool reverse = ad::val(vds) < 0.0;
+    const S v = reverse ? -vds : vds;
+    S i;
+    if (ad::val(v) < ad::val(vov))
+        i = k * (2.0 * vov * v - v * v);
+    else
+        i = k * vov * vov;
+    return reverse ? -i : i;
+}
+
+#define AMP_MOSFET_INSTANTIATE(S)                                                                    \
+    template S MosfetModel::onResistance<S>(const S&) const;                                        \
+    template S MosfetModel::threshold<S>(const S&) const;                                           \
+    template S MosfetModel::channelK<S>(const S&) const;                                            \
+    template S MosfetModel::overdrive<S>(const S&, const S&) const;                                 \
+    template S MosfetModel::driftResistance<S>(const S&) const;                                     \
+    template S MosfetModel::channelCurrent<S>(const S&, const S&, const S&) const;
+
+AMP_MOSFET_INSTANTIATE(double)
+AMP_MOSFET_INSTANTIATE(ad::Dual<4>)
+
+} // namespace amp
