@@ -64,9 +64,10 @@ struct MosfetLeg {
         }
         const S is = i + ig;
         const S vs = is * rs;
-        const S rd = model.driftResistance(t);
+        const MosfetModel::AtTemperature<S> at = model.atTemperature(t);
+        const S& rd = at.drift;
         const S vch = vc - i * rd - vs;
-        const S ich = model.channelCurrent(vgs, vch, t) + model.gmin_S * vch;
+        const S ich = model.channelCurrent(at, vgs, vch) + model.gmin_S * vch;
         o.r[0] = i - ich;
         o.ig = ig;
         o.ic = i;
@@ -309,6 +310,7 @@ struct BankNetwork::Impl {
     virtual ~Impl() = default;
     virtual ElectricalPoint solve(const std::vector<double>& tj_K, const std::vector<double>* x0,
                                   bool sensitivity) = 0;
+    virtual void fillRegions(ElectricalPoint& pt, const std::vector<double>& tj_K) const = 0;
     int n = 0;
     std::vector<std::string> notes;
 };
@@ -331,11 +333,14 @@ class TypedNetwork final : public BankNetwork::Impl {
         m_vFixed = p.commonNode_V;
         m_bus = p.busVoltage_V;
         m_maxIt = std::max(p.maxNewtonIterations, 1);
+        m_rating = p.part.currentRating_A;
         m_iRef = std::max(p.load_A / n, 1e-3);
         const double ceiling = p.busVoltage_V > 0.0 ? p.busVoltage_V : std::max(p.part.voltageRating_V, 1.0);
         m_vAbort = 20.0 * ceiling + 100.0;
-        m_J.resize(m_nx, m_nx);
+        // Entries outside the border rows and the leg blocks are never written: zero them once.
+        m_J = Eigen::MatrixXd::Zero(m_nx, m_nx);
         m_r.resize(m_nx);
+        m_trial.resize(static_cast<std::size_t>(m_nx));
         m_currentRow.assign(static_cast<std::size_t>(m_nx), false);
         m_currentRow[0] = m_feed == BankFeed::Linear;
         m_currentRow[1] = m_feed == BankFeed::Current;
@@ -348,21 +353,75 @@ class TypedNetwork final : public BankNetwork::Impl {
 
     ElectricalPoint solve(const std::vector<double>& tj, const std::vector<double>* x0, bool sensitivity) override {
         ElectricalPoint pt;
-        std::vector<double> x;
-        if (x0 && static_cast<int>(x0->size()) == m_nx && allFinite(*x0))
-            x = *x0;
-        else
+        const bool warm = x0 && static_cast<int>(x0->size()) == m_nx && allFinite(*x0);
+        std::vector<double> x = warm ? *x0 : initialGuess(tj);
+        int total = 0;
+        bool ok = newton(x, tj, pt, total);
+        if (!ok && pt.failure == BankFailure::NoConvergence && warm) {
             x = initialGuess(tj);
+            ok = newton(x, tj, pt, total);
+        }
+        if (!ok && pt.failure == BankFailure::NoConvergence && m_feed != BankFeed::Voltage) {
+            // Load stepping: start from a comfortable load and walk to the one asked for.
+            const double target = m_load;
+            const double start = std::max(target, 0.05 * m_rating * n);
+            if (start > target) {
+                m_load = start;
+                x = initialGuess(tj);
+                ok = true;
+                for (int step = 0; step <= 8 && ok; ++step) {
+                    m_load = start + (target - start) * step / 8.0;
+                    ok = newton(x, tj, pt, total);
+                }
+                m_load = target;
+            }
+        }
+        pt.iterations = total;
+        if (!ok)
+            return pt;
+        // Outputs.
+        pt.ok = true;
+        pt.x = x;
+        pt.vG = x[0];
+        pt.vC = x[1];
+        const auto nn = static_cast<std::size_t>(n);
+        pt.current_A.resize(nn);
+        pt.voltage_V.resize(nn);
+        pt.control_V.resize(nn);
+        pt.drive_A.resize(nn);
+        pt.pDevice_W.resize(nn);
+        pt.pBallast_W.resize(nn);
+        pt.pLeg_W.resize(nn);
+        pt.pDrive_W.resize(nn);
+        for (std::size_t k = 0; k < nn; ++k) {
+            const LegOut<D>& o = m_out[k];
+            pt.current_A[k] = o.ic.v;
+            pt.voltage_V[k] = o.vDev.v;
+            pt.control_V[k] = o.vControl.v;
+            pt.drive_A[k] = o.ig.v;
+            pt.pDevice_W[k] = o.pDev.v;
+            pt.pBallast_W[k] = o.pBallast.v;
+            pt.pLeg_W[k] = o.pLeg.v;
+            pt.pDrive_W[k] = o.pDrive.v;
+        }
+        if (sensitivity)
+            computeSensitivity(pt);
+        return pt;
+    }
+
+    // Damped Newton from x; on success x is the solution and m_out/m_J belong to it.
+    bool newton(std::vector<double>& x, const std::vector<double>& tj, ElectricalPoint& pt, int& total) {
         if (m_feed != BankFeed::Current)
             x[1] = m_vFixed;
-
         double merit = evaluate(x, tj);
         bool converged = false;
         int it = 0;
         Eigen::VectorXd dx(m_nx);
         for (; it <= m_maxIt; ++it) {
-            if (!std::isfinite(merit))
-                return fail(pt, BankFailure::NoConvergence, "the network equations gave a non-finite value", it);
+            if (!std::isfinite(merit)) {
+                fail(pt, BankFailure::NoConvergence, "the network equations gave a non-finite value", total += it);
+                return false;
+            }
             if (residualConverged(x)) {
                 converged = true;
                 break;
@@ -371,10 +430,12 @@ class TypedNetwork final : public BankNetwork::Impl {
                 break;
             m_lu.compute(m_J);
             dx = m_lu.solve(-m_r);
-            if (!dx.allFinite())
-                return fail(pt, BankFailure::NoConvergence, "singular network Jacobian", it);
+            if (!dx.allFinite()) {
+                fail(pt, BankFailure::NoConvergence, "singular network Jacobian", total += it);
+                return false;
+            }
             // Limited trial point; back off while the residual grows markedly.
-            std::vector<double> trial(x.size());
+            std::vector<double>& trial = m_trial;
             double alpha = 1.0;
             double trialMerit = merit;
             bool tiny = true;
@@ -398,7 +459,8 @@ class TypedNetwork final : public BankNetwork::Impl {
                 if (m_bus > 0.0)
                     s << ", far above the bus voltage " << fmt(m_bus) << " V";
                 s << " (the devices would leave conduction)";
-                return fail(pt, BankFailure::CannotCarryLoad, s.str(), it + 1);
+                fail(pt, BankFailure::CannotCarryLoad, s.str(), total += it + 1);
+                return false;
             }
             if (tiny && std::isfinite(merit) && merit < 1e-6) {
                 converged = true;
@@ -406,51 +468,26 @@ class TypedNetwork final : public BankNetwork::Impl {
                 break;
             }
         }
+        total += it;
         if (!converged) {
             std::ostringstream s;
             s << "the network solve did not converge in " << m_maxIt << " Newton steps";
-            return fail(pt, BankFailure::NoConvergence, s.str(), it);
+            fail(pt, BankFailure::NoConvergence, s.str(), total);
+            return false;
         }
-        pt.iterations = it;
-        // Outputs.
         pt.ok = true;
-        pt.x = x;
-        pt.vG = x[0];
-        pt.vC = x[1];
-        const auto nn = static_cast<std::size_t>(n);
-        pt.current_A.resize(nn);
-        pt.voltage_V.resize(nn);
-        pt.control_V.resize(nn);
-        pt.drive_A.resize(nn);
-        pt.pDevice_W.resize(nn);
-        pt.pBallast_W.resize(nn);
-        pt.pLeg_W.resize(nn);
-        pt.pDrive_W.resize(nn);
-        pt.region.resize(nn);
-        for (std::size_t k = 0; k < nn; ++k) {
-            const LegOut<D>& o = m_out[k];
-            pt.current_A[k] = o.ic.v;
-            pt.voltage_V[k] = o.vDev.v;
-            pt.control_V[k] = o.vControl.v;
-            pt.drive_A[k] = o.ig.v;
-            pt.pDevice_W[k] = o.pDev.v;
-            pt.pBallast_W[k] = o.pBallast.v;
-            pt.pLeg_W[k] = o.pLeg.v;
-            pt.pDrive_W[k] = o.pDrive.v;
-            pt.region[k] = m_legs[k].region(x[0], x[1], &x[2 + k * m], tj[k]);
-        }
-        if (m_feed == BankFeed::Current && m_bus > 0.0 && x[1] > m_bus) {
-            std::ostringstream s;
-            s << "the bank cannot carry " << fmt(m_load) << " A with this drive: it would need "
-              << fmt(x[1]) << " V across it, more than the bus voltage " << fmt(m_bus) << " V";
-            pt.ok = false;
-            pt.failure = BankFailure::CannotCarryLoad;
-            pt.reason = s.str();
-            return pt;
-        }
-        if (sensitivity)
-            computeSensitivity(pt);
-        return pt;
+        pt.failure = BankFailure::None;
+        pt.reason.clear();
+        return true;
+    }
+
+    void fillRegions(ElectricalPoint& pt, const std::vector<double>& tj) const override {
+        pt.region.assign(static_cast<std::size_t>(n), std::string());
+        if (static_cast<int>(pt.x.size()) != m_nx || static_cast<int>(tj.size()) != n)
+            return;
+        for (int k = 0; k < n; ++k)
+            pt.region[static_cast<std::size_t>(k)] = m_legs[static_cast<std::size_t>(k)].region(
+                pt.x[0], pt.x[1], &pt.x[static_cast<std::size_t>(2 + k * m)], tj[static_cast<std::size_t>(k)]);
     }
 
   private:
@@ -532,7 +569,6 @@ class TypedNetwork final : public BankNetwork::Impl {
 
     // Residual, Jacobian and per-leg outputs at x; returns the scaled merit Σ(r/scale)².
     double evaluate(const std::vector<double>& x, const std::vector<double>& tj) {
-        m_J.setZero();
         const D vg = D::variable(x[0], 0);
         const D vc = D::variable(x[1], 1);
         D sumIg(0.0), sumIc(0.0);
@@ -638,6 +674,10 @@ class TypedNetwork final : public BankNetwork::Impl {
             b(1, j) = m_feed == BankFeed::Current ? -dIc : 0.0;
         }
         const Eigen::MatrixXd dx = m_lu.solve(b);
+        pt.dxdT.resize(static_cast<std::size_t>(m_nx * n));
+        for (int i = 0; i < m_nx; ++i)
+            for (int j = 0; j < n; ++j)
+                pt.dxdT[static_cast<std::size_t>(i * n + j)] = std::isfinite(dx(i, j)) ? dx(i, j) : 0.0;
         pt.sOn.assign(static_cast<std::size_t>(n * n), 0.0);
         for (int k = 0; k < n; ++k) {
             const D& p = m_out[static_cast<std::size_t>(k)].pDev;
@@ -657,13 +697,14 @@ class TypedNetwork final : public BankNetwork::Impl {
     int m_nx = 0;
     BankFeed m_feed = BankFeed::Current;
     double m_vDrv = 0.0, m_rDrv = 0.0, m_load = 0.0, m_vFixed = 0.0, m_bus = 0.0;
-    double m_iRef = 1.0, m_vAbort = 1e4;
+    double m_iRef = 1.0, m_vAbort = 1e4, m_rating = 1.0;
     int m_maxIt = 100;
     std::vector<bool> m_currentRow;
     Eigen::MatrixXd m_J;
     Eigen::VectorXd m_r;
     Eigen::PartialPivLU<Eigen::MatrixXd> m_lu;
     std::vector<LegOut<D>> m_out;
+    std::vector<double> m_trial;
     std::vector<std::array<double, m>> m_dT; ///< ∂r/∂T of each leg row
 };
 
@@ -680,10 +721,11 @@ BankNetwork::BankNetwork(const BankProblem& p) {
     };
     if (p.part.kind == "mosfet") {
         std::vector<MosfetLeg> legs(static_cast<std::size_t>(n));
+        const double raise = MosfetModel::consistencyRaise(p.part.mosfet, deviceTopK(p));
         for (int k = 0; k < n; ++k) {
             const BankDevice& d = p.devices[static_cast<std::size_t>(k)];
             MosfetLeg& l = legs[static_cast<std::size_t>(k)];
-            l.model = MosfetModel::make(p.part.mosfet, d.rdsOnDeviation, d.vthDeviation_V, deviceTopK(p));
+            l.model = MosfetModel::make(p.part.mosfet, d.rdsOnDeviation, d.vthDeviation_V, deviceTopK(p), raise);
             l.gate_ohm = devGate(d);
             l.ballast_ohm = devBallast(d);
             l.leg_ohm = devLeg(d);
@@ -700,7 +742,7 @@ BankNetwork::BankNetwork(const BankProblem& p) {
         for (int k = 0; k < n; ++k) {
             const BankDevice& d = p.devices[static_cast<std::size_t>(k)];
             DarlingtonLeg& l = legs[static_cast<std::size_t>(k)];
-            l.m = DarlingtonModel::make(p.part.driver, p.part.bjt, d.vbeDeviation_V, d.betaDeviation);
+            l.m = DarlingtonModel::make(p.part.driver, p.part.bjt, d.vbeDeviation_V, d.betaDeviation, p.earlyVoltage_V);
             l.gate_ohm = devGate(d);
             l.ballast_ohm = devBallast(d);
             l.leg_ohm = devLeg(d);
@@ -711,7 +753,7 @@ BankNetwork::BankNetwork(const BankProblem& p) {
         for (int k = 0; k < n; ++k) {
             const BankDevice& d = p.devices[static_cast<std::size_t>(k)];
             BipolarLeg& l = legs[static_cast<std::size_t>(k)];
-            l.q = BjtModel::make(p.part.bjt, d.vbeDeviation_V, d.betaDeviation);
+            l.q = BjtModel::make(p.part.bjt, d.vbeDeviation_V, d.betaDeviation, p.earlyVoltage_V);
             l.gate_ohm = devGate(d);
             l.ballast_ohm = devBallast(d);
             l.leg_ohm = devLeg(d);
@@ -727,6 +769,10 @@ const std::vector<std::string>& BankNetwork::notes() const { return m_impl->note
 
 ElectricalPoint BankNetwork::solve(const std::vector<double>& tj_K, const std::vector<double>* x0, bool sensitivity) {
     return m_impl->solve(tj_K, x0, sensitivity);
+}
+
+void BankNetwork::fillRegions(ElectricalPoint& pt, const std::vector<double>& tj_K) const {
+    m_impl->fillRegions(pt, tj_K);
 }
 
 } // namespace amp::detail

@@ -29,8 +29,9 @@ struct ElectricalPoint {
     std::vector<double> pBallast_W; ///< on-state
     std::vector<double> pLeg_W;
     std::vector<double> pDrive_W;
-    std::vector<std::string> region;
+    std::vector<std::string> region;  ///< filled by fillRegions()
     std::vector<double> sOn;        ///< N×N row-major dP_on,k/dT_j (when requested)
+    std::vector<double> dxdT;       ///< n×N row-major dX/dT_j of the unknowns (when requested)
 };
 
 class BankNetwork {
@@ -45,6 +46,8 @@ class BankNetwork {
     /// Solve at junction temperatures tj_K (size N). x0: previous unknowns (may be null or of the
     /// wrong size, then a built-in guess is used).
     ElectricalPoint solve(const std::vector<double>& tj_K, const std::vector<double>* x0, bool sensitivity);
+    /// Operating region of each device at a solution (for the report only: it costs an evaluation).
+    void fillRegions(ElectricalPoint& pt, const std::vector<double>& tj_K) const;
 
     struct Impl;
 

@@ -109,12 +109,16 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
     Eigen::EigenSolver<Eigen::MatrixXd> es(m, true);
     if (es.info() != Eigen::Success)
         return st;
-    int dom = 0;
-    for (int i = 1; i < n; ++i)
-        if (std::abs(es.eigenvalues()(i)) > std::abs(es.eigenvalues()(dom)))
-            dom = i;
-    const std::complex<double> lambda = es.eigenvalues()(dom);
-    Eigen::VectorXcd v = es.eigenvectors().col(dom);
+    // Spectral radius, and the eigenvalue with the largest real part: the mode that grows.
+    int grow = 0;
+    double radius = 0.0;
+    for (int i = 0; i < n; ++i) {
+        radius = std::max(radius, std::abs(es.eigenvalues()(i)));
+        if (es.eigenvalues()(i).real() > es.eigenvalues()(grow).real())
+            grow = i;
+    }
+    const std::complex<double> lambda = es.eigenvalues()(grow);
+    Eigen::VectorXcd v = es.eigenvectors().col(grow);
     int big = 0;
     for (int i = 1; i < n; ++i)
         if (std::abs(v(i)) > std::abs(v(big)))
@@ -122,7 +126,7 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
     if (std::abs(v(big)) > 0.0)
         v /= v(big);
     st.valid = true;
-    st.loopGain = std::abs(lambda);
+    st.loopGain = radius;
     st.dominantEigenvalue = lambda.real();
     st.modeShape.resize(static_cast<std::size_t>(n));
     bool mixed = false;
@@ -191,7 +195,7 @@ void fillDevices(const Context& c, const detail::ElectricalPoint& pt, const std:
             d.ballast_W = c.scaleP * pt.pBallast_W[k];
             d.leg_W = c.scaleP * pt.pLeg_W[k];
             d.drive_W = p.duty * pt.pDrive_W[k];
-            d.region = pt.region[k];
+            d.region = k < pt.region.size() ? pt.region[k] : std::string();
         }
         d.loss_W = d.conduction_W + d.switching_W;
         d.tcase_C = d.tj_C - p.part.rthJc_KperW * pw[k];
@@ -237,8 +241,8 @@ void fillVerdict(const BankProblem& p, BankSolution& sol) {
           << h + 1 << " heats first.";
     } else if (!sol.converged) {
         s << "Not solved: " << sol.reason;
-    } else if (sol.stability.valid && sol.stability.loopGain >= 1.0) {
-        s << "Unstable: loop gain " << num(sol.stability.loopGain, 3) << " ≥ 1 ("
+    } else if (sol.stability.valid && sol.stability.dominantEigenvalue >= 1.0) {
+        s << "Unstable: loop gain " << num(sol.stability.dominantEigenvalue, 3) << " ≥ 1 ("
           << (sol.stability.mode == BankMode::Differential ? "one device takes over from the others"
                                                           : "the whole bank heats up together")
           << "); device " << h + 1 << " goes first.";
@@ -246,10 +250,27 @@ void fillVerdict(const BankProblem& p, BankSolution& sol) {
         s << "Over temperature: device " << h + 1 << " reaches " << num(sol.devices[static_cast<std::size_t>(h)].tj_C, 4)
           << " °C, above T_j,max " << num(p.part.tjMax_C, 4) << " °C.";
     } else {
-        s << "Stable: loop gain " << num(sol.stability.loopGain, 3) << ", max/min current "
+        s << "Stable: loop gain " << num(sol.stability.dominantEigenvalue, 3);
+        if (sol.stability.loopGain > std::max(sol.stability.dominantEigenvalue, 0.0) * 1.001)
+            s << " (spectral radius " << num(sol.stability.loopGain, 3) << " from negative feedback)";
+        s << ", max/min current "
           << num(sol.maxMinCurrentRatio, 4) << ".";
     }
     sol.verdict = s.str();
+}
+
+// The drive cannot hold the bank on when the solution needs more than the bus across it. Judged
+// at the final state only: a cold bipolar bank may be short of gain where a warm one is not.
+bool overBus(const BankProblem& p, const detail::ElectricalPoint& pt, BankSolution& sol) {
+    if (p.feed != BankFeed::Current || p.busVoltage_V <= 0.0 || pt.vC <= p.busVoltage_V)
+        return false;
+    sol.converged = false;
+    sol.fixedPoint = false;
+    sol.stable = false;
+    sol.failure = BankFailure::CannotCarryLoad;
+    sol.reason = "the bank cannot carry " + num(p.load_A) + " A with this drive: it would need " + num(pt.vC) +
+                 " V across it, more than the bus voltage " + num(p.busVoltage_V) + " V";
+    return true;
 }
 
 void finishStability(const BankProblem& p, BankSolution& sol) {
@@ -257,7 +278,8 @@ void finishStability(const BankProblem& p, BankSolution& sol) {
     for (const auto& d : sol.devices)
         if (d.tj_C >= p.part.tjMax_C)
             sol.overTemperature = true;
-    sol.stable = sol.fixedPoint && !sol.overTemperature && sol.stability.valid && sol.stability.loopGain < 1.0;
+    sol.stable =
+        sol.fixedPoint && !sol.overTemperature && sol.stability.valid && sol.stability.dominantEigenvalue < 1.0;
 }
 
 } // namespace
@@ -297,6 +319,7 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
     c.range(p.ballast_ohm, 0.0, 1e6, "bank.ballast_ohm", " Ω");
     c.range(p.legResistance_ohm, 0.0, 1e3, "bank.legResistance_ohm", " Ω");
     c.range(p.pulldown_ohm, 0.0, 1e9, "drive.pulldown_ohm", " Ω");
+    c.range(p.earlyVoltage_V, 0.0, 1e5, "earlyVoltage_V", " V");
     c.range(p.driveVoltage_V, -100.0, 1e3, "drive.supply_V", " V");
     c.range(p.driveResistance_ohm, 0.0, 1e9, "drive.driverResistance_ohm", " Ω");
     for (int k = 0; k < n && k <= 256; ++k) {
@@ -358,7 +381,8 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         x.assign(warmStart->state.begin(), warmStart->state.end() - static_cast<long>(nn));
         t.assign(warmStart->state.end() - static_cast<long>(nn), warmStart->state.end());
     }
-    auto finish = [&](const detail::ElectricalPoint& pt, const std::vector<double>& temps) {
+    auto finish = [&](detail::ElectricalPoint pt, const std::vector<double>& temps) {
+        net.fillRegions(pt, temps);
         fillDevices(c, pt, temps, sol);
         sol.state = pt.x;
         sol.state.insert(sol.state.end(), temps.begin(), temps.end());
@@ -378,6 +402,10 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         sol.converged = true;
         sol.fixedPoint = true;
         finish(pt, t);
+        if (overBus(p, pt, sol)) {
+            fillVerdict(p, sol);
+            return sol;
+        }
         std::vector<double> s(pt.sOn);
         for (double& v : s)
             v *= c.scaleP;
@@ -387,51 +415,42 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         return sol;
     }
 
-    // Start: one fixed-point step from ambient (below the stable fixed point when P rises with T),
-    // unless a warm start gives temperatures.
+    // Start at ambient unless a warm start gives temperatures. When the heat rises with
+    // temperature G(T) is concave and Newton from below approaches the stable fixed point from
+    // below without overshoot.
     detail::ElectricalPoint pt;
-    if (t.size() != nn || !std::all_of(t.begin(), t.end(), [](double v) { return std::isfinite(v); })) {
+    if (t.size() != nn || !std::all_of(t.begin(), t.end(), [](double v) { return std::isfinite(v); }))
         t.assign(nn, c.ta_K);
-        pt = net.solve(t, x.empty() ? nullptr : &x, false);
-        sol.newtonIterations += pt.iterations;
-        if (!pt.ok) {
-            sol.failure = pt.failure;
-            sol.reason = pt.reason;
-            fillDevices(c, pt, t, sol);
-            fillVerdict(p, sol);
-            return sol;
-        }
-        x = pt.x;
-        const std::vector<double> g = thermalResidual(c, t, averagePower(c, pt));
-        for (std::size_t k = 0; k < nn; ++k)
-            t[k] = std::min(t[k] - g[k], c.cap_K);
-    }
 
     const double tol_K = 1e-6;
-    const double stepMax_K = 40.0;
+    const double stepMax_K = 100.0;
     int atCap = 0;
-    detail::ElectricalPoint last;
-    bool haveLast = false;
     double lastCorrection = 0.0;
     Eigen::MatrixXd a(n, n);
     Eigen::VectorXd gv(n);
+    std::vector<double> g;
+    auto solveAt = [&](const std::vector<double>& temps, detail::ElectricalPoint& out, std::vector<double>& gOut) {
+        out = net.solve(temps, x.empty() ? nullptr : &x, true);
+        sol.newtonIterations += out.iterations;
+        if (!out.ok)
+            return false;
+        gOut = thermalResidual(c, temps, averagePower(c, out));
+        return true;
+    };
+    auto electricalFailure = [&](const detail::ElectricalPoint& bad, const std::vector<double>& temps) {
+        sol.failure = bad.failure;
+        sol.reason = bad.reason + " (at junction temperatures up to " +
+                     num(toCelsius(*std::max_element(temps.begin(), temps.end())), 4) + " °C)";
+    };
+    if (!solveAt(t, pt, g)) {
+        electricalFailure(pt, t);
+        fillDevices(c, pt, t, sol);
+        fillVerdict(p, sol);
+        return sol;
+    }
+    x = pt.x;
     for (int it = 0; it < p.maxThermalIterations; ++it) {
         sol.thermalIterations = it + 1;
-        pt = net.solve(t, x.empty() ? nullptr : &x, true);
-        sol.newtonIterations += pt.iterations;
-        if (!pt.ok) {
-            sol.failure = pt.failure;
-            sol.reason = pt.reason + " (at junction temperatures up to " +
-                         num(toCelsius(*std::max_element(t.begin(), t.end())), 4) + " °C)";
-            fillDevices(c, haveLast ? last : pt, t, sol);
-            fillVerdict(p, sol);
-            return sol;
-        }
-        x = pt.x;
-        last = pt;
-        haveLast = true;
-        const std::vector<double> pw = averagePower(c, pt);
-        const std::vector<double> g = thermalResidual(c, t, pw);
         double gmax = 0.0;
         bool heatingEverywhere = true;
         for (std::size_t k = 0; k < nn; ++k) {
@@ -443,6 +462,10 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
             sol.converged = true;
             sol.fixedPoint = true;
             finish(pt, t);
+            if (overBus(p, pt, sol)) {
+                fillVerdict(p, sol);
+                return sol;
+            }
             std::vector<double> s(pt.sOn);
             for (double& v : s)
                 v *= c.scaleP;
@@ -479,15 +502,49 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         Eigen::VectorXd dt = lu.solve(gv);
         const double det = lu.determinant();
         // Past a fold (det ≤ 0) with every junction still heating, Newton would point back down
-        // the curve; follow the heating instead (one fixed-point step).
-        if (!dt.allFinite() || (det <= 0.0 && heatingEverywhere))
+        // the curve; follow the heating instead (a fixed-point step, taken whole).
+        const bool heatingStep = !dt.allFinite() || (det <= 0.0 && heatingEverywhere);
+        if (heatingStep)
             dt = gv;
         const double big = dt.cwiseAbs().maxCoeff();
         if (big > stepMax_K)
             dt *= stepMax_K / big;
         lastCorrection = dt.cwiseAbs().maxCoeff();
-        for (std::size_t k = 0; k < nn; ++k)
-            t[k] = std::clamp(t[k] + dt(static_cast<long>(k)), c.ta_K - 50.0, c.cap_K);
+        // Backtracking: halve the step while the largest temperature residual does not fall (the
+        // network can switch region steeply, e.g. a bipolar bank leaving saturation).
+        double alpha = 1.0;
+        std::vector<double> tTrial(nn), gTrial;
+        detail::ElectricalPoint trial;
+        const std::vector<double> xHere = pt.x;
+        for (int bt = 0;; ++bt) {
+            for (std::size_t k = 0; k < nn; ++k)
+                tTrial[k] = std::clamp(t[k] + alpha * dt(static_cast<long>(k)), c.ta_K - 50.0, c.cap_K);
+            // Start the network from its first-order prediction x + dX/dT·ΔT.
+            x = xHere;
+            if (pt.dxdT.size() == xHere.size() * nn)
+                for (std::size_t i = 0; i < x.size(); ++i)
+                    for (std::size_t k = 0; k < nn; ++k)
+                        x[i] += pt.dxdT[i * nn + k] * (tTrial[k] - t[k]);
+            const bool ok = solveAt(tTrial, trial, gTrial);
+            if (ok) {
+                double trialMax = 0.0;
+                for (double v : gTrial)
+                    trialMax = std::max(trialMax, std::abs(v));
+                if (heatingStep || trialMax < gmax || bt >= 6)
+                    break;
+            } else if (bt >= 6) {
+                electricalFailure(trial, tTrial);
+                finish(pt, t);
+                sol.converged = false;
+                fillVerdict(p, sol);
+                return sol;
+            }
+            alpha *= 0.5;
+        }
+        t = tTrial;
+        pt = std::move(trial);
+        g = std::move(gTrial);
+        x = pt.x;
     }
     // Out of iterations.
     const double tmax = *std::max_element(t.begin(), t.end());
@@ -499,8 +556,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         sol.reason = "the electrothermal iteration did not settle in " + std::to_string(p.maxThermalIterations) +
                      " steps (last correction " + num(lastCorrection, 3) + " K)";
     }
-    if (haveLast)
-        finish(last, t);
+    finish(pt, t);
     fillVerdict(p, sol);
     return sol;
 }

@@ -33,17 +33,22 @@
 //   G(T) = T − T_amb − Z·P(T) − z_s·P_s = 0,   Jacobian I − Z·S,   S = dP/dT
 // where S is the total derivative along the electrical solution (implicit-function theorem on the
 // converged network, with the feed's held quantities held). Each step re-solves the network
-// (warm start), steps are limited to 40 K, and T is capped at T_j,max + 125 K: a bank whose heat
+// (warm start) from ambient, steps are limited to 100 K and halved while the largest residual does
+// not fall, and T is capped at T_j,max + 125 K: a bank whose heat
 // still outgrows the sink there has no fixed point (thermal runaway). Newton, unlike the plain
 // fixed-point iteration T ← T_amb + Z·P(T), also finds fixed points that are unstable; stability
 // is then judged separately:
 //   loop gain = spectral radius of Z·S (Eigen eigen-solver), with what is held stated;
-//   dominant mode from the eigenvector of the largest-modulus eigenvalue: "common" when all its
-//   components have one sign (the whole bank heats together), "differential" otherwise (one
-//   device takes over from the others);
-//   stable ⇔ a fixed point exists, every T_j < T_j,max and loop gain < 1.
-// The spectral radius is conservative for a dominant negative eigenvalue ≤ −1 (the bank itself
-// would settle; the fixed-point iteration would not); `dominantEigenvalue` gives the sign.
+//   the dominant eigenvalue λ_d = the eigenvalue of Z·S with the largest real part: the
+//   disturbance that grows. It equals the loop gain whenever the feedback is positive (heating
+//   raises the heat: a MOSFET's R_ds(on), a bipolar's falling V_BE), which is every case of
+//   runaway. A negative eigenvalue is negative feedback: its modulus can exceed 1 (a bipolar bank
+//   at the edge of its drive, where heating raises β and lowers V_CE) and then the plain
+//   iteration T ← T_amb + Z·P would oscillate, but the bank itself, with its heat capacities,
+//   settles. So stability is judged on λ_d, and both numbers are reported;
+//   dominant mode from λ_d's eigenvector: "common" when all its components have one sign (the
+//   whole bank heats together), "differential" otherwise (one device takes over from the others);
+//   stable ⇔ a fixed point exists, every T_j < T_j,max and λ_d < 1.
 // Failures (bad input, runaway, a load the drive cannot hold on, non-convergence) come back in
 // the solution with the reason; no NaN reaches the results.
 
@@ -65,6 +70,10 @@ struct BankProblem {
     double ballast_ohm = 0.0;            ///< source/emitter ballast per device
     double legResistance_ohm = 0.3e-3;   ///< each device's leg (busbar/trace)
     double pulldown_ohm = 10e3;          ///< MOSFET gate pull-down (0 = none)
+    /// Forward Early voltage V_AF of bipolar transistors (0 = none). The part data have no field
+    /// for it yet; 100 V is a typical power-transistor value (from memory) and only matters when
+    /// the base drive falls short of the load (quasi-linear operation, see bjtmodel.h).
+    double earlyVoltage_V = 100.0;
     double driveVoltage_V = 12.0;        ///< driver open-circuit voltage
     double driveResistance_ohm = 2.0;    ///< shared resistance between driver and drive node
     BankFeed feed = BankFeed::Current;
@@ -97,7 +106,7 @@ const char* toString(BankMode m); ///< "common" or "differential"
 struct BankStability {
     bool valid = false;               ///< computed (needs an electrical solution)
     double loopGain = 0.0;            ///< spectral radius of Z·S
-    double dominantEigenvalue = 0.0;  ///< real part of the eigenvalue of largest modulus
+    double dominantEigenvalue = 0.0;  ///< largest real part of an eigenvalue of Z·S (runaway ≥ 1)
     BankMode mode = BankMode::Common;
     std::vector<double> modeShape;    ///< its eigenvector (real part), largest |component| = +1
     std::string held;                 ///< what is held fixed while T varies
@@ -131,7 +140,7 @@ struct BankSolution {
     std::string reason;           ///< why not, in words with numbers
     bool fixedPoint = false;      ///< an electrothermal fixed point was found
     bool overTemperature = false; ///< a junction at or above T_j,max at the fixed point
-    bool stable = false;          ///< fixed point, all T_j < T_j,max and loop gain < 1
+    bool stable = false;          ///< fixed point, all T_j < T_j,max and λ_d < 1
     std::string verdict;          ///< one sentence for the user
     std::vector<BankDeviceState> devices;
     double load_A = 0.0;          ///< bank on-state current

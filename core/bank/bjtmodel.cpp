@@ -26,8 +26,9 @@ S limitedExp(const S& x) {
 
 } // namespace
 
-BjtModel BjtModel::make(const BjtParams& p, double vbeDeviation_V, double betaDeviation) {
+BjtModel BjtModel::make(const BjtParams& p, double vbeDeviation_V, double betaDeviation, double earlyVoltage_V) {
     BjtModel m;
+    m.vaf_V = earlyVoltage_V > 0.0 ? earlyVoltage_V : 0.0;
     m.n = p.emissionCoefficient;
     m.is25_A = p.saturationCurrent25_A * std::exp(-vbeDeviation_V / (m.n * thermalVoltage(kPartReference_K)));
     m.betaF25 = p.betaF * (1.0 + betaDeviation);
@@ -75,6 +76,13 @@ void BjtModel::intrinsic(const S& vbe, const S& vbc, const S& t_K, S& ic, S& ib)
         if (ad::val(arg) < 1e-12) // only for I_KF below 4·I_S, i.e. a nonsense knee
             arg = S(1e-12);
         qb = 0.5 * (1.0 + sqrt(arg));
+    }
+    if (vaf_V > 0.0) {
+        // q_1 = 1/(1 − V_BC/V_AF); held finite for a (nonsensical) V_BC near V_AF.
+        S den = 1.0 - vbc / vaf_V;
+        if (ad::val(den) < 0.1)
+            den = S(0.1);
+        qb = qb / den;
     }
     const S betaF = betaForward(t_K);
     const S betaR = betaReverse(t_K);

@@ -9,9 +9,13 @@
 // Ebers & Moll (1954) in transport form and Gummel & Poon (1970), as implemented in SPICE
 // (Massobrio & Antognetti, "Semiconductor Device Modeling with SPICE", 2nd ed.):
 //   I_F = I_S(T)·(exp(V_BE'/(N·V_T)) − 1),   I_R = I_S(T)·(exp(V_BC'/(N·V_T)) − 1)
-//   q_b = ½·(1 + √(1 + 4·I_F/I_KF))          (q_b = 1 when I_KF = 0: no roll-off)
+//   q_1 = 1/(1 − V_BC'/V_AF)                 (forward Early effect; q_1 = 1 when V_AF = 0: none)
+//   q_b = ½·q_1·(1 + √(1 + 4·I_F/I_KF))      (high injection; no roll-off when I_KF = 0)
 //   I_C = (I_F − I_R)/q_b − I_R/β_R,          I_B = I_F/β_F(T) + I_R/β_R(T)
-// In forward activity q_b = 1 + I_C/I_KF exactly, so the current gain is
+// The Early effect raises I_C by (1 + V_CB'/V_AF) at a fixed base current: a transistor whose
+// base drive falls short of the forced collector current leaves saturation and settles at the
+// V_CE where that factor closes the gap (quasi-linear operation) instead of having no solution.
+// In forward activity (and V_AF = 0) q_b = 1 + I_C/I_KF exactly, so the current gain is
 //   β_F(I_C, T) = β_F(T)/(1 + I_C/I_KF)       (high-current roll-off above the knee)
 // and the junction voltage at a given I_C is V_BE' = N·V_T·ln(1 + I_C·(1 + I_C/I_KF)/I_S(T)).
 // Temperature (Gummel–Poon law, T0 = 298.15 K):
@@ -25,7 +29,7 @@
 // Numerical guards: exponentials are continued linearly above an argument of 80 (no overflow),
 // and a conductance gmin = 1e-12 S sits across each junction, as in SPICE.
 // Ranges: I_S 1e-16…1e-6 A; β_F 1…1e4 (1e9 allowed for "ideal" tests); β_R 0.01…100;
-// I_KF ≥ 0 A (0 = none); N 0.8…3; R_B, R_E, R_C ≥ 0 Ω; XTI 0…6; E_g 0.5…2 eV; XTB −2…4;
+// I_KF ≥ 0 A (0 = none); V_AF ≥ 0 V (0 = none; power transistors ≈ 50–200 V, from memory); N 0.8…3; R_B, R_E, R_C ≥ 0 Ω; XTI 0…6; E_g 0.5…2 eV; XTB −2…4;
 // T 200…750 K.
 
 #include "core/model/parts.h"
@@ -37,6 +41,7 @@ struct BjtModel {
     double betaF25 = 40.0;       ///< including this device's β deviation
     double betaR25 = 2.0;
     double ikf_A = 20.0;         ///< 0 = no high-current roll-off
+    double vaf_V = 0.0;          ///< forward Early voltage, 0 = none
     double n = 1.0;              ///< emission coefficient N
     double rb_ohm = 0.5;
     double re_ohm = 0.01;
@@ -46,7 +51,8 @@ struct BjtModel {
     double xtb = 1.5;
     double gmin_S = 1e-12;
 
-    static BjtModel make(const BjtParams& p, double vbeDeviation_V = 0.0, double betaDeviation = 0.0);
+    static BjtModel make(const BjtParams& p, double vbeDeviation_V = 0.0, double betaDeviation = 0.0,
+                         double earlyVoltage_V = 0.0);
 
     template <class S>
     S saturationCurrent(const S& t_K) const;
@@ -58,7 +64,7 @@ struct BjtModel {
     template <class S>
     void intrinsic(const S& vbe, const S& vbc, const S& t_K, S& ic, S& ib) const;
 
-    /// Forward-active intrinsic V_BE' that carries collector current ic_A at t_K.
+    /// Forward-active intrinsic V_BE' that carries collector current ic_A at t_K (at V_BC' = 0).
     double junctionVoltage(double ic_A, double t_K) const;
     /// β_F(I_C, T) = β_F(T)/(1 + I_C/I_KF).
     double betaAt(double ic_A, double t_K) const;

@@ -6,10 +6,10 @@
 namespace amp {
 
 DarlingtonModel DarlingtonModel::make(const BjtParams& driverParams, const BjtParams& outputParams,
-                                      double vbeDeviation_V, double betaDeviation) {
+                                      double vbeDeviation_V, double betaDeviation, double earlyVoltage_V) {
     DarlingtonModel m;
-    m.driver = BjtModel::make(driverParams, 0.0, betaDeviation);
-    m.output = BjtModel::make(outputParams, vbeDeviation_V, betaDeviation);
+    m.driver = BjtModel::make(driverParams, 0.0, betaDeviation, earlyVoltage_V);
+    m.output = BjtModel::make(outputParams, vbeDeviation_V, betaDeviation, earlyVoltage_V);
     return m;
 }
 

@@ -26,7 +26,8 @@ struct DarlingtonModel {
     /// The V_BE deviation shifts the output transistor (the larger die, which sets the composite's
     /// temperature behaviour); the β deviation scales both.
     static DarlingtonModel make(const BjtParams& driverParams, const BjtParams& outputParams,
-                                double vbeDeviation_V = 0.0, double betaDeviation = 0.0);
+                                double vbeDeviation_V = 0.0, double betaDeviation = 0.0,
+                                double earlyVoltage_V = 0.0);
 
     /// Split of a composite collector current in forward activity: {I_C1, I_C2}.
     struct Split {

@@ -44,6 +44,11 @@ S tableFactor(const std::vector<RdsOnPoint>& table, const S& t_K) {
 
 MosfetModel MosfetModel::make(const MosfetParams& p, double rdsOnDeviation, double vthDeviation_V,
                               double tMax_K) {
+    return make(p, rdsOnDeviation, vthDeviation_V, tMax_K, consistencyRaise(p, tMax_K));
+}
+
+MosfetModel MosfetModel::make(const MosfetParams& p, double rdsOnDeviation, double vthDeviation_V, double /*tMax_K*/,
+                              double knownRaise) {
     MosfetModel m;
     m.rdsOn25_ohm = p.rdsOn25_ohm;
     m.tempExponent = p.rdsOnTempExponent;
@@ -57,21 +62,22 @@ MosfetModel MosfetModel::make(const MosfetParams& p, double rdsOnDeviation, doub
     m.specGate_V = p.rdsOnSpecGate_V;
     m.vth25_V = p.vth_V;
     m.vthTempCoeff_VperK = p.vthTempCoeff_VperK;
-    m.k25_AperV2 = p.transconductance_AperV2;
-
-    // Consistency: the channel alone must not take more than 90 % of R_ds(on) anywhere in range.
-    double worst = 0.0;
-    for (double t = 233.15; t <= tMax_K + 1e-9; t += 5.0) {
-        const double rch = 1.0 / (2.0 * m.channelK(t) * m.overdrive(m.specGate_V, t));
-        worst = std::max(worst, rch / m.nominalOnResistance(t));
-    }
-    if (worst > 0.9) {
-        m.kRaise = worst / 0.9;
-        m.k25_AperV2 *= m.kRaise;
-    }
+    m.kRaise = std::max(knownRaise, 1.0);
+    m.k25_AperV2 = p.transconductance_AperV2 * m.kRaise;
     m.scale = 1.0 + rdsOnDeviation;
     m.vthShift_V = vthDeviation_V;
     return m;
+}
+
+double MosfetModel::consistencyRaise(const MosfetParams& p, double tMax_K) {
+    // The channel alone must not take more than 90 % of R_ds(on) anywhere in range.
+    const MosfetModel m = make(p, 0.0, 0.0, tMax_K, 1.0);
+    double worst = 0.0;
+    for (double t = 233.15; t <= tMax_K + 1e-9; t += 10.0) {
+        const double rch = 1.0 / (2.0 * m.channelK(t) * m.overdrive(m.specGate_V, t));
+        worst = std::max(worst, rch / m.nominalOnResistance(t));
+    }
+    return worst > 0.9 ? worst / 0.9 : 1.0;
 }
 
 double MosfetModel::nominalOnResistance(double t_K) const {
@@ -81,14 +87,44 @@ double MosfetModel::nominalOnResistance(double t_K) const {
 }
 
 template <class S>
+MosfetModel::AtTemperature<S> MosfetModel::atTemperature(const S& t_K) const {
+    using std::pow;
+    using std::sqrt;
+    const S r = t_K / kPartReference_K;
+    const S kNom = k25_AperV2 / (r * sqrt(r)); // mobility ∝ T^−1.5
+    const S vthNom = vth25_V + vthTempCoeff_VperK * (t_K - kPartReference_K);
+    AtTemperature<S> at;
+    at.smooth = 3.0 * thermalVoltage(t_K);
+    at.k = kNom / scale;
+    at.vth = vthNom + vthShift_V;
+    // Nominal die: R_ds(on) law minus the nominal channel at the specified gate voltage.
+    const S ron = table.empty() ? rdsOn25_ohm * pow(r, tempExponent) : rdsOn25_ohm * tableFactor(table, t_K);
+    const S vovSpec = softplus(specGate_V - vthNom, at.smooth);
+    at.drift = scale * (ron - 1.0 / (2.0 * kNom * vovSpec));
+    return at;
+}
+
+template <class S>
+S MosfetModel::channelCurrent(const AtTemperature<S>& at, const S& vgs, const S& vds) const {
+    const S vov = softplus(vgs - at.vth, at.smooth);
+    const bool reverse = ad::val(vds) < 0.0;
+    const S v = reverse ? -vds : vds;
+    S i;
+    if (ad::val(v) < ad::val(vov))
+        i = at.k * (2.0 * vov * v - v * v);
+    else
+        i = at.k * vov * vov;
+    return reverse ? -i : i;
+}
+
+template <class S>
 S MosfetModel::threshold(const S& t_K) const {
     return (vth25_V + vthShift_V) + vthTempCoeff_VperK * (t_K - kPartReference_K);
 }
 
 template <class S>
 S MosfetModel::channelK(const S& t_K) const {
-    using std::pow;
-    return (k25_AperV2 / scale) * pow(t_K / kPartReference_K, -1.5);
+    return atTemperature(t_K).k;
 }
 
 template <class S>
@@ -98,36 +134,18 @@ S MosfetModel::overdrive(const S& vgs, const S& t_K) const {
 
 template <class S>
 S MosfetModel::driftResistance(const S& t_K) const {
-    using std::pow;
-    // Nominal die: R_ds(on) law minus the nominal channel at the specified gate voltage.
-    const S kNom = k25_AperV2 * pow(t_K / kPartReference_K, -1.5);
-    const S vovNom = softplus(specGate_V - (vth25_V + vthTempCoeff_VperK * (t_K - kPartReference_K)),
-                              3.0 * thermalVoltage(t_K));
-    S ron;
-    if (!table.empty())
-        ron = rdsOn25_ohm * tableFactor(table, t_K);
-    else
-        ron = rdsOn25_ohm * pow(t_K / kPartReference_K, tempExponent);
-    return scale * (ron - 1.0 / (2.0 * kNom * vovNom));
+    return atTemperature(t_K).drift;
 }
 
 template <class S>
 S MosfetModel::onResistance(const S& t_K) const {
-    return driftResistance(t_K) + 1.0 / (2.0 * channelK(t_K) * overdrive(S(specGate_V), t_K));
+    const AtTemperature<S> at = atTemperature(t_K);
+    return at.drift + 1.0 / (2.0 * at.k * overdrive(S(specGate_V), t_K));
 }
 
 template <class S>
 S MosfetModel::channelCurrent(const S& vgs, const S& vds, const S& t_K) const {
-    const S vov = overdrive(vgs, t_K);
-    const S k = channelK(t_K);
-    const bool reverse = ad::val(vds) < 0.0;
-    const S v = reverse ? -vds : vds;
-    S i;
-    if (ad::val(v) < ad::val(vov))
-        i = k * (2.0 * vov * v - v * v);
-    else
-        i = k * vov * vov;
-    return reverse ? -i : i;
+    return channelCurrent(atTemperature(t_K), vgs, vds);
 }
 
 #define AMP_MOSFET_INSTANTIATE(S)                                                                    \
@@ -136,7 +154,9 @@ S MosfetModel::channelCurrent(const S& vgs, const S& vds, const S& t_K) const {
     template S MosfetModel::channelK<S>(const S&) const;                                            \
     template S MosfetModel::overdrive<S>(const S&, const S&) const;                                 \
     template S MosfetModel::driftResistance<S>(const S&) const;                                     \
-    template S MosfetModel::channelCurrent<S>(const S&, const S&, const S&) const;
+    template S MosfetModel::channelCurrent<S>(const S&, const S&, const S&) const;                  \
+    template MosfetModel::AtTemperature<S> MosfetModel::atTemperature<S>(const S&) const;           \
+    template S MosfetModel::channelCurrent<S>(const AtTemperature<S>&, const S&, const S&) const;
 
 AMP_MOSFET_INSTANTIATE(double)
 AMP_MOSFET_INSTANTIATE(ad::Dual<4>)

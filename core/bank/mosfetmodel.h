@@ -58,6 +58,11 @@ struct MosfetModel {
     /// range over which the K/R_ds(on) consistency is checked.
     static MosfetModel make(const MosfetParams& p, double rdsOnDeviation = 0.0, double vthDeviation_V = 0.0,
                             double tMax_K = 573.15);
+    /// The same with the consistency factor already known (a bank computes it once per part).
+    static MosfetModel make(const MosfetParams& p, double rdsOnDeviation, double vthDeviation_V, double tMax_K,
+                            double knownRaise);
+    /// The factor K must be raised by for consistency with R_ds(on) over −40 °C … tMax_K (1 = none).
+    static double consistencyRaise(const MosfetParams& p, double tMax_K);
 
     /// R_ds(on)(T) of this device at the specified gate voltage (drift + channel).
     template <class S>
@@ -80,6 +85,20 @@ struct MosfetModel {
 
     /// Nominal R_ds(on)(T) law of the part (no deviation), exponent or table.
     double nominalOnResistance(double t_K) const;
+
+    /// Everything that depends on temperature alone, evaluated once per temperature.
+    template <class S>
+    struct AtTemperature {
+        S k;      ///< K(T) of this device
+        S vth;    ///< V_th(T) of this device
+        S drift;  ///< R_drift(T) of this device
+        S smooth; ///< softplus width s = 3·V_T
+    };
+    template <class S>
+    AtTemperature<S> atTemperature(const S& t_K) const;
+    /// Channel current with the temperature state already evaluated.
+    template <class S>
+    S channelCurrent(const AtTemperature<S>& at, const S& vgs, const S& vds) const;
 };
 
 } // namespace amp
