@@ -143,6 +143,7 @@ void MainWindow::buildCentre() {
     railPalette.setColor(QPalette::HighlightedText, Qt::white);
     m_rail->setPalette(railPalette);
     m_pages = new QStackedWidget(inputs);
+    m_pages->setObjectName(QStringLiteral("sectionPages"));
     for (const auto& section : editorSections()) {
         auto* item = new QListWidgetItem(section.title, m_rail);
         item->setSizeHint(QSize(0, 34));

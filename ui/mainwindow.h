@@ -60,8 +60,10 @@ class MainWindow : public QMainWindow {
     bool save();
     bool saveAs();
 
-  protected:
+  public:
     enum class SaveChoice { Save, Discard, Cancel };
+
+  protected:
     /// Ask whether to save unsaved changes (a dialog; tests override it).
     virtual SaveChoice askToSaveChanges();
     /// Whether unsaved changes may be dropped: asks, and saves when told to.
