@@ -10,6 +10,10 @@
 #include "core/physics/motor.h"
 #include "core/physics/thermal_chain.h"
 
+// GCC 12 reports a false use-after-free inside <complex> when it inlines Eigen's eigen-solver.
+#if defined(__GNUC__) && !defined(__clang__) && __GNUC__ == 12
+#pragma GCC diagnostic ignored "-Wuse-after-free"
+#endif
 #include <Eigen/Dense>
 #include <Eigen/Eigenvalues>
 #include <fmt/format.h>
@@ -28,6 +32,9 @@ namespace {
 constexpr double kRunawayLimit_C = 400.0;
 constexpr int kMaxIterations = 500;
 constexpr double kConverged_K = 1e-7;
+// Above this many devices the dense Jacobian and its eigenvalues cost more than an edit should
+// wait for; the network solver (core/bank/) takes over such banks.
+constexpr std::size_t kMaxLoopGainDevices = 64;
 // Perturbation for the loop-gain Jacobian; the map is smooth, 10 mK keeps rounding far below it.
 constexpr double kJacobianStep_K = 0.01;
 // Junction margin below the part's T_j,max that raises a warning (common practice).
@@ -382,7 +389,7 @@ BankSolve solveBank(const Context& c, const Demand& demand) {
         b.failure = fmt::format("the temperatures did not settle in {} iterations (loop gain close to 1)", kMaxIterations);
         return s;
     }
-    if (!c.mosfet || n == 0)
+    if (!c.mosfet || n == 0 || n > kMaxLoopGainDevices)
         return s; // the simple bipolar model has no temperature feedback to measure
 
     // Loop gain: spectral radius of the Jacobian of the map (∂P/∂T·Z_th), with what `demand`
@@ -573,8 +580,11 @@ void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t in
                                   b.dominantMode, b.stable ? "" : ": the bank runs away");
         } else {
             sev = Severity::Advice;
-            message = fmt::format("{}: runaway is not assessed for a {} bank by the simple saturated model", name,
-                                  part.kind);
+            message = part.kind == "mosfet"
+                          ? fmt::format("{}: the loop gain is not computed for a bank of {} devices", name,
+                                        op.devices.size())
+                          : fmt::format("{}: runaway is not assessed for a {} bank by the simple saturated model",
+                                        name, part.kind);
         }
         out.push_back(makeCheck(
             "bank.thermal-runaway", sev, b.loopGain.value_or(0.0), 1.0, "",
