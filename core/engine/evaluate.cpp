@@ -212,7 +212,7 @@ Context makeContext(const Design& d) {
     c.design = &d;
     c.motor = makeMotorModel(d.motor);
     c.armature_ohm = c.motor.armatureResistance_ohm;
-    // Wiring lengths are conductor lengths with both poles counted (field help in fields.h).
+    // Wiring lengths are total conductor lengths, both poles counted (design.h: "both poles").
     c.motorCable_ohm = copper::conductorResistance(d.wiring.motorCableLength_m, d.wiring.motorCable_mm2,
                                                    d.wiring.cableTemperature_C);
     c.batteryCable_ohm = copper::conductorResistance(d.wiring.batteryCableLength_m, d.wiring.batteryCable_mm2,
