@@ -8,6 +8,7 @@
 #include <QLinearGradient>
 #include <QPainter>
 #include <QPainterPath>
+#include <QResizeEvent>
 #include <QToolTip>
 
 #include <algorithm>
@@ -43,10 +44,11 @@ BankPicture bankPicture(const Design& design, const OperatingPointResult& point)
     p.derating = design.bank.derating;
     p.sharingTarget = design.bank.sharingTarget;
     p.equalShare = point.devices.empty() ? 0.0 : 1.0 / static_cast<double>(point.devices.size());
-    int index = 1;
+    // Devices are numbered from 0, as the engine's findings and the results file number them.
+    int index = 0;
     for (const auto& d : point.devices) {
         BankTile t;
-        t.label = QStringLiteral("S%1").arg(index++);
+        t.label = QStringLiteral("#%1").arg(index++);
         t.current_A = d.current_A;
         t.share = d.share;
         t.ratingShare = d.ratingShare;
@@ -141,7 +143,16 @@ QSize BankView::sizeHint() const {
 
 QSize BankView::minimumSizeHint() const {
     const int w = static_cast<int>(2 * kMargin + 3 * (kTileMinWidth + kGap));
-    return {w, m_picture.tiles.empty() ? 120 : layoutFor(width() > 0 ? width() : w).height};
+    // Before the first layout pass the widget's width is a placeholder; judge the height at a
+    // width a results pane has at least, and again whenever the real width changes the rows.
+    constexpr int kReferenceWidth = 700;
+    return {w, heightForWidth(std::max(width(), kReferenceWidth))};
+}
+
+void BankView::resizeEvent(QResizeEvent* event) {
+    QWidget::resizeEvent(event);
+    if (layoutFor(event->oldSize().width()).rows != layoutFor(event->size().width()).rows)
+        updateGeometry();
 }
 
 void BankView::paintEvent(QPaintEvent*) {
@@ -172,8 +183,9 @@ void BankView::paintEvent(QPaintEvent*) {
                                                         [](const BankTile& t) { return !t.diode; }));
     const QRectF head(kMargin, kMargin - 2, width() - 2 * kMargin, 20);
     p.drawText(head, Qt::AlignLeft | Qt::AlignVCenter,
-               tr("%1 · %2 through %n switch(es)", nullptr, switches)
-                   .arg(m_picture.pointName, formatSi(m_picture.motorCurrent_A, Unit::Ampere)));
+               tr("%1 · %2 through %3")
+                   .arg(m_picture.pointName, formatSi(m_picture.motorCurrent_A, Unit::Ampere),
+                        countOf(switches, tr("switch"), tr("switches"))));
     QFont smallFont = base;
     smallFont.setPointSizeF(base.pointSizeF() * 0.85);
     p.setFont(smallFont);
@@ -296,7 +308,7 @@ void BankView::paintEvent(QPaintEvent*) {
             p.drawLine(QPointF(cx + 5, cy - 6), QPointF(cx + 5, cy + 6));
             p.setFont(smallFont);
             p.setPen(soft);
-            p.drawText(QRectF(x, r.top() + 98, w - 30, 16), Qt::AlignLeft | Qt::AlignVCenter, tr("average"));
+            p.drawText(QRectF(x, r.top() + 98, w - 30, 16), Qt::AlignLeft | Qt::AlignVCenter, tr("T_j per diode"));
         }
     }
 
@@ -350,7 +362,7 @@ QString BankView::tooltipFor(const BankTile& t) const {
         lines << tr("Average current: %1").arg(formatSi(t.current_A, Unit::Ampere));
         lines << tr("Loss, all diodes: %1").arg(formatSi(t.loss_W, Unit::Watt));
     } else {
-        lines << tr("<b>Switch %1</b>").arg(t.label.mid(1));
+        lines << tr("<b>Device %1</b> of the bank").arg(t.label.mid(1));
         lines << tr("On-state current: %1 (%2 of the bank)")
                      .arg(formatSi(t.current_A, Unit::Ampere), formatPercent(t.share));
         lines << tr("Of its rating: %1 (target ≤ %2)")

@@ -15,7 +15,7 @@
 namespace amp::ui {
 
 struct BankTile {
-    QString label;             ///< "S1", "S2", ... or "D" for the freewheel path
+    QString label;             ///< "#0", "#1", ... (0-based, as in the results) or "D" for the freewheel path
     bool diode = false;
     int parallel = 1;          ///< parts in this tile (diodes in parallel)
     double current_A = 0.0;    ///< switch: on-state current; diode: average current of the path
@@ -65,6 +65,7 @@ class BankView : public QWidget {
   protected:
     void paintEvent(QPaintEvent* event) override;
     bool event(QEvent* event) override;
+    void resizeEvent(QResizeEvent* event) override;
 
   private:
     struct Layout {

@@ -48,7 +48,7 @@ void DeviceTable::setPoint(const Design& design, const OperatingPointResult& poi
     const double tjMax = design.bank.device.tjMax_C;
     for (int i = 0; i < switches; ++i) {
         const auto& d = point.devices[static_cast<std::size_t>(i)];
-        set(i, Device, tr("S%1").arg(i + 1));
+        set(i, Device, QStringLiteral("#%1").arg(i)); // 0-based, as in the findings and the results file
         set(i, Current, formatSi(d.current_A, Unit::Ampere));
         set(i, Share, formatPercent(d.share));
         set(i, OfRating, formatPercent(d.ratingShare, 0));

@@ -63,7 +63,12 @@ void FindingsList::setChecks(const std::vector<Check>& checks) {
         QFont bold = font();
         bold.setBold(true);
         item->setFont(SeverityColumn, bold);
-        item->setText(MessageColumn, toQ(c->message.empty() ? c->id : c->message));
+        // The point has its own column; drop it from the front of the message.
+        QString message = toQ(c->message.empty() ? c->id : c->message);
+        const QString point = toQ(c->operatingPoint);
+        if (!point.isEmpty() && message.startsWith(point + QStringLiteral(": ")))
+            message = message.mid(point.size() + 2);
+        item->setText(MessageColumn, message);
         item->setText(PointColumn, toQ(c->operatingPoint));
         item->setData(MessageColumn, FieldRole, toQ(c->field));
         item->setData(SeverityColumn, SeverityRole, static_cast<int>(c->severity));

@@ -17,6 +17,10 @@ QString formatPercent(double fraction, int decimals) {
     return QString::number(fraction * 100.0, 'f', decimals) + QStringLiteral(" %");
 }
 
+QString countOf(long long n, const QString& one, const QString& many) {
+    return QString::number(n) + QLatin1Char(' ') + (n == 1 ? one : many);
+}
+
 QString formatKelvin(double difference_K) {
     if (!std::isfinite(difference_K))
         return QStringLiteral("–");

@@ -12,6 +12,8 @@ namespace amp::ui {
 QString formatSi(double value, units::Unit unit, int significant = 3);
 /// 0.168 -> "16.8 %".
 QString formatPercent(double fraction, int decimals = 1);
+/// "1 switch", "6 switches": a count with the right form of its noun.
+QString countOf(long long n, const QString& one, const QString& many);
 /// A temperature difference in kelvin, whole degrees: "62 K".
 QString formatKelvin(double difference_K);
 

@@ -6,6 +6,7 @@
 #include "ui/devicetable.h"
 #include "ui/fieldeditor.h"
 #include "ui/findingslist.h"
+#include "ui/format.h"
 #include "ui/palette.h"
 #include "ui/pointtable.h"
 #include "ui/sectionpage.h"
@@ -163,24 +164,22 @@ void MainWindow::buildCentre() {
     inputsLayout->addWidget(m_pages, 1);
 
     // Right: the bank first, then the numbers behind it.
-    auto* results = new QSplitter(Qt::Vertical, split);
-    results->setObjectName(QStringLiteral("resultsSplit"));
-    results->setChildrenCollapsible(false);
+    // A plain column rather than a splitter: the bank view and the points table take the height
+    // their content needs (it changes with the bank and the profile), the tabs take the rest.
+    auto* results = new QWidget(split);
+    results->setObjectName(QStringLiteral("resultsColumn"));
+    auto* column = new QVBoxLayout(results);
+    column->setContentsMargins(6, 6, 6, 0);
+    column->setSpacing(6);
 
-    auto* bankPane = new QWidget(results);
-    auto* bankLayout = new QVBoxLayout(bankPane);
-    bankLayout->setContentsMargins(6, 6, 6, 0);
-    m_bankView = new BankView(bankPane);
-    bankLayout->addWidget(m_bankView);
-    bankLayout->addStretch(0);
+    m_bankView = new BankView(results);
+    column->addWidget(m_bankView);
 
-    auto* pointsPane = new QWidget(results);
-    auto* pointsLayout = new QVBoxLayout(pointsPane);
-    pointsLayout->setContentsMargins(6, 4, 6, 0);
-    m_pointsCaption = caption(tr("Operating points"), pointsPane);
-    pointsLayout->addWidget(m_pointsCaption);
-    m_pointTable = new PointTable(pointsPane);
-    pointsLayout->addWidget(m_pointTable);
+    m_pointsCaption = caption(tr("Operating points"), results);
+    column->addWidget(m_pointsCaption);
+    m_pointTable = new PointTable(results);
+    m_pointTable->setSizePolicy(QSizePolicy::Expanding, QSizePolicy::Maximum);
+    column->addWidget(m_pointTable);
     connect(m_pointTable, &PointTable::pointSelected, this, &MainWindow::selectPoint);
 
     m_detailTabs = new QTabWidget(results);
@@ -192,19 +191,13 @@ void MainWindow::buildCentre() {
     m_detailTabs->addTab(m_deviceTable, tr("Per device"));
     // Loss and temperature charts join these tabs.
     connect(m_findings, &FindingsList::fieldRequested, this, &MainWindow::focusField);
-
-    results->addWidget(bankPane);
-    results->addWidget(pointsPane);
-    results->addWidget(m_detailTabs);
-    results->setStretchFactor(0, 0);
-    results->setStretchFactor(1, 0);
-    results->setStretchFactor(2, 1);
+    column->addWidget(m_detailTabs, 1);
 
     split->addWidget(inputs);
     split->addWidget(results);
     split->setStretchFactor(0, 0);
     split->setStretchFactor(1, 1);
-    split->setSizes({560, 880});
+    split->setSizes({590, 850});
     setCentralWidget(split);
 }
 
@@ -240,10 +233,11 @@ void MainWindow::showResults() {
     int unreachable = 0;
     for (const auto& p : points)
         unreachable += p.valid ? 0 : 1;
-    QString state = tr("Evaluated %n operating point(s) in %1 ms", nullptr, static_cast<int>(points.size()))
-                        .arg(QString::number(m_document->evaluationMilliseconds(), 'f', 1));
+    QString state = tr("Evaluated %1 in %2 ms")
+                        .arg(countOf(static_cast<long long>(points.size()), tr("operating point"), tr("operating points")),
+                             QString::number(m_document->evaluationMilliseconds(), 'f', 1));
     if (unreachable > 0)
-        state += tr(" · %n cannot be reached", nullptr, unreachable);
+        state += tr(" · %1 cannot be reached").arg(unreachable);
     m_evalLabel->setText(state);
     m_tallyLabel->setText(FindingsList::tally(results->checks));
     const Severity worst = worstSeverity(results->checks);
@@ -394,8 +388,8 @@ void MainWindow::showLoadProblems(const QString& path, const QStringList& proble
     constexpr int kShown = 12;
     QStringList shown = problems.mid(0, kShown);
     if (problems.size() > kShown)
-        shown << tr("… and %n more (see details)", nullptr, static_cast<int>(problems.size() - kShown));
-    box->setInformativeText(tr("%n problem(s):", nullptr, static_cast<int>(problems.size())) + QStringLiteral("\n") +
+        shown << tr("… and %1 more (see details)").arg(problems.size() - kShown);
+    box->setInformativeText(countOf(problems.size(), tr("problem"), tr("problems")) + QStringLiteral(":\n") +
                             shown.join(QLatin1Char('\n')));
     box->setDetailedText(problems.join(QLatin1Char('\n')));
     box->setAttribute(Qt::WA_DeleteOnClose);

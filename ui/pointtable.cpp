@@ -48,6 +48,14 @@ PointTable::PointTable(QWidget* parent) : QTableWidget(parent) {
 
 void PointTable::clearResults() { setRowCount(0); }
 
+QSize PointTable::sizeHint() const {
+    QSize hint = QTableWidget::sizeHint();
+    const int rows = std::clamp(rowCount(), 2, 8); // a long profile scrolls
+    const int perRow = rowCount() > 0 ? rowHeight(0) : verticalHeader()->defaultSectionSize();
+    hint.setHeight(horizontalHeader()->height() + rows * perRow + 2 * frameWidth() + 2);
+    return hint;
+}
+
 void PointTable::setResults(const Design& design, const Results& results, int selected) {
     const QSignalBlocker block(this);
     setRowCount(static_cast<int>(results.operatingPoints.size()));
@@ -97,6 +105,7 @@ void PointTable::setResults(const Design& design, const Results& results, int se
     }
     if (rowCount() > 0)
         selectRow(std::clamp(selected, 0, rowCount() - 1));
+    updateGeometry();
 }
 
 } // namespace amp::ui

@@ -18,6 +18,8 @@ class PointTable : public QTableWidget {
     /// Show the points; keeps the row of `selected` (by index) when it still exists.
     void setResults(const Design& design, const Results& results, int selected);
     void clearResults();
+    /// Tall enough for every row, so that the findings below get the rest of the height.
+    QSize sizeHint() const override;
 
   signals:
     void pointSelected(int index);

@@ -97,6 +97,7 @@ void TestWorkbench::unitTextBecomesSi() {
     DesignDocument doc;
     QVERIFY(doc.load(demoFile()));
     // ISO 80000-1 prefixes, exact to rounding (relative 1e-12).
+    QVERIFY(doc.design().pwm.frequency_Hz != 20e3);
     QVERIFY(doc.setFieldText("pwm.frequency_Hz", "20 kHz"));
     QVERIFY(near(doc.design().pwm.frequency_Hz, 20e3, 1e-12));
     QVERIFY(doc.setFieldText("bank.legResistance_ohm", "0.5 mΩ"));
@@ -104,8 +105,10 @@ void TestWorkbench::unitTextBecomesSi() {
     QVERIFY(doc.setFieldText("bank.legResistance_ohm", "0.4m"));
     QVERIFY(near(doc.design().bank.legResistance_ohm, 0.4e-3, 1e-12));
     // IEC 60062 RKM code: the letter stands for the decimal point and the multiplier.
-    QVERIFY(doc.setFieldText("bank.gateResistor_ohm", "4R7"));
-    QVERIFY(near(doc.design().bank.gateResistor_ohm, 4.7, 1e-12));
+    QVERIFY(!near(doc.design().bank.gateResistor_ohm, 6.8, 1e-12)); // else the edit would be a no-op
+    QVERIFY(doc.setFieldText("bank.gateResistor_ohm", "6R8"));
+    QVERIFY(near(doc.design().bank.gateResistor_ohm, 6.8, 1e-12));
+    QVERIFY(!near(doc.design().drive.pulldown_ohm, 4.7e3, 1e-12));
     QVERIFY(doc.setFieldText("drive.pulldown_ohm", "4k7"));
     QVERIFY(near(doc.design().drive.pulldown_ohm, 4.7e3, 1e-12));
     // Each accepted change is one command on the stack.
@@ -311,7 +314,8 @@ void TestWorkbench::titleCarriesNameAndModifiedMark() {
     QVERIFY(window.windowTitle().contains("[*]"));
     QVERIFY(window.windowTitle().endsWith("Ampwright"));
     QVERIFY(!window.isWindowModified());
-    QVERIFY(window.document()->setFieldText("heatsink.ambient_C", "35 °C").changed);
+    const double ambient = window.document()->design().heatsink.ambient_C;
+    QVERIFY(window.document()->setFieldText("heatsink.ambient_C", QStringLiteral("%1 °C").arg(ambient + 3)).changed);
     QVERIFY(window.isWindowModified());
     window.document()->undoStack()->undo();
     QVERIFY(!window.isWindowModified()); // back at the clean state
@@ -361,6 +365,7 @@ void TestWorkbench::screenshotOfDemo() {
     QVERIFY(QTest::qWaitForWindowExposed(&window));
     QVERIFY(window.openExample(demoFile()));
     QCoreApplication::processEvents();
+    QCOMPARE(window.size(), QSize(1440, 900)); // no pane pushes the window beyond its size
 
     // The bank view draws one tile per switch, plus the freewheel path.
     const Design& d = window.document()->design();
@@ -376,7 +381,11 @@ void TestWorkbench::screenshotOfDemo() {
     QVERIFY(window.grab().save(first));
     QVERIFY(QImage(first).size().width() >= 1440);
 
-    // A second view: the Switch bank page with a refused entry beside its field.
+    // A second view: one device with a lower on-resistance takes more than its share (Ohm's law
+    // over parallel resistances), the Switch bank page with a refused entry beside its field.
+    QVERIFY(window.document()->setFieldValue("bank.devices[2].rdsOnDeviation", -0.2).changed);
+    const auto& uneven = window.bankView()->picture().tiles;
+    QVERIFY(uneven[2].share > uneven[0].share);
     QVERIFY(window.focusField("bank.gateResistor_ohm"));
     FieldEditor* gate = window.fieldEditor("bank.gateResistor_ohm");
     QVERIFY(!gate->enterText("4..7"));
