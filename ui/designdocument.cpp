@@ -133,8 +133,12 @@ QString formatFieldValue(const FieldSpec& spec, const nlohmann::json& value) {
         const double v = value.get<double>();
         if (spec.type == FieldSpec::Type::Integer)
             return QString::number(std::llround(v));
-        if (spec.unit == units::Unit::None)
+        if (spec.unit == units::Unit::None) {
+            // Whole counts in full ("100000", "1000000" rather than "1e+06"); ratios as typed.
+            if (std::abs(v) < 1e12 && v == std::round(v))
+                return QString::number(static_cast<long long>(v));
             return QString::number(v, 'g', 6);
+        }
         return toQ(units::format(v, spec.unit, 4));
     }
     if (value.is_null())

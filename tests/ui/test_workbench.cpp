@@ -25,9 +25,11 @@
 #include <QLineEdit>
 #include <QListWidget>
 #include <QMessageBox>
+#include <QScrollArea>
 #include <QSignalSpy>
 #include <QStackedWidget>
 #include <QTest>
+#include <QTimer>
 #include <QUndoStack>
 
 #include <cmath>
@@ -77,6 +79,7 @@ class TestWorkbench : public QObject {
     void discardPromptGuardsUnsavedChanges();
     void findingJumpsToItsField();
     void screenshotOfDemo();
+    void entryPointOpensDemoOrFile();
 };
 
 void TestWorkbench::initTestCase() {
@@ -393,6 +396,48 @@ void TestWorkbench::screenshotOfDemo() {
     const QString second = out.filePath("workbench-garden-cart-bank.png");
     QVERIFY(window.grab().save(second));
     qInfo("screenshots: %s, %s", qPrintable(first), qPrintable(second));
+
+    // Every editor page, for a look at labels and fields.
+    auto* rail = window.findChild<QListWidget*>("sectionRail");
+    QVERIFY(rail);
+    for (int i = 0; i < rail->count(); ++i) {
+        rail->setCurrentRow(i);
+        QCoreApplication::processEvents();
+        auto* pages = window.findChild<QStackedWidget*>("sectionPages");
+        const QString id = pages->currentWidget()->objectName().section(':', 1);
+        auto* page = qobject_cast<QScrollArea*>(pages->currentWidget());
+        QVERIFY(page && page->widget());
+        QVERIFY(page->widget()->grab().save(out.filePath("page-" + id + ".png"))); // the whole page
+    }
+}
+
+void TestWorkbench::entryPointOpensDemoOrFile() {
+    // runWorkbench() as app/main.cpp calls it: with no file the demo opens as an untitled copy;
+    // with a file, that file. The window is inspected from inside the event loop, then closed.
+    QString title;
+    QString shown;
+    auto inspectAndQuit = [&] {
+        QTimer::singleShot(0, [&] {
+            for (QWidget* w : QApplication::topLevelWidgets())
+                if (auto* main = qobject_cast<MainWindow*>(w)) {
+                    title = main->windowTitle();
+                    shown = main->document()->filePath();
+                    main->close();
+                }
+            QCoreApplication::quit();
+        });
+    };
+    inspectAndQuit();
+    QCOMPARE(runWorkbench(*qApp, QString()), 0);
+    QCOMPARE(title, QStringLiteral("garden-cart (example)[*] — Ampwright"));
+    QVERIFY(shown.isEmpty()); // Save asks for a place of its own, the shipped demo stays as it is
+
+    const QString file = tempFile("opened-on-start.ampw");
+    QVERIFY(QFile::copy(demoFile(), file));
+    inspectAndQuit();
+    QCOMPARE(runWorkbench(*qApp, file), 0);
+    QCOMPARE(title, QStringLiteral("opened-on-start[*] — Ampwright"));
+    QCOMPARE(shown, QFileInfo(file).absoluteFilePath());
 }
 
 QTEST_MAIN(TestWorkbench)
