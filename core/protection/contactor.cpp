@@ -29,8 +29,8 @@ ContactorResult rateContactor(const ContactorInput& in) {
     c.nonNegative("contactResistance_ohm", in.contactResistance_ohm);
     if (in.contactsInPath < 1)
         c.add("contactsInPath", "must be 1 or more (got " + std::to_string(in.contactsInPath) + ")");
-    c.positive("electricalLife_ops", in.electricalLife_ops);
-    c.positive("mechanicalLife_ops", in.mechanicalLife_ops);
+    c.nonNegative("electricalLife_ops", in.electricalLife_ops);
+    c.nonNegative("mechanicalLife_ops", in.mechanicalLife_ops);
     c.nonNegative("reversalsPerDay", in.reversalsPerDay);
     c.positive("operationsPerReversal", in.operationsPerReversal);
     c.range("operatingDaysPerYear", in.operatingDaysPerYear, 0.0, 366.0, true);
@@ -65,10 +65,10 @@ ContactorResult rateContactor(const ContactorInput& in) {
     r.contactLoss_W = in.contactsInPath * irms * irms * in.contactResistance_ohm;
 
     const double opsPerYear = in.reversalsPerDay * in.operationsPerReversal * in.operatingDaysPerYear;
-    if (opsPerYear > 0.0) {
+    if (opsPerYear > 0.0 && in.electricalLife_ops > 0.0)
         r.electricalLife_years = in.electricalLife_ops / opsPerYear;
+    if (opsPerYear > 0.0 && in.mechanicalLife_ops > 0.0)
         r.mechanicalLife_years = in.mechanicalLife_ops / opsPerYear;
-    }
 
     r.motorTimeConstant_s = in.armatureInductance_H / in.loopResistance_ohm;
     const double largest = largestCategoryTimeConstant_s();

@@ -20,7 +20,8 @@
 //   coilVoltage_V > 0 (rated); coilResistance_ohm > 0 (at 20 °C); appliedCoilMin_V, appliedCoilMax_V ≥ 0
 //     (0 = the rated voltage)
 //   contactResistance_ohm ≥ 0 (per contact); contactsInPath ≥ 1
-//   electricalLife_ops > 0, mechanicalLife_ops > 0; reversalsPerDay ≥ 0; operationsPerReversal > 0;
+//   electricalLife_ops ≥ 0, mechanicalLife_ops ≥ 0 (0 = not stated: no life figure);
+//   reversalsPerDay ≥ 0; operationsPerReversal > 0;
 //   operatingDaysPerYear in (0, 366]
 //   armatureInductance_H > 0; loopResistance_ohm > 0 (armature at temperature + cable + contacts)
 //   category "", "DC-1", "DC-3" or "DC-5"; dcBreaking_A ≥ 0 (0 = no DC breaking rating stated)
@@ -66,7 +67,7 @@ struct ContactorResult {
     double coilVoltageRatioMax = 1.0;       ///< highest applied / rated
     bool coilVoltageOk = false;             ///< both inside the 85–110 % band
     double contactLoss_W = 0.0;
-    std::optional<double> electricalLife_years; ///< empty when there are no reversals
+    std::optional<double> electricalLife_years; ///< empty when there are no reversals or no life stated
     std::optional<double> mechanicalLife_years;
     double motorTimeConstant_s = 0.0;
     double categoryTimeConstant_s = 0.0; ///< the limit τ_m is compared with
