@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 // Copper cable: IEC 60228 class 5 resistances, temperature correction, heat balance, sizing.
+#include "core/physics/copper.h"
 #include "core/protection/cable.h"
 #include "support/testsupport.h"
 
@@ -59,8 +60,8 @@ class TestProtectionCable : public QObject {
     void temperatureCorrection() {
         // IEC 60228 Annex B: k_t = 254.5/(234.5 + t); k_t(80 °C) = 0.8092 [calc]. ±0.05 % catches the
         // 0.004/K mistake (0.806).
-        QVERIFY(relDiff(copperTemperatureFactor(80.0), 0.8092) < 5e-4);
-        QVERIFY(relDiff(copperTemperatureFactor(20.0), 1.0) < 1e-12);
+        QVERIFY(relDiff(copper::iec60228Correction(80.0), 0.8092) < 5e-4);
+        QVERIFY(relDiff(copper::iec60228Correction(20.0), 1.0) < 1e-12);
         // 16 mm² class 5 at 90 °C: 1.21 mΩ/m / k_t(90) = 1.543 mΩ/m (±0.1 %) [calc, reference list].
         QVERIFY(relDiff(class5Resistance_ohmPerM(16.0, 90.0), 1.543e-3) < 1e-3);
         // Between table sizes the resistance stays between its neighbours.
@@ -97,6 +98,55 @@ class TestProtectionCable : public QObject {
         // Estimate against IEC 60364-5-52 free-air tables (from memory: 35 mm² single-core PVC about
         // 150–170 A at 30 °C): the model must stay on the safe side, but not absurdly far below.
         QVERIFY(c.ampacity_A < 170.0 && c.ampacity_A > 100.0);
+    }
+
+    void profileTemperature() {
+        // One long step: the periodic state is the steady state of the closed form [identity].
+        CableInput in;
+        in.length_m = 2.0;
+        in.area_mm2 = 35.0;
+        in.current_A = 120.0;
+        const double steady = rateCable(in).installed->conductorTemperature_C;
+        in.profile = {{120.0, 1e6}};
+        QVERIFY(std::abs(rateCable(in).installed->conductorTemperature_C - steady) < 1e-6);
+        // A 3 s stall at 200 A then 600 s at 80 A, repeated: the exact per-step solution against a
+        // plain numerical integration of C'·dT/dt = I²·R'(T) − (T − T_a)/R_th' over many cycles
+        // (RK4, 0.05 s steps) [independent recomputation of the same ODE].
+        in.profile = {{200.0, 3.0}, {80.0, 600.0}};
+        const auto exact = rateCable(in).installed;
+        QVERIFY(exact && !exact->runaway);
+        const double cap = 8933.0 * 385.0 * 35e-6; // Incropera table A.1, copper at 300 K
+        const double rth = exact->thermalResistance_KmPerW;
+        auto f = [&](double t, double i) {
+            return (i * i * class5Resistance_ohmPerM(35.0, t) - (t - 30.0) / rth) / cap;
+        };
+        double t = 30.0, peak = 0.0;
+        const double h = 0.05;
+        for (int cycle = 0; cycle < 40; ++cycle) {
+            for (const auto& st : in.profile) {
+                const int n = int(std::lround(st.duration_s / h));
+                for (int k = 0; k < n; ++k) {
+                    const double k1 = f(t, st.current_A), k2 = f(t + 0.5 * h * k1, st.current_A);
+                    const double k3 = f(t + 0.5 * h * k2, st.current_A), k4 = f(t + h * k3, st.current_A);
+                    t += h / 6.0 * (k1 + 2 * k2 + 2 * k3 + k4);
+                }
+                if (cycle == 39)
+                    peak = std::max(peak, t);
+            }
+        }
+        QVERIFY2(std::abs(exact->conductorTemperature_C - peak) < 0.01,
+                 qPrintable(QString("%1 vs %2").arg(exact->conductorTemperature_C).arg(peak)));
+        // The stall lifts the peak above the 80 A steady state but far below the 200 A steady state.
+        in.profile.clear();
+        in.current_A = 80.0;
+        const double at80 = rateCable(in).installed->conductorTemperature_C;
+        in.current_A = 200.0;
+        const auto at200 = rateCable(in).installed;
+        QVERIFY(exact->conductorTemperature_C > at80);
+        QVERIFY(at200->runaway || exact->conductorTemperature_C < at200->conductorTemperature_C - 20.0);
+        // A profile with no duration is rejected naming it.
+        in.profile = {{100.0, 0.0}};
+        QVERIFY(mentions(rateCable(in).problems, "profile"));
     }
 
     void sizing() {
