@@ -13,6 +13,10 @@
 //   none is), keeping the longest; short-circuit currents: cables at 20 °C and the ideal
 //   resistivity of copper (lower resistance, higher current: the safe side), cable drop and
 //   heating: IEC 60228 class 5 maximum resistances at the conductor temperature.
+// Series-wound motors: the back-EMF at the change-over speed uses k at the point's current, an
+// upper bound (with no armature current only the residual field remains).
+// The full-bridge comparison uses its own conduction-path formulas (protection/bridgecomparison.h);
+// switching losses are not part of it.
 
 namespace amp {
 
