@@ -101,6 +101,8 @@ void MainWindow::buildMenus() {
     saveAction->setShortcuts(QKeySequence::Save);
     QAction* saveAsAction = file->addAction(tr("Save &as…"), this, &MainWindow::saveAs);
     saveAsAction->setShortcuts(QKeySequence::SaveAs);
+    if (saveAsAction->shortcuts().isEmpty()) // some platforms define none
+        saveAsAction->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_S));
     file->addSeparator();
     QAction* quit = file->addAction(tr("&Quit"), this, &QWidget::close);
     quit->setShortcuts(QKeySequence::Quit);

@@ -10,6 +10,7 @@
 #include "core/engine/evaluate.h"
 #include "core/io/projectfile.h"
 #include "core/model/design.h"
+#include "core/model/fields.h"
 #include "support/testsupport.h"
 #include "ui/bankview.h"
 #include "ui/designdocument.h"
@@ -21,6 +22,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include <QAction>
 #include <QDir>
 #include <QLineEdit>
 #include <QListWidget>
@@ -224,6 +226,21 @@ void TestWorkbench::invalidEntryLeavesDesignUnchanged() {
     QVERIFY(!count->errorText().isEmpty());
     QVERIFY(doc->design() == before);
 
+    // A value that breaks a rule between fields (lowest supply above nominal) is refused too.
+    FieldEditor* lowest = window.fieldEditor("supply.min_V");
+    QVERIFY(lowest);
+    const double nominal = doc->design().supply.nominal_V;
+    QVERIFY(!lowest->enterText(QStringLiteral("%1 V").arg(nominal + 1)));
+    QVERIFY(!lowest->errorText().isEmpty());
+    QVERIFY(doc->design() == before);
+
+    // The tooltip states the unit and the allowed range from the field table.
+    const FieldSpec* spec = findField("pwm.frequency_Hz");
+    QVERIFY(spec);
+    const QString tip = editor->input()->toolTip();
+    QVERIFY2(tip.contains("Unit: Hz"), qPrintable(tip));
+    QVERIFY2(tip.contains(QString::fromStdString(units::format(spec->max, units::Unit::Hertz, 4))), qPrintable(tip));
+
     // A good entry clears the message and is shown as the design holds it.
     QVERIFY(editor->enterText("20k"));
     QVERIFY(editor->errorText().isEmpty());
@@ -317,6 +334,21 @@ void TestWorkbench::titleCarriesNameAndModifiedMark() {
     QVERIFY(window.windowTitle().contains("[*]"));
     QVERIFY(window.windowTitle().endsWith("Ampwright"));
     QVERIFY(!window.isWindowModified());
+    // The standard key sequences are on the file and edit actions.
+    // (A platform may define no binding for one of them, e.g. Save As; those are skipped.)
+    int defined = 0;
+    int bound = 0;
+    for (const auto key : {QKeySequence::New, QKeySequence::Open, QKeySequence::Save, QKeySequence::SaveAs,
+                           QKeySequence::Undo, QKeySequence::Redo}) {
+        if (QKeySequence::keyBindings(key).isEmpty())
+            continue;
+        ++defined;
+        const auto actions = window.findChildren<QAction*>();
+        bound += std::any_of(actions.begin(), actions.end(),
+                             [&](QAction* a) { return a->shortcuts() == QKeySequence::keyBindings(key); });
+    }
+    QVERIFY(defined >= 4); // New, Open, Save, Undo exist on every platform Qt knows
+    QCOMPARE(bound, defined);
     const double ambient = window.document()->design().heatsink.ambient_C;
     QVERIFY(window.document()->setFieldText("heatsink.ambient_C", QStringLiteral("%1 °C").arg(ambient + 3)).changed);
     QVERIFY(window.isWindowModified());
