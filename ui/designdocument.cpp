@@ -139,7 +139,7 @@ QString formatFieldValue(const FieldSpec& spec, const nlohmann::json& value) {
                 return QString::number(static_cast<long long>(v));
             return QString::number(v, 'g', 6);
         }
-        return toQ(units::format(v, spec.unit, 4));
+        return toQ(units::format(v, spec.unit, 6)); // an editor shows what the design holds
     }
     if (value.is_null())
         return {};

@@ -117,6 +117,9 @@ void FieldEditor::refresh(bool force) {
 void FieldEditor::commitText() {
     if (m_refreshing || !m_edit)
         return;
+    // Leaving a field that was not typed in changes nothing (the shown text may be rounded).
+    if (!m_edit->isModified() && m_error->isHidden())
+        return;
     const EditOutcome r = m_document->setFieldText(path(), m_edit->text());
     if (!r) {
         showError(r.error);
@@ -129,6 +132,7 @@ void FieldEditor::commitText() {
 bool FieldEditor::enterText(const QString& text) {
     if (m_edit) {
         m_edit->setText(text);
+        m_edit->setModified(true);
         commitText();
     } else {
         const EditOutcome r = m_document->setFieldText(path(), text);

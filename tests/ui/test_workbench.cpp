@@ -75,6 +75,7 @@ class TestWorkbench : public QObject {
     void undoRedoRestoreExactly();
     void invalidEntryLeavesDesignUnchanged();
     void noOpEditIsNotPushed();
+    void leavingAnUntouchedFieldChangesNothing();
     void openEditSaveReopen();
     void failedOpenLeavesDesignUntouched();
     void titleCarriesNameAndModifiedMark();
@@ -245,7 +246,7 @@ void TestWorkbench::invalidEntryLeavesDesignUnchanged() {
     QVERIFY(editor->enterText("20k"));
     QVERIFY(editor->errorText().isEmpty());
     QCOMPARE(doc->design().pwm.frequency_Hz, 20e3);
-    QCOMPARE(line->text(), QString::fromStdString(units::format(20e3, units::Unit::Hertz, 4)));
+    QCOMPARE(line->text(), QString::fromStdString(units::format(20e3, units::Unit::Hertz, 6)));
 }
 
 void TestWorkbench::noOpEditIsNotPushed() {
@@ -267,6 +268,23 @@ void TestWorkbench::noOpEditIsNotPushed() {
     QVERIFY(doc.setFieldText("pwm.frequency_Hz", QString::number(f + 1000.0, 'g', 17)).changed);
     QVERIFY(!doc.setFieldText("pwm.frequency_Hz", QString::number(f + 1000.0, 'g', 17)).changed);
     QCOMPARE(doc.undoStack()->count(), 1);
+}
+
+void TestWorkbench::leavingAnUntouchedFieldChangesNothing() {
+    // A value with more digits than the field shows: passing through the field without typing
+    // must not round it to the shown text.
+    MainWindow window;
+    QVERIFY(window.openExample(demoFile()));
+    DesignDocument* doc = window.document();
+    const double precise = 0.3123456789e-3;
+    QVERIFY(doc->setFieldValue("bank.legResistance_ohm", precise).changed);
+    FieldEditor* editor = window.fieldEditor("bank.legResistance_ohm");
+    auto* line = qobject_cast<QLineEdit*>(editor->input());
+    QVERIFY(line);
+    QVERIFY(line->text().startsWith("312.346")); // six significant digits of the value
+    emit line->editingFinished(); // as on losing the focus
+    QCOMPARE(doc->design().bank.legResistance_ohm, precise);
+    QCOMPARE(doc->undoStack()->count(), 1);
 }
 
 void TestWorkbench::openEditSaveReopen() {
