@@ -28,50 +28,56 @@ int rank(Severity s) {
 }
 } // namespace
 
-FindingsList::FindingsList(QWidget* parent) : QTreeWidget(parent) {
+FindingsList::FindingsList(QWidget* parent) : QTableWidget(parent) {
     setObjectName(QStringLiteral("findingsList"));
     setColumnCount(ColumnCount);
-    setHeaderLabels({tr("Severity"), tr("Finding"), tr("Point")});
-    setRootIsDecorated(false);
-    setUniformRowHeights(false);
+    setHorizontalHeaderLabels({tr("Severity"), tr("Finding"), tr("Point")});
+    verticalHeader()->hide();
+    setEditTriggers(QAbstractItemView::NoEditTriggers);
+    setSelectionBehavior(QAbstractItemView::SelectRows);
+    setSelectionMode(QAbstractItemView::SingleSelection);
+    setShowGrid(false);
     setWordWrap(true);
     setAlternatingRowColors(true);
-    header()->setSectionResizeMode(SeverityColumn, QHeaderView::ResizeToContents);
-    header()->setSectionResizeMode(MessageColumn, QHeaderView::Stretch);
-    header()->setSectionResizeMode(PointColumn, QHeaderView::ResizeToContents);
-    header()->setStretchLastSection(false);
-    connect(this, &QTreeWidget::itemActivated, this, [this](QTreeWidgetItem* item) {
-        const QString field = item->data(MessageColumn, FieldRole).toString();
+    horizontalHeader()->setSectionResizeMode(SeverityColumn, QHeaderView::ResizeToContents);
+    horizontalHeader()->setSectionResizeMode(MessageColumn, QHeaderView::Stretch);
+    horizontalHeader()->setSectionResizeMode(PointColumn, QHeaderView::ResizeToContents);
+    verticalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents); // wrapped messages
+    connect(this, &QTableWidget::itemActivated, this, [this](QTableWidgetItem* item) {
+        const QTableWidgetItem* message = this->item(item->row(), MessageColumn);
+        const QString field = message ? message->data(FieldRole).toString() : QString();
         if (!field.isEmpty())
             emit fieldRequested(field);
     });
 }
 
 void FindingsList::setChecks(const std::vector<Check>& checks) {
-    clear();
+    clearContents();
     std::vector<const Check*> sorted;
     for (const auto& c : checks)
         sorted.push_back(&c);
     std::stable_sort(sorted.begin(), sorted.end(),
                      [](const Check* a, const Check* b) { return rank(a->severity) < rank(b->severity); });
-    for (const Check* c : sorted) {
-        auto* item = new QTreeWidgetItem(this);
-        item->setText(SeverityColumn, QString::fromLatin1(toString(c->severity)));
-        item->setTextAlignment(SeverityColumn, Qt::AlignCenter);
-        item->setBackground(SeverityColumn, colours::severity(c->severity));
-        item->setForeground(SeverityColumn, colours::severityText(c->severity));
-        QFont bold = font();
-        bold.setBold(true);
-        item->setFont(SeverityColumn, bold);
+    setRowCount(static_cast<int>(sorted.size()));
+    QFont bold = font();
+    bold.setBold(true);
+    for (int row = 0; row < rowCount(); ++row) {
+        const Check* c = sorted[static_cast<std::size_t>(row)];
+        auto* chip = new QTableWidgetItem(QString::fromLatin1(toString(c->severity)));
+        chip->setTextAlignment(Qt::AlignCenter);
+        chip->setBackground(colours::severity(c->severity));
+        chip->setForeground(colours::severityText(c->severity));
+        chip->setFont(bold);
+        chip->setData(SeverityRole, static_cast<int>(c->severity));
         // The point has its own column; drop it from the front of the message.
-        QString message = toQ(c->message.empty() ? c->id : c->message);
+        QString text = toQ(c->message.empty() ? c->id : c->message);
         const QString point = toQ(c->operatingPoint);
-        if (!point.isEmpty() && message.startsWith(point + QStringLiteral(": ")))
-            message = message.mid(point.size() + 2);
-        item->setText(MessageColumn, message);
-        item->setText(PointColumn, toQ(c->operatingPoint));
-        item->setData(MessageColumn, FieldRole, toQ(c->field));
-        item->setData(SeverityColumn, SeverityRole, static_cast<int>(c->severity));
+        if (!point.isEmpty() && text.startsWith(point + QStringLiteral(": ")))
+            text = text.mid(point.size() + 2);
+        auto* message = new QTableWidgetItem(text);
+        message->setData(FieldRole, toQ(c->field));
+        auto* where = new QTableWidgetItem(point);
+
         QStringList tip;
         tip << QStringLiteral("<b>%1</b>").arg(toQ(c->id).toHtmlEscaped());
         tip << toQ(c->message).toHtmlEscaped();
@@ -85,8 +91,12 @@ void FindingsList::setChecks(const std::vector<Check>& checks) {
             tip << tr("To change: %1").arg(toQ(c->fix).toHtmlEscaped());
         if (!c->field.empty())
             tip << tr("<i>Double-click to go to %1</i>").arg(toQ(c->field).toHtmlEscaped());
-        for (int col = 0; col < ColumnCount; ++col)
-            item->setToolTip(col, tip.join(QStringLiteral("<br>")));
+        const QString joined = tip.join(QStringLiteral("<br>"));
+        for (auto* item : {chip, message, where})
+            item->setToolTip(joined);
+        setItem(row, SeverityColumn, chip);
+        setItem(row, MessageColumn, message);
+        setItem(row, PointColumn, where);
     }
 }
 

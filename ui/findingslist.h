@@ -6,11 +6,11 @@
 
 #include "core/engine/results.h"
 
-#include <QTreeWidget>
+#include <QTableWidget>
 
 namespace amp::ui {
 
-class FindingsList : public QTreeWidget {
+class FindingsList : public QTableWidget {
     Q_OBJECT
   public:
     enum Column { SeverityColumn, MessageColumn, PointColumn, ColumnCount };

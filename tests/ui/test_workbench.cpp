@@ -409,6 +409,22 @@ void TestWorkbench::findingJumpsToItsField() {
     QVERIFY(window.focusField("bank.count"));
     QVERIFY(pages->currentWidget()->isAncestorOf(window.fieldEditor("bank.count")));
     QVERIFY(!window.focusField("no.such.field"));
+
+    // Activating a finding that names a field with an editor shows that field's page.
+    FindingsList* list = window.findingsList();
+    QVERIFY(list->rowCount() > 0);
+    int tried = 0;
+    for (int row = 0; row < list->rowCount(); ++row) {
+        const QString field = list->item(row, FindingsList::MessageColumn)->data(FindingsList::FieldRole).toString();
+        FieldEditor* target = window.fieldEditor(field);
+        if (!target)
+            continue;
+        window.focusField("meta.title"); // start somewhere else
+        emit list->itemActivated(list->item(row, FindingsList::MessageColumn));
+        QVERIFY2(pages->currentWidget()->isAncestorOf(target), qPrintable(field));
+        ++tried;
+    }
+    QVERIFY(tried > 0);
 }
 
 void TestWorkbench::screenshotOfDemo() {
