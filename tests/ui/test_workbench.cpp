@@ -13,6 +13,7 @@
 #include "core/model/fields.h"
 #include "support/testsupport.h"
 #include "ui/bankview.h"
+#include "ui/devicetable.h"
 #include "ui/designdocument.h"
 #include "ui/fieldeditor.h"
 #include "ui/findingslist.h"
@@ -30,6 +31,7 @@
 #include <QScrollArea>
 #include <QSignalSpy>
 #include <QStackedWidget>
+#include <QTabWidget>
 #include <QTest>
 #include <QTimer>
 #include <QUndoStack>
@@ -462,6 +464,14 @@ void TestWorkbench::screenshotOfDemo() {
     const QString second = out.filePath("workbench-garden-cart-bank.png");
     QVERIFY(window.grab().save(second));
     qInfo("screenshots: %s, %s", qPrintable(first), qPrintable(second));
+
+    // The per-device table: one row per switch plus the freewheel path.
+    auto* tabs = window.findChild<QTabWidget*>("detailTabs");
+    QVERIFY(tabs);
+    tabs->setCurrentWidget(window.deviceTable());
+    QCOMPARE(window.deviceTable()->rowCount(), d.bank.count + (d.bank.diodeCount > 0 ? 1 : 0));
+    QCoreApplication::processEvents();
+    QVERIFY(window.grab().save(out.filePath("workbench-garden-cart-devices.png")));
 
     // Every editor page, for a look at labels and fields.
     auto* rail = window.findChild<QListWidget*>("sectionRail");
