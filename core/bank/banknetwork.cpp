@@ -662,7 +662,12 @@ class TypedNetwork final : public BankNetwork::Impl {
     void computeSensitivity(ElectricalPoint& pt) {
         // dX/dT_j = −J⁻¹·∂F/∂T_j at the converged point (m_J, m_out are at pt.x).
         m_lu.compute(m_J);
-        Eigen::MatrixXd b = Eigen::MatrixXd::Zero(m_nx, n);
+        // One more right-hand side: the load current (the incremental resistance dV_C/dI).
+        Eigen::MatrixXd b = Eigen::MatrixXd::Zero(m_nx, n + 1);
+        if (m_feed == BankFeed::Current)
+            b(1, n) = 1.0;
+        else if (m_feed == BankFeed::Linear)
+            b(0, n) = 1.0;
         for (int j = 0; j < n; ++j) {
             const LegOut<D>& o = m_out[static_cast<std::size_t>(j)];
             const int base = 2 + j * m;
@@ -674,6 +679,7 @@ class TypedNetwork final : public BankNetwork::Impl {
             b(1, j) = m_feed == BankFeed::Current ? -dIc : 0.0;
         }
         const Eigen::MatrixXd dx = m_lu.solve(b);
+        pt.dVcdLoad = std::isfinite(dx(1, n)) ? dx(1, n) : 0.0;
         pt.dxdT.resize(static_cast<std::size_t>(m_nx * n));
         for (int i = 0; i < m_nx; ++i)
             for (int j = 0; j < n; ++j)

@@ -32,6 +32,7 @@ struct ElectricalPoint {
     std::vector<std::string> region;  ///< filled by fillRegions()
     std::vector<double> sOn;        ///< N×N row-major dP_on,k/dT_j (when requested)
     std::vector<double> dxdT;       ///< n×N row-major dX/dT_j of the unknowns (when requested)
+    double dVcdLoad = 0.0;          ///< dV_C/dI_load at fixed temperatures (current and linear feeds)
 };
 
 class BankNetwork {

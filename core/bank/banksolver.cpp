@@ -75,11 +75,26 @@ void checkBjt(Checker& c, const BjtParams& b, const std::string& prefix) {
     c.range(b.betaTempExponent, -5.0, 5.0, prefix + ".betaTempExponent");
 }
 
+// r = I_rms²/(duty·I²) of the switch current over the on-time.
 double rippleFactor(const BankProblem& p) {
     if (p.feed == BankFeed::Voltage || p.load_A <= 0.0)
         return 1.0;
+    if (p.rmsFactor > 0.0)
+        return p.rmsFactor;
     const double r = p.ripplePeakToPeak_A / p.load_A;
     return 1.0 + r * r / 12.0;
+}
+
+// duty × r_eff with r_eff = 1 + (R_b·I/V_C)·(r − 1): the ripple raises only the resistive part
+// of the bank's drop (R_b the incremental resistance dV_C/dI). For a linear bank V = V0 + R_b·i
+// this is exactly the average of v·i over the waveform, V0·I_avg + R_b·I_rms², split in the
+// proportion of the on-state powers.
+double powerScale(const BankProblem& p, const detail::ElectricalPoint& pt) {
+    const double r = rippleFactor(p);
+    if (r == 1.0 || p.feed != BankFeed::Current || !(pt.vC > 0.0) || !(p.load_A > 0.0))
+        return p.duty * r;
+    const double resistive = std::max(pt.dVcdLoad * p.load_A / pt.vC, 0.0);
+    return p.duty * (1.0 + resistive * (r - 1.0));
 }
 
 std::string heldText(BankFeed f) {
@@ -142,15 +157,15 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
 struct Context {
     const BankProblem& p;
     ThermalMatrices th;
-    double scaleP = 1.0; // duty × ripple factor
     double ta_K = 0.0;
     double cap_K = 0.0;
 };
 
 std::vector<double> averagePower(const Context& c, const detail::ElectricalPoint& pt) {
     std::vector<double> pw(pt.pDevice_W.size());
+    const double scale = powerScale(c.p, pt);
     for (std::size_t k = 0; k < pw.size(); ++k)
-        pw[k] = c.scaleP * pt.pDevice_W[k] + c.p.switchingPowerPerDevice_W;
+        pw[k] = scale * pt.pDevice_W[k] + c.p.switchingPowerPerDevice_W;
     return pw;
 }
 
@@ -175,6 +190,9 @@ void fillDevices(const Context& c, const detail::ElectricalPoint& pt, const std:
     for (std::size_t k = 0; k < n && k < pt.current_A.size(); ++k)
         total += pt.current_A[k];
     const std::vector<double> pw = pt.pDevice_W.size() == n ? averagePower(c, pt) : std::vector<double>(n, 0.0);
+    const double scale = powerScale(p, pt);
+    sol.powerScale = scale;
+    sol.incrementalResistance_ohm = pt.dVcdLoad;
     double sumP = 0.0;
     sol.deviceLoss_W = 0.0;
     sol.ballastLoss_W = 0.0;
@@ -191,9 +209,9 @@ void fillDevices(const Context& c, const detail::ElectricalPoint& pt, const std:
             d.controlVoltage_V = pt.control_V[k];
             d.driveCurrent_A = pt.drive_A[k];
             d.onStatePower_W = pt.pDevice_W[k];
-            d.conduction_W = c.scaleP * pt.pDevice_W[k];
-            d.ballast_W = c.scaleP * pt.pBallast_W[k];
-            d.leg_W = c.scaleP * pt.pLeg_W[k];
+            d.conduction_W = scale * pt.pDevice_W[k];
+            d.ballast_W = scale * pt.pBallast_W[k];
+            d.leg_W = scale * pt.pLeg_W[k];
             d.drive_W = p.duty * pt.pDrive_W[k];
             d.region = k < pt.region.size() ? pt.region[k] : std::string();
         }
@@ -339,6 +357,7 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
     c.range(p.busVoltage_V, 0.0, 1e5, "supply.max_V", " V");
     c.range(p.duty, 0.0, 1.0, "duty");
     c.range(p.ripplePeakToPeak_A, 0.0, 1e6, "ripplePeakToPeak_A", " A");
+    c.range(p.rmsFactor, 0.0, 1e3, "rmsFactor");
     c.range(p.switchingPowerPerDevice_W, 0.0, 1e6, "switchingPowerPerDevice_W", " W");
     c.range(p.sinkExtraPower_W, 0.0, 1e6, "sinkExtraPower_W", " W");
     c.range(p.ambient_C, -60.0, 200.0, "heatsink.ambient_C", " °C");
@@ -346,6 +365,8 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
     c.range(p.rthSa_KperW, 0.0, 1e3, "heatsink.part.rthSa_KperW", " K/W");
     c.range(p.neighbourCoupling_KperW, 0.0, 1e6, "bank.neighbourCoupling_KperW", " K/W");
     c.range(p.isothermalTj_C, -60.0, 400.0, "isothermalTj_C", " °C");
+    for (std::size_t k = 0; k < p.isothermalTjPerDevice_C.size(); ++k)
+        c.range(p.isothermalTjPerDevice_C[k], -60.0, 1000.0, "isothermalTjPerDevice_C", " °C");
     c.above(p.derating, 0.0, 2.0, "bank.derating");
     c.range(p.sharingTarget, 1.0, 1e3, "bank.sharingTarget");
     if (p.maxNewtonIterations < 1 || p.maxNewtonIterations > 10000)
@@ -372,7 +393,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
     detail::BankNetwork net(p);
     sol.notes = net.notes();
     Context c{p, buildThermalMatrices({n, p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW, p.neighbourCoupling_KperW}),
-              p.duty * rippleFactor(p), toKelvin(p.ambient_C), toKelvin(p.part.tjMax_C) + 125.0};
+              toKelvin(p.ambient_C), toKelvin(p.part.tjMax_C) + 125.0};
 
     // Warm start: [network unknowns..., junction temperatures (K)...].
     std::vector<double> x;
@@ -390,6 +411,9 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
 
     if (p.isothermal) {
         t.assign(nn, toKelvin(p.isothermalTj_C));
+        if (p.isothermalTjPerDevice_C.size() == nn)
+            for (std::size_t k = 0; k < nn; ++k)
+                t[k] = toKelvin(p.isothermalTjPerDevice_C[k]);
         const detail::ElectricalPoint pt = net.solve(t, x.empty() ? nullptr : &x, true);
         sol.newtonIterations = pt.iterations;
         if (!pt.ok) {
@@ -408,7 +432,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         }
         std::vector<double> s(pt.sOn);
         for (double& v : s)
-            v *= c.scaleP;
+            v *= powerScale(p, pt);
         sol.stability = stabilityOf(c.th, s, p.feed);
         finishStability(p, sol);
         fillVerdict(p, sol);
@@ -461,6 +485,10 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         if (gmax < tol_K) {
             sol.converged = true;
             sol.fixedPoint = true;
+            // Close the last step: report T = T_amb + Z·P(T), so the temperatures and the reported
+            // powers satisfy the thermal network exactly (they moved < tol_K).
+            for (std::size_t k = 0; k < nn; ++k)
+                t[k] -= g[k];
             finish(pt, t);
             if (overBus(p, pt, sol)) {
                 fillVerdict(p, sol);
@@ -468,7 +496,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
             }
             std::vector<double> s(pt.sOn);
             for (double& v : s)
-                v *= c.scaleP;
+                v *= powerScale(p, pt);
             sol.stability = stabilityOf(c.th, s, p.feed);
             finishStability(p, sol);
             fillVerdict(p, sol);
@@ -488,13 +516,15 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
             fillVerdict(p, sol);
             return sol;
         }
-        // Newton step on G(T) = T − T_amb − Z·P(T): (I − Z·S)·ΔT = −G.
+        // Newton step on G(T) = T − T_amb − Z·P(T): (I − Z·S)·ΔT = −G. (The ripple scale's own
+        // temperature dependence, of order (r − 1)·d(R_b·I/V_C)/dT, is left out of S.)
+        const double scale = powerScale(p, pt);
         for (int k = 0; k < n; ++k) {
             gv(k) = -g[static_cast<std::size_t>(k)];
             for (int j = 0; j < n; ++j) {
                 double zs = 0.0;
                 for (int l = 0; l < n; ++l)
-                    zs += c.th.at(k, l) * c.scaleP * pt.sOn[static_cast<std::size_t>(l * n + j)];
+                    zs += c.th.at(k, l) * scale * pt.sOn[static_cast<std::size_t>(l * n + j)];
                 a(k, j) = (k == j ? 1.0 : 0.0) - zs;
             }
         }
@@ -579,7 +609,7 @@ BankStability analyseStability(const BankProblem& p, const BankSolution& at) {
                               p.neighbourCoupling_KperW});
     std::vector<double> s(pt.sOn);
     for (double& v : s)
-        v *= p.duty * rippleFactor(p);
+        v *= powerScale(p, pt);
     return stabilityOf(th, s, p.feed);
 }
 

@@ -24,10 +24,13 @@
 //
 // Thermal network: bank/thermalnetwork.h (junction → case → interface → shared heatsink →
 // ambient, optional neighbour coupling; extra heat on the sink, e.g. the freewheel diode).
-// Average junction power P_k = duty·r·P_on,k + P_sw,k where P_on,k is the on-state dissipation
+// Average junction power P_k = duty·r_eff·P_on,k + P_sw,k where P_on,k is the on-state dissipation
 // inside the device (junction(s) and the die's own series resistances; ballast and leg heat is
-// reported but not put on the heatsink) and r = 1 + (ΔI_pp/I)²/12 is the triangular-ripple RMS
-// factor (exact for resistive sharing, a slight over-estimate for junction devices).
+// reported but not put on the heatsink), r = I_rms²/(duty·I²) the waveform's RMS factor
+// (triangular ripple: 1 + (ΔI_pp/I)²/12) and r_eff = 1 + (R_b·I/V_C)·(r − 1) with R_b = dV_C/dI the
+// bank's incremental resistance: the ripple adds loss only through the resistive part of the drop.
+// For a bank V_C(i) ≈ V0 + R_b·i this reproduces V0·I_avg + R_b·I_rms² exactly (a chopper model
+// with the same V0 and R_b balances its energy with these losses).
 //
 // Electrothermal solution: Newton on the junction temperatures of
 //   G(T) = T − T_amb − Z·P(T) − z_s·P_s = 0,   Jacobian I − Z·S,   S = dP/dT
@@ -82,6 +85,9 @@ struct BankProblem {
     double busVoltage_V = 0.0;           ///< highest V_C the circuit can give (0 = no limit)
     double duty = 1.0;                   ///< fraction of the period the bank conducts
     double ripplePeakToPeak_A = 0.0;     ///< on-time current ripple (for the RMS factor)
+    /// r = I_rms²/(duty·I²) of the switch current, when known from a waveform (0 = from the
+    /// triangular ripple: 1 + (ΔI_pp/I)²/12).
+    double rmsFactor = 0.0;
     double switchingPowerPerDevice_W = 0.0; ///< further heat in each junction (switching, body diode)
     double sinkExtraPower_W = 0.0;       ///< heat put straight on the heatsink (freewheel diode)
     double ambient_C = 30.0;
@@ -90,6 +96,7 @@ struct BankProblem {
     double neighbourCoupling_KperW = 0.0; ///< case to neighbouring case (0 = none)
     bool isothermal = false;             ///< hold every junction at isothermalTj_C (no thermal solve)
     double isothermalTj_C = 25.0;
+    std::vector<double> isothermalTjPerDevice_C; ///< when its size is N: each junction's held temperature
     double derating = 0.5;               ///< highest share of the rated current per device
     double sharingTarget = 1.10;         ///< accepted max/min device current ratio
     int maxNewtonIterations = 100;
@@ -150,6 +157,8 @@ struct BankSolution {
     double maxMinCurrentRatio = 1.0; ///< capped at 1e6 when a device carries nothing
     double maxShare = 0.0;
     int hottest = 0;              ///< device with the highest T_j
+    double incrementalResistance_ohm = 0.0; ///< dV_C/dI at the solution (current feed)
+    double powerScale = 1.0;      ///< duty·r_eff: average over on-state power
     double deviceLoss_W = 0.0;    ///< all junctions, average
     double ballastLoss_W = 0.0;   ///< all ballast resistors, average
     BankStability stability;

@@ -101,12 +101,21 @@ MosfetModel::AtTemperature<S> MosfetModel::atTemperature(const S& t_K) const {
     const S ron = table.empty() ? rdsOn25_ohm * pow(r, tempExponent) : rdsOn25_ohm * tableFactor(table, t_K);
     const S vovSpec = softplus(specGate_V - vthNom, at.smooth);
     at.drift = scale * (ron - 1.0 / (2.0 * kNom * vovSpec));
+    at.vovSpec = softplus(specGate_V - at.vth, at.smooth);
     return at;
 }
 
 template <class S>
 S MosfetModel::channelCurrent(const AtTemperature<S>& at, const S& vgs, const S& vds) const {
-    const S vov = softplus(vgs - at.vth, at.smooth);
+    S vov = softplus(vgs - at.vth, at.smooth);
+    // Full enhancement: the overdrive saturates within 2w above its value at the specified gate.
+    const double w = kEnhancementWidth_V;
+    if (ad::val(vov) >= ad::val(at.vovSpec) + 2.0 * w) {
+        vov = at.vovSpec + w;
+    } else if (ad::val(vov) > ad::val(at.vovSpec)) {
+        const S e = vov - at.vovSpec;
+        vov = vov - e * e / (4.0 * w);
+    }
     const bool reverse = ad::val(vds) < 0.0;
     const S v = reverse ? -vds : vds;
     S i;

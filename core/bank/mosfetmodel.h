@@ -22,7 +22,11 @@
 //                 has a normalised table (linear interpolation, linear extrapolation, ≥ 0.05).
 // How the two join: at the specified gate voltage and small V_DS the channel is a resistance
 // R_ch,spec; the drift takes the rest of the datasheet R_ds(on), so deep triode at V_spec matches
-// R_ds(on)(T) exactly. At a higher gate voltage the channel part falls; at a low gate voltage the
+// R_ds(on)(T) exactly. Above the specified gate voltage the square law would keep lowering the
+// channel resistance; real channels flatten (mobility degradation at high gate fields), and a
+// datasheet's R_ds(on) is its full-enhancement value, so the overdrive saturates smoothly (C¹):
+//   V_ov,eff = V_ov − (V_ov − V_ov,spec)²/(4w) for V_ov,spec < V_ov < V_ov,spec + 2w, and
+//   V_ov,spec + w above, with w = 0.25 V (at most w/V_ov,spec, a few %, below R_ch,spec). At a higher gate voltage the channel part falls; at a low gate voltage the
 // channel saturates and the device becomes a current source whose current rises with temperature
 // below the zero-temperature-coefficient overdrive V_ov,ZTC ≈ (4/3)·|dV_th/dT|·T (from dI/dT = 0
 // of K(T)·V_ov²): a weakly driven bank hogs current.
@@ -53,6 +57,7 @@ struct MosfetModel {
     double scale = 1.0;          ///< 1 + relative R_ds(on) deviation
     double kRaise = 1.0;         ///< factor K was raised by for consistency (1 = as stated)
     double gmin_S = 1e-9;        ///< conductance across the channel (keeps the Jacobian regular)
+    static constexpr double kEnhancementWidth_V = 0.25; ///< w of the full-enhancement knee
 
     /// Build from part data and one device's deviations. `tMax_K` is the top of the temperature
     /// range over which the K/R_ds(on) consistency is checked.
@@ -93,6 +98,7 @@ struct MosfetModel {
         S vth;    ///< V_th(T) of this device
         S drift;  ///< R_drift(T) of this device
         S smooth; ///< softplus width s = 3·V_T
+        S vovSpec; ///< this device's overdrive at the specified gate voltage
     };
     template <class S>
     AtTemperature<S> atTemperature(const S& t_K) const;

@@ -1,7 +1,10 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/evaluate.h"
+#include "core/engine/stage_bank.h"
 #include "core/engine/stage_protection.h"
 
+#include "core/bank/banksolver.h"
+#include "core/bank/thermalnetwork.h"
 #include "core/physics/bank_sharing.h"
 #include "core/physics/bipolar_on_state.h"
 #include "core/physics/chopper.h"
@@ -21,6 +24,7 @@
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <string>
 #include <vector>
@@ -206,6 +210,7 @@ struct Context {
     int diodes = 1;
     std::vector<double> ballast_ohm;    // per device
     std::vector<double> leg_ohm;        // per device
+    BankProblem bankProblem;            // the bank as a network (no load yet)
 };
 
 Context makeContext(const Design& d) {
@@ -231,6 +236,7 @@ Context makeContext(const Design& d) {
         c.ballast_ohm.push_back(std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm));
         c.leg_ohm.push_back(std::max(0.0, d.bank.legResistance_ohm + dev.legResistanceDeviation_ohm));
     }
+    c.bankProblem = bankProblemFor(d);
     return c;
 }
 
@@ -258,6 +264,36 @@ struct Electrical {
     double diodeLoss_W = 0.0;           // all freewheel diodes
 };
 
+// The chopper with a bank drop V0 + R·i and the freewheel path at its temperature; fills the
+// chopper solution, the diode threshold and the diode loss of `e`.
+void runChopper(const Context& c, const Demand& demand, double drop_V, double resistance_ohm, double tjDiode_C,
+                Electrical& e) {
+    const Design& d = *c.design;
+    e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
+    ChopperCircuit circuit;
+    circuit.frequency_Hz = d.pwm.frequency_Hz;
+    circuit.inductance_H = d.motor.inductance_H;
+    circuit.loadResistance_ohm = c.motorBranch_ohm;
+    circuit.backEmf_V = demand.emf_V;
+    circuit.switchDrop_V = drop_V;
+    circuit.switchResistance_ohm = resistance_ohm;
+    circuit.diodeDrop_V = e.diodeThreshold_V;
+    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    switch (demand.hold) {
+    case Hold::CurrentAtEmf:
+        e.chopper = chopperForCurrent(circuit, c.supply, demand.current_A, d.pwm.maxDuty);
+        break;
+    case Hold::CurrentAtDuty:
+        e.chopper = chopperEmfForCurrent(circuit, c.supply, demand.duty, demand.current_A);
+        break;
+    case Hold::DutyAtEmf:
+        e.chopper = chopperAtDuty(circuit, c.supply, demand.duty);
+        break;
+    }
+    const auto& w = e.chopper.waveform;
+    e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
+}
+
 Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C) {
     const Design& d = *c.design;
     const std::size_t n = d.bank.devices.size();
@@ -272,28 +308,7 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
     }
     e.sharing = shareByConductance(path);
     e.switchDrop_V = c.mosfet ? 0.0 : c.bipolar.drop_V;
-    e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
-
-    ChopperCircuit circuit;
-    circuit.frequency_Hz = d.pwm.frequency_Hz;
-    circuit.inductance_H = d.motor.inductance_H;
-    circuit.loadResistance_ohm = c.motorBranch_ohm;
-    circuit.backEmf_V = demand.emf_V;
-    circuit.switchDrop_V = e.switchDrop_V;
-    circuit.switchResistance_ohm = e.sharing.resistance_ohm;
-    circuit.diodeDrop_V = e.diodeThreshold_V;
-    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
-    switch (demand.hold) {
-    case Hold::CurrentAtEmf:
-        e.chopper = chopperForCurrent(circuit, c.supply, demand.current_A, d.pwm.maxDuty);
-        break;
-    case Hold::CurrentAtDuty:
-        e.chopper = chopperEmfForCurrent(circuit, c.supply, demand.duty, demand.current_A);
-        break;
-    case Hold::DutyAtEmf:
-        e.chopper = chopperAtDuty(circuit, c.supply, demand.duty);
-        break;
-    }
+    runChopper(c, demand, e.switchDrop_V, e.sharing.resistance_ohm, tjDiode_C, e);
     const auto& w = e.chopper.waveform;
     e.conduction_W.resize(n);
     for (std::size_t k = 0; k < n; ++k) {
@@ -327,15 +342,21 @@ std::vector<double> thermalMap(const Context& c, const Demand& demand, const std
 
 struct BankSolve {
     Electrical electrical;
-    ThermalChainResult thermal;
-    std::vector<double> temperatures;   // devices, then diode
+    ThermalChainResult thermal;         // simple model only
+    std::vector<double> temperatures;   // simple model only: devices, then diode
     BankResult bank;
     int iterations = 0;
+    bool network = false;               // the network solution below is the one reported
+    BankSolution solution;              // core/bank/ network at the point
+    BankProblem problem;                // the point's bank problem (for evaluateFull)
+    double tjDiode_C = 0.0;
 };
 
-// Fixed point of the electrothermal map from ambient. Starting cold, the iterates rise
-// monotonically towards the lowest fixed point; when there is none they pass the runaway limit.
-BankSolve solveBank(const Context& c, const Demand& demand) {
+// The simple model's fixed point (resistive sharing, saturated bipolar drop): the fallback when
+// the network has no state to report (a base drive that cannot hold the bank on, bad input).
+// Starting cold, the iterates rise monotonically towards the lowest fixed point; when there is
+// none they pass the runaway limit.
+BankSolve solveBankSimple(const Context& c, const Demand& demand) {
     const Design& d = *c.design;
     const std::size_t n = d.bank.devices.size();
     BankSolve s;
@@ -433,6 +454,160 @@ BankSolve solveBank(const Context& c, const Demand& demand) {
     b.dominantMode = (positive && negative) ? "differential" : "common";
     if (!b.stable)
         b.firstToFail = hottest();
+    return s;
+}
+
+// The bank as an electrothermal network (core/bank/) coupled with the chopper. The chopper sees the
+// bank's drop linearised at its on-state current, V_C(i) ≈ V0 + R_b·i with R_b = dV_C/dI, and gives
+// back the duty, the on-state current and the waveform's RMS factor; the network, with the diode's
+// heat on the sink, gives back the temperatures, V0 and R_b. The two settle in a few rounds; the
+// bank's losses then balance the chopper's energy exactly (banksolver.h: r_eff).
+constexpr int kMaxCouplingRounds = 40;
+
+void bankResultFrom(const BankSolution& b, BankResult& r) {
+    r.converged = b.converged;
+    r.failure = b.converged ? std::string() : b.reason;
+    r.stable = b.stable;
+    r.loopGain.reset();
+    if (b.fixedPoint && b.stability.valid)
+        r.loopGain = b.stability.dominantEigenvalue;
+    r.dominantMode = toString(b.stability.mode);
+    r.maxMinCurrentRatio = b.maxMinCurrentRatio;
+    r.firstToFail.reset();
+    if (!b.stable && !b.devices.empty())
+        r.firstToFail = b.hottest;
+}
+
+BankSolve solveBankPoint(const Context& c, const Demand& demand) {
+    const Design& d = *c.design;
+    const std::size_t n = d.bank.devices.size();
+    const double diodeR = std::max(0.0, d.bank.freewheelDiode.rthJc_KperW) + c.rthCs_KperW;
+    // First waveform from the simple model at ambient.
+    const std::vector<double> ambient(n, d.heatsink.ambient_C);
+    Electrical e = solveElectrical(c, demand, ambient, d.heatsink.ambient_C);
+    BankSolve s;
+    s.problem = c.bankProblem;
+    BankProblem& p = s.problem;
+    BankSolution b;
+    bool have = false;
+    bool settled = false;
+    bool runaway = false;
+    BankSolution runawayState;
+    // y = what the chopper sees of the bank and the diode: (V0, R_b, T_diode). One round maps the
+    // chopper at y through the network to g(y); the rounds settle at g(y) = y. Anderson mixing of
+    // depth 1 on the scaled residual g − y (Walker & Ni, SIAM J. Numer. Anal. 49, 2011) cuts the
+    // rounds of this mildly contracting map to a few.
+    std::array<double, 3> y{}, gPrev{}, fPrev{};
+    bool havePrev = false;
+    for (int round = 0; round < kMaxCouplingRounds; ++round) {
+        s.iterations = round + 1;
+        const ChopperWaveform& w = e.chopper.waveform;
+        if (!w.valid)
+            return solveBankSimple(c, demand); // no steady state: reported by the caller
+        const double duty = w.duty;
+        const double iOn = duty > 0.0 ? w.switchAverage_A / duty : 0.0;
+        p.load_A = iOn;
+        p.duty = duty;
+        p.rmsFactor = duty > 0.0 && iOn > 0.0 ? w.switchRms_A * w.switchRms_A / (duty * iOn * iOn) : 0.0;
+        p.sinkExtraPower_W = e.diodeLoss_W;
+        BankSolution next = solveBank(p, have ? &b : nullptr);
+        if (!next.converged && !runaway && next.failure == BankFailure::ThermalRunaway && next.devices.size() == n) {
+            // No fixed point. Report the bank as the runaway left it: the junctions held at the
+            // temperatures it reached, the chopper and the losses consistent with them, and the
+            // junction temperatures those losses would produce (one step of the thermal map).
+            runaway = true;
+            runawayState = next;
+            p.isothermal = true;
+            p.isothermalTjPerDevice_C.clear();
+            for (const auto& dv : next.devices)
+                p.isothermalTjPerDevice_C.push_back(dv.tj_C);
+            next = solveBank(p, &runawayState);
+        }
+        if (!next.converged) {
+            // No state to report: the simple model's numbers, with the network's verdict.
+            BankSolve simple = solveBankSimple(c, demand);
+            simple.problem = p;
+            simple.bank.converged = false;
+            simple.bank.stable = false;
+            simple.bank.failure = next.reason;
+            simple.bank.loopGain.reset();
+            return simple;
+        }
+        b = std::move(next);
+        have = true;
+        const std::array<double, 3> g{b.commonNode_V - b.incrementalResistance_ohm * b.load_A,
+                                      b.incrementalResistance_ohm,
+                                      b.heatsink_C + e.diodeLoss_W / c.diodes * diodeR};
+        const std::array<double, 3> scale{std::max(std::abs(b.commonNode_V), 0.01),
+                                          std::max(std::abs(b.incrementalResistance_ohm), 1e-6), 1.0};
+        std::array<double, 3> f{};
+        double fmax = 0.0;
+        for (int i = 0; i < 3; ++i) {
+            f[i] = (g[i] - y[i]) / scale[i];
+            fmax = std::max(fmax, std::abs(f[i]));
+        }
+        // Settled to well below what the inner solves resolve (their temperatures to 1e-6 K); the
+        // first round's waveform came from the simple model, not from y.
+        if (round > 0 && fmax <= 1e-7) {
+            settled = true;
+            break;
+        }
+        std::array<double, 3> yNext = g;
+        if (havePrev) {
+            double num = 0.0, den = 0.0;
+            for (int i = 0; i < 3; ++i) {
+                const double df = f[i] - fPrev[i];
+                num += f[i] * df;
+                den += df * df;
+            }
+            if (den > 0.0 && std::isfinite(num / den))
+                for (int i = 0; i < 3; ++i)
+                    yNext[i] = g[i] - (num / den) * (g[i] - gPrev[i]);
+        }
+        gPrev = g;
+        fPrev = f;
+        havePrev = round > 0;
+        y = yNext;
+        Electrical ne;
+        ne.switchDrop_V = y[0];
+        runChopper(c, demand, y[0], std::max(y[1], 0.0), y[2], ne);
+        e = std::move(ne);
+    }
+    s.network = true;
+    s.electrical = std::move(e);
+    s.solution = std::move(b);
+    // Junctions, cases and sink from the thermal network of the reported losses and diode heat
+    // (T = T_amb + Z·P + z_s·P_diode). At a fixed point this moves them by less than the solves'
+    // tolerance; after a runaway it is one step of the thermal map from where the bank ran away.
+    {
+        const BankProblem& bp = s.problem;
+        const double diodeLoss = s.electrical.diodeLoss_W;
+        const ThermalMatrices th = buildThermalMatrices(
+            {static_cast<int>(n), bp.part.rthJc_KperW, bp.rthCs_KperW, bp.rthSa_KperW, bp.neighbourCoupling_KperW});
+        double total = diodeLoss;
+        for (std::size_t k = 0; k < n; ++k) {
+            double t = bp.ambient_C + th.zSink[k] * diodeLoss;
+            for (std::size_t j = 0; j < n; ++j)
+                t += th.at(static_cast<int>(k), static_cast<int>(j)) * s.solution.devices[j].loss_W;
+            s.solution.devices[k].tj_C = t;
+            s.solution.devices[k].tcase_C = t - bp.part.rthJc_KperW * s.solution.devices[k].loss_W;
+            total += s.solution.devices[k].loss_W;
+        }
+        s.solution.heatsink_C = bp.ambient_C + bp.rthSa_KperW * total;
+        s.tjDiode_C = s.solution.heatsink_C + diodeLoss / c.diodes * diodeR;
+    }
+    if (runaway) {
+        bankResultFrom(runawayState, s.bank);
+        s.bank.maxMinCurrentRatio = s.solution.maxMinCurrentRatio;
+        return s;
+    }
+    bankResultFrom(s.solution, s.bank);
+    if (s.solution.converged && !settled) {
+        s.bank.converged = false;
+        s.bank.stable = false;
+        s.bank.failure = fmt::format("the bank and the chopper did not settle together in {} rounds",
+                                     kMaxCouplingRounds);
+    }
     return s;
 }
 
@@ -567,32 +742,38 @@ void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t in
             "Lower the controller's current limit (pwm.currentLimit_A)", "pwm.currentLimit_A", name));
     }
 
-    // Thermal runaway of the bank.
+    // Thermal runaway of the bank (core/bank/banksolver.h).
     {
         const auto& b = op.bank;
         Severity sev = Severity::Pass;
         std::string message;
+        const std::string onset =
+            b.runawayLoad_A ? fmt::format("; it runs away above {} A (device {} first)", num(*b.runawayLoad_A, 4),
+                                          b.firstToFail.value_or(0))
+                            : std::string();
         if (!b.converged) {
             sev = Severity::Fail;
-            message = fmt::format("{}: {}", name, b.failure);
-        } else if (b.loopGain) {
-            sev = b.stable ? Severity::Pass : Severity::Fail;
-            message = fmt::format("{}: electrothermal loop gain {} ({} mode){}", name, num(*b.loopGain),
-                                  b.dominantMode, b.stable ? "" : ": the bank runs away");
+            message = fmt::format("{}: {}{}", name, b.failure,
+                                  b.firstToFail ? fmt::format(" (device {} first)", *b.firstToFail) : std::string());
+        } else if (!b.stable) {
+            sev = Severity::Fail;
+            message = b.loopGain && *b.loopGain >= 1.0
+                          ? fmt::format("{}: electrothermal loop gain {} ≥ 1 ({} mode): the bank runs away, device {} "
+                                        "first{}",
+                                        name, num(*b.loopGain), b.dominantMode, b.firstToFail.value_or(0), onset)
+                          : fmt::format("{}: no steady state below T_j,max: device {} would pass it (loop gain {}){}",
+                                        name, b.firstToFail.value_or(0), num(b.loopGain.value_or(0.0)), onset);
         } else {
-            sev = Severity::Advice;
-            message = part.kind == "mosfet"
-                          ? fmt::format("{}: the loop gain is not computed for a bank of {} devices", name,
-                                        op.devices.size())
-                          : fmt::format("{}: runaway is not assessed for a {} bank by the simple saturated model",
-                                        name, part.kind);
+            message = fmt::format("{}: electrothermal loop gain {} ({} mode), bank current and duty held{}", name,
+                                  num(b.loopGain.value_or(0.0)), b.dominantMode, onset);
         }
         out.push_back(makeCheck(
-            "bank.thermal-runaway", sev, b.loopGain.value_or(0.0), 1.0, "",
-            "electrothermal fixed point; loop gain = spectral radius of (∂P/∂T)·Z_th with the motor current held",
+            "bank.runaway", sev, b.loopGain.value_or(1.0), 1.0, "",
+            "electrothermal fixed point below T_j,max; loop gain = the largest eigenvalue of (∂P/∂T)·Z_th with the "
+            "bank current and duty held (core/bank/banksolver.h)",
             std::move(message),
-            "Lower the thermal resistance (heatsink.part.rthSa_KperW), add devices (bank.count) or ballast "
-            "(bank.ballast_ohm)",
+            "Add emitter/source ballast (bank.ballast_ohm), lower the thermal resistance (heatsink.part.rthSa_KperW) "
+            "or add devices (bank.count)",
             "bank.ballast_ohm", name));
     }
 
@@ -602,15 +783,19 @@ void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t in
         out.push_back(makeCheck(
             "bank.sharing", ratio > d.bank.sharingTarget ? Severity::Warning : Severity::Pass, ratio,
             d.bank.sharingTarget, "", "bank.sharingTarget (accepted max/min device current ratio)",
-            fmt::format("{}: the most and least loaded devices carry currents in the ratio {}", name, num(ratio, 4)),
-            "Match the devices or add source ballast (bank.ballast_ohm)", "bank.ballast_ohm", name));
+            fmt::format("{}: the most and least loaded devices carry currents in the ratio {}{}", name, num(ratio, 4),
+                        op.bank.minimumBallast_ohm && *op.bank.minimumBallast_ohm > 0.0
+                            ? fmt::format("; {} Ω of ballast per device brings it within {}",
+                                          num(*op.bank.minimumBallast_ohm, 3), num(d.bank.sharingTarget, 3))
+                            : std::string()),
+            "Match the devices or add source/emitter ballast (bank.ballast_ohm)", "bank.ballast_ohm", name));
     }
 }
 
 // ---------------------------------------------------------------------------------------------
 // One duty-profile segment.
 
-OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::size_t index) {
+OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::size_t index, bool full) {
     const Design& d = *c.design;
     OperatingPointResult op;
     op.name = seg.name.empty() ? fmt::format("Segment {}", index + 1) : seg.name;
@@ -665,7 +850,7 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
         }
     }
 
-    BankSolve s = solveBank(c, demand);
+    BankSolve s = solveBankPoint(c, demand);
     const Electrical& e = s.electrical;
     const ChopperSolution& ch = e.chopper;
     const ChopperWaveform& w = ch.waveform;
@@ -696,10 +881,13 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
         speed_radps = speedForBackEmf(c.motor, w.motorAverage_A, ch.backEmf_V);
     if (w.mode == ConductionMode::NoCurrent)
         op.notes.push_back("no current flows: the back-EMF is at or above the bus voltage, or the duty is zero");
-    if (!c.mosfet)
-        op.notes.push_back(fmt::format("{} bank: simple saturated model V_CE = V_CE(sat) + (r_C + r_E)·I, no temperature "
-                                       "dependence; the full bipolar network solve comes with the bank solver",
-                                       d.bank.device.kind));
+    if (!s.network)
+        op.notes.push_back(fmt::format("the bank's network has no state to report ({}); the device figures use the "
+                                       "simple resistive model{}",
+                                       s.bank.failure,
+                                       c.mosfet ? "" : " V_CE = V_CE(sat) + (r_C + r_E)·I of a saturated bipolar"));
+    if (const std::string drive = baseDriveNote(d, c.bankProblem); !drive.empty())
+        op.notes.push_back(drive);
 
     const double iAvg = w.motorAverage_A;
     const double iRms = w.motorRms_A;
@@ -736,39 +924,73 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     const std::size_t n = d.bank.devices.size();
     const double duty = w.duty;
     op.devices.resize(n);
-    for (std::size_t k = 0; k < n; ++k) {
-        DeviceResult& dv = op.devices[k];
-        const double share = e.sharing.share[k];
-        dv.share = share;
-        dv.averageCurrent_A = share * w.switchAverage_A;
-        dv.rmsCurrent_A = share * w.switchRms_A;
-        dv.current_A = duty > 0.0 ? dv.averageCurrent_A / duty : 0.0;
-        dv.ratingShare = d.bank.device.currentRating_A > 0.0 ? dv.current_A / d.bank.device.currentRating_A : 0.0;
-        dv.voltage_V = dv.current_A > 0.0 ? e.switchDrop_V + e.device_ohm[k] * dv.current_A : 0.0;
-        dv.conduction_W = e.conduction_W[k];
-        dv.ballast_W = c.ballast_ohm[k] * dv.rmsCurrent_A * dv.rmsCurrent_A;
-        dv.leg_W = c.leg_ohm[k] * dv.rmsCurrent_A * dv.rmsCurrent_A;
-        dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
-        dv.tj_C = s.thermal.junction_C[k];
-        dv.tcase_C = s.thermal.case_C[k];
-        op.bankLoss_W += dv.loss_W + dv.ballast_W + dv.leg_W;
+    if (s.network) {
+        // The network's per-device state (core/bank/): on-state current and drop, losses averaged
+        // with the waveform's RMS factor, junctions from the shared thermal network.
+        const BankSolution& b = s.solution;
+        for (std::size_t k = 0; k < n; ++k) {
+            DeviceResult& dv = op.devices[k];
+            const BankDeviceState& bd = b.devices[k];
+            dv.share = bd.share;
+            dv.averageCurrent_A = bd.share * w.switchAverage_A;
+            dv.rmsCurrent_A = bd.share * w.switchRms_A;
+            dv.current_A = bd.current_A;
+            dv.ratingShare = bd.ratingShare;
+            dv.voltage_V = bd.voltage_V;
+            if (!c.mosfet) {
+                // Base drive: I_B·V_BE at the pins heats the device; the driver also feeds the
+                // emitter path. Neither comes from the bus.
+                dv.drive_W = b.powerScale * bd.driveCurrent_A * bd.controlVoltage_V;
+                op.baseDrive_W +=
+                    b.powerScale * bd.driveCurrent_A * (bd.controlVoltage_V + b.commonNode_V - bd.voltage_V);
+            }
+            dv.conduction_W = bd.conduction_W - dv.drive_W;
+            dv.switching_W = bd.switching_W;
+            dv.ballast_W = bd.ballast_W;
+            dv.leg_W = bd.leg_W;
+            dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
+            dv.tj_C = bd.tj_C;
+            dv.tcase_C = bd.tcase_C;
+            op.bankLoss_W += dv.loss_W + dv.ballast_W + dv.leg_W;
+        }
+        op.freewheelDiode.tj_C = s.tjDiode_C;
+        op.heatsinkTemperature_C = b.heatsink_C;
+    } else {
+        for (std::size_t k = 0; k < n; ++k) {
+            DeviceResult& dv = op.devices[k];
+            const double share = e.sharing.share[k];
+            dv.share = share;
+            dv.averageCurrent_A = share * w.switchAverage_A;
+            dv.rmsCurrent_A = share * w.switchRms_A;
+            dv.current_A = duty > 0.0 ? dv.averageCurrent_A / duty : 0.0;
+            dv.ratingShare =
+                d.bank.device.currentRating_A > 0.0 ? dv.current_A / d.bank.device.currentRating_A : 0.0;
+            dv.voltage_V = dv.current_A > 0.0 ? e.switchDrop_V + e.device_ohm[k] * dv.current_A : 0.0;
+            dv.conduction_W = e.conduction_W[k];
+            dv.ballast_W = c.ballast_ohm[k] * dv.rmsCurrent_A * dv.rmsCurrent_A;
+            dv.leg_W = c.leg_ohm[k] * dv.rmsCurrent_A * dv.rmsCurrent_A;
+            dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
+            dv.tj_C = s.thermal.junction_C[k];
+            dv.tcase_C = s.thermal.case_C[k];
+            op.bankLoss_W += dv.loss_W + dv.ballast_W + dv.leg_W;
+        }
+        op.freewheelDiode.tj_C = s.thermal.junction_C.back();
+        op.heatsinkTemperature_C = s.thermal.heatsink_C;
     }
     op.freewheelDiode.averageCurrent_A = w.diodeAverage_A;
     op.freewheelDiode.rmsCurrent_A = w.diodeRms_A;
     op.freewheelDiode.loss_W = e.diodeLoss_W;
-    op.freewheelDiode.tj_C = s.thermal.junction_C.back();
     op.totalLoss_W = op.bankLoss_W + op.freewheelDiode.loss_W;
     if (op.inputPower_W > 1e-9)
         op.efficiency = op.motorInputPower_W / op.inputPower_W;
-    op.heatsinkTemperature_C = s.thermal.heatsink_C;
     op.bank = s.bank;
+    if (full && s.network)
+        addBankStudies(d, s.problem, op.bank);
     spdlog::debug("evaluate: {} settled in {} iterations", op.name, s.iterations);
     return op;
 }
 
-} // namespace
-
-Results evaluate(const Design& input) {
+Results evaluateImpl(const Design& input, bool full) {
     Results r;
     r.design = input.meta.title;
     r.topology = input.pwm.topology;
@@ -795,15 +1017,13 @@ Results evaluate(const Design& input) {
     }
     r.warnings.push_back("device losses are conduction losses only: switching, gate-drive and recovery losses are "
                          "not computed yet");
-    if (d.bank.device.kind == "mosfet")
-        r.warnings.push_back("the MOSFETs are taken as fully enhanced by the gate drive");
     if (d.dutyProfile.empty())
         r.warnings.push_back("the duty profile is empty: no operating point to evaluate");
 
     const Context context = makeContext(d);
     bool any = false;
     for (std::size_t i = 0; i < d.dutyProfile.size(); ++i) {
-        OperatingPointResult op = evaluateSegment(context, d.dutyProfile[i], i);
+        OperatingPointResult op = evaluateSegment(context, d.dutyProfile[i], i, full);
         if (!op.notes.empty() && op.devices.empty()) {
             // The segment could not be set up: its reasons are input problems.
             for (const auto& note : op.notes)
@@ -823,5 +1043,11 @@ Results evaluate(const Design& input) {
     addProtection(d, r);
     return r;
 }
+
+} // namespace
+
+Results evaluate(const Design& design) { return evaluateImpl(design, false); }
+
+Results evaluateFull(const Design& design) { return evaluateImpl(design, true); }
 
 } // namespace amp

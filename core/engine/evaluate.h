@@ -11,4 +11,11 @@ namespace amp {
 
 Results evaluate(const Design& design);
 
+/// evaluate() plus the bank's slower studies at every operating point (core/engine/stage_bank.h):
+/// the runaway load (scan and bisection up to the current limit), the minimum ballast, the Monte
+/// Carlo run over bank.spread with its worst-case corner, and the switching-imbalance estimate.
+/// Tens of milliseconds per point instead of a fraction of one: for reports and the command line,
+/// not for every edit.
+Results evaluateFull(const Design& design);
+
 } // namespace amp

@@ -56,17 +56,44 @@ struct DiodeResult {
     double tj_C = 0.0;
 };
 
+/// Nearest-rank percentiles of a Monte Carlo distribution; empty when the rank falls among
+/// samples that have no stable state ("beyond runaway").
+struct BankPercentiles {
+    std::optional<double> p50;
+    std::optional<double> p95;
+    std::optional<double> p99;
+};
+
+/// Monte Carlo over bank.spread and the worst-case corner (evaluateFull only; bank/spread.h).
+struct BankSpreadResult {
+    int samples = 0;
+    long long seed = 0;
+    BankPercentiles tjMax_C;        ///< the bank's hottest junction
+    BankPercentiles maxShare;       ///< the largest device share of the bank current
+    double runawayFraction = 0.0;   ///< samples not stable (loop gain ≥ 1, no fixed point, T_j ≥ T_j,max)
+    std::optional<double> cornerTjMax_C; ///< worst-case corner's hottest junction (empty: it runs away)
+    double cornerMaxMinCurrentRatio = 1.0;
+    std::optional<int> cornerDevice;     ///< device at the favourable extreme in the worst corner
+};
+
 /// Results of the bank's electrothermal solve in one operating point (see bank/).
 struct BankResult {
     bool converged = true;
     std::string failure;            ///< reason when not converged
     bool stable = true;
-    std::optional<double> loopGain; ///< empty when there is no fixed point
+    /// Largest real eigenvalue of (∂P/∂T)·Z_th with the bank current and duty held: equal to the
+    /// spectral radius whenever the feedback is positive (every runaway); ≥ 1 runs away. Empty
+    /// when there is no fixed point.
+    std::optional<double> loopGain;
     std::string dominantMode = "common"; ///< "common" or "differential"
-    std::optional<double> runawayLoad_A;
+    std::optional<double> runawayLoad_A; ///< evaluateFull: onset of runaway up to the current limit
     std::optional<int> firstToFail;
     double maxMinCurrentRatio = 1.0;
-    std::optional<double> minimumBallast_ohm;
+    std::optional<double> minimumBallast_ohm; ///< evaluateFull: stable and within bank.sharingTarget
+    std::vector<double> minimumBallastPower_W; ///< evaluateFull: each ballast resistor at that value
+    std::optional<double> minimumBallastEfficiencyCost; ///< their power over the bank's input power
+    std::optional<double> switchingImbalance_W; ///< evaluateFull: extra switching power of the worst device
+    std::optional<BankSpreadResult> spread;     ///< evaluateFull
 };
 
 /// One operating point (one duty-profile segment).
@@ -101,6 +128,7 @@ struct OperatingPointResult {
     double motorCopperLoss_W = 0.0;
     double motorCableLoss_W = 0.0;
     double contactorLoss_W = 0.0;   ///< reversing contactor contacts in the armature path
+    double baseDrive_W = 0.0;       ///< power the base drive delivers into a bipolar bank (not from the bus)
     double motorMechanicalLoss_W = 0.0; ///< no-load (friction, iron) loss k·I0·ω
     double bankLoss_W = 0.0;        ///< switches + ballast + legs
     double totalLoss_W = 0.0;       ///< power stage: bank + ballast + freewheel diodes

@@ -59,6 +59,34 @@ json bankJson(const BankResult& b, const std::string& where) {
     j["firstToFail"] = b.firstToFail ? json(*b.firstToFail) : json(nullptr);
     j["maxMinCurrentRatio"] = number(b.maxMinCurrentRatio, where + ".maxMinCurrentRatio");
     j["minimumBallast_ohm"] = number(b.minimumBallast_ohm, where + ".minimumBallast_ohm");
+    json ballast = json::array();
+    for (std::size_t k = 0; k < b.minimumBallastPower_W.size(); ++k)
+        ballast.push_back(number(b.minimumBallastPower_W[k], where + ".minimumBallastPower_W"));
+    j["minimumBallastPower_W"] = std::move(ballast);
+    j["minimumBallastEfficiencyCost"] = number(b.minimumBallastEfficiencyCost, where + ".minimumBallastEfficiencyCost");
+    j["switchingImbalance_W"] = number(b.switchingImbalance_W, where + ".switchingImbalance_W");
+    if (b.spread) {
+        const BankSpreadResult& s = *b.spread;
+        auto pct = [&](const BankPercentiles& p, const std::string& at) {
+            json o;
+            o["p50"] = number(p.p50, at + ".p50");
+            o["p95"] = number(p.p95, at + ".p95");
+            o["p99"] = number(p.p99, at + ".p99");
+            return o;
+        };
+        json o;
+        o["samples"] = s.samples;
+        o["seed"] = s.seed;
+        o["tjMax_C"] = pct(s.tjMax_C, where + ".spread.tjMax_C");
+        o["maxShare"] = pct(s.maxShare, where + ".spread.maxShare");
+        o["runawayFraction"] = number(s.runawayFraction, where + ".spread.runawayFraction");
+        o["cornerTjMax_C"] = number(s.cornerTjMax_C, where + ".spread.cornerTjMax_C");
+        o["cornerMaxMinCurrentRatio"] = number(s.cornerMaxMinCurrentRatio, where + ".spread.cornerMaxMinCurrentRatio");
+        o["cornerDevice"] = s.cornerDevice ? json(*s.cornerDevice) : json(nullptr);
+        j["spread"] = std::move(o);
+    } else {
+        j["spread"] = nullptr;
+    }
     return j;
 }
 
@@ -95,6 +123,7 @@ json pointJson(const OperatingPointResult& p, const std::string& where) {
     put("motorCopperLoss_W", p.motorCopperLoss_W);
     put("motorCableLoss_W", p.motorCableLoss_W);
     put("contactorLoss_W", p.contactorLoss_W);
+    put("baseDrive_W", p.baseDrive_W);
     put("motorMechanicalLoss_W", p.motorMechanicalLoss_W);
     put("bankLoss_W", p.bankLoss_W);
     put("totalLoss_W", p.totalLoss_W);

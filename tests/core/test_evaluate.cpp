@@ -116,6 +116,9 @@ double interfaceR(const Design& d) {
 void requireFiniteJson(const json& j, const std::string& path, std::vector<std::string>& bad) {
     static const std::set<std::string> nullable{"efficiency", "loopGain", "runawayLoad_A", "firstToFail",
                                                 "minimumBallast_ohm",
+                                                // bank studies (evaluateFull) and Monte Carlo percentiles
+                                                "minimumBallastEfficiencyCost", "switchingImbalance_W", "spread",
+                                                "p50", "p95", "p99", "cornerTjMax_C", "cornerDevice",
                                                 // protection stage: sections not computed, values not stated
                                                 "reversal", "contactor", "mainDisconnect", "precharge", "cable",
                                                 "motorCable", "fuse", "continuousMargin", "electricalLife_years",
@@ -209,7 +212,8 @@ class TestEvaluate : public QObject {
             double bank = 0.0;
             for (const auto& dv : p.devices)
                 bank += dv.loss_W + dv.ballast_W + dv.leg_W;
-            const double parts = p.motorInputPower_W + bank + p.freewheelDiode.loss_W;
+            // A bipolar bank's base drive comes from the driver, not the bus.
+            const double parts = p.motorInputPower_W + bank - p.baseDrive_W + p.freewheelDiode.loss_W;
             QVERIFY2(std::abs(input - parts) <= 1e-6 * std::max(1.0, input),
                      qPrintable(QString("%1: V_bus·I_bat %2 W vs parts %3 W").arg(p.name.c_str()).arg(input, 0, 'g', 12).arg(parts, 0, 'g', 12)));
             // The motor side: terminal input = mechanical + copper + cable + contacts + no-load.
@@ -282,8 +286,12 @@ class TestEvaluate : public QObject {
                                     dev.legResistanceDeviation_ohm;
                 drop.push_back(p.devices[k].current_A * path);
             }
+            // The bank network (core/bank/) models the channel as a square-law device joined to the
+            // drift at R_ds(on). The 12 V gate drive is above the 10 V at which R_ds(on) is stated, so
+            // the channel sits up to ~1 % below the stated law (mosfetmodel.h: full-enhancement knee),
+            // in proportion to each die; with unequal ballast beside it, I·R_law agrees to 3e-3.
             for (const double v : drop)
-                QVERIFY2(test::relDiff(v, drop.front()) < 1e-6, qPrintable(QString("%1 vs %2").arg(v).arg(drop.front())));
+                QVERIFY2(test::relDiff(v, drop.front()) < 3e-3, qPrintable(QString("%1 vs %2").arg(v).arg(drop.front())));
             double shares = 0.0;
             for (const auto& dv : p.devices)
                 shares += dv.share;
@@ -374,7 +382,7 @@ class TestEvaluate : public QObject {
         QVERIFY(!p.bank.failure.empty());
         QVERIFY(!p.bank.loopGain);
         QCOMPARE(p.bank.firstToFail.value_or(-1), 0);
-        const auto* c = findCheck(r, "bank.thermal-runaway");
+        const auto* c = findCheck(r, "bank.runaway");
         QVERIFY(c);
         QCOMPARE(c->severity, Severity::Fail);
         QCOMPARE(worstSeverity(r.checks), Severity::Fail);
