@@ -25,77 +25,111 @@ void fill(BallastSearch& r, const BankProblem& p, double ohm, const BankSolution
 
 } // namespace
 
-BallastSearch findMinimumBallast(const BankProblem& problem, double target, double maxBallast_ohm) {
+BallastSearch findMinimumBallast(const BankProblem& problem, double target, double maxBallast_ohm,
+                                 const std::function<BankProblem(double)>& withBallast) {
     BallastSearch r;
     if (!validateBankProblem(problem).empty() || !(target >= 1.0) || !(maxBallast_ohm > 0.0)) {
         r.reason = "not searched: invalid problem, target or limit";
         return r;
     }
-    BankProblem p = problem;
-    auto solveWith = [&](double ohm, const BankSolution* warm) {
+    auto problemWith = [&](double ohm) {
+        if (withBallast)
+            return withBallast(ohm);
+        BankProblem p = problem;
         p.ballast_ohm = ohm;
-        ++r.solves;
-        return solveBank(p, warm);
+        return p;
     };
-    BankSolution s = solveWith(0.0, nullptr);
-    if (passes(s, target)) {
-        fill(r, p, 0.0, s);
-        r.reason = "no ballast needed";
+    BankSolution warm;
+    bool haveWarm = false;
+    auto solveWith = [&](double ohm) {
+        ++r.solves;
+        BankSolution s = solveBank(problemWith(ohm), haveWarm ? &warm : nullptr);
+        if (s.converged) {
+            warm = s;
+            haveWarm = true;
+        }
+        return s;
+    };
+    auto shares = [&](const BankSolution& s) { return s.converged && s.maxMinCurrentRatio <= target; };
+    auto done = [&](double ohm, const BankSolution& s) {
+        fill(r, problemWith(ohm), ohm, s);
         return r;
+    };
+
+    BankSolution s = solveWith(0.0);
+    if (passes(s, target)) {
+        r.reason = "no ballast needed";
+        return done(0.0, s);
     }
-    double lo = 0.0;
-    double hi = 0.0;
-    BankSolution good;
+    // 1. The smallest ballast that meets the sharing target.
+    double lo = 0.0, hi = 0.0;
+    BankSolution atHi;
     bool found = false;
-    BankSolution last = s;
     for (double ohm = 1e-4; ohm <= maxBallast_ohm * (1.0 + 1e-12); ohm *= 2.0) {
-        const BankSolution t = solveWith(ohm, last.converged ? &last : nullptr);
-        if (passes(t, target)) {
+        const BankSolution t = solveWith(ohm);
+        if (t.failure == BankFailure::CannotCarryLoad)
+            break;
+        if (shares(t)) {
             hi = ohm;
-            good = t;
+            atHi = t;
             found = true;
             break;
         }
         lo = ohm;
-        last = t;
     }
     if (!found) {
-        const BankSolution t = solveWith(maxBallast_ohm, nullptr);
-        if (passes(t, target)) {
-            hi = maxBallast_ohm;
-            good = t;
-            found = true;
-        } else {
-            r.solution = t;
-            std::ostringstream os;
-            os.precision(4);
-            if (t.converged && t.maxMinCurrentRatio <= target && t.overTemperature)
-                os << "no ballast up to " << maxBallast_ohm << " Ω helps: the junctions exceed T_j,max even when the "
-                   << "devices share (the heatsink or the device count is too small)";
-            else if (t.failure == BankFailure::CannotCarryLoad)
-                os << "ballast above " << lo << " Ω leaves too little drive to hold the bank on";
-            else
-                os << "no ballast up to " << maxBallast_ohm << " Ω meets stability and a max/min current of "
-                   << target;
-            r.reason = os.str();
-            return r;
-        }
+        r.solution = s;
+        std::ostringstream os;
+        os.precision(4);
+        os << "no ballast up to " << std::min(maxBallast_ohm, std::max(lo, 1e-4) * 2.0)
+           << " Ω brings the max/min current within " << target
+           << " (beyond it the drive can no longer hold the bank on, or the limit is reached)";
+        r.reason = os.str();
+        return r;
     }
-    // Bisection on log R between the last failing value (or 0) and the first passing one.
     if (lo <= 0.0)
         lo = hi / 2.0;
     while (hi / lo > 1.01) {
         const double mid = std::sqrt(lo * hi);
-        const BankSolution t = solveWith(mid, &good);
-        if (passes(t, target)) {
+        const BankSolution t = solveWith(mid);
+        if (shares(t)) {
             hi = mid;
-            good = t;
+            atHi = t;
         } else {
             lo = mid;
         }
     }
-    p.ballast_ohm = hi;
-    fill(r, p, hi, good);
+    if (atHi.stable)
+        return done(hi, atHi);
+    // 2. It shares but is not stable there: look a little higher for a value that is both.
+    const double sharing = hi;
+    double below = hi;
+    for (double ohm = hi * 1.05; ohm <= std::min(4.0 * sharing, maxBallast_ohm) * (1.0 + 1e-12); ohm *= 1.05) {
+        const BankSolution t = solveWith(ohm);
+        if (passes(t, target)) {
+            double a = below, b = ohm;
+            BankSolution atB = t;
+            while (b / a > 1.01) {
+                const double mid = std::sqrt(a * b);
+                const BankSolution u = solveWith(mid);
+                if (passes(u, target)) {
+                    b = mid;
+                    atB = u;
+                } else {
+                    a = mid;
+                }
+            }
+            return done(b, atB);
+        }
+        below = ohm;
+    }
+    r.solution = atHi;
+    std::ostringstream os;
+    os.precision(4);
+    os << sharing << " Ω brings the max/min current within " << target << ", but the bank is not stable there"
+       << (atHi.overTemperature ? " (a junction stays above T_j,max)" : "")
+       << " nor with up to four times that: ballast cannot fix an undersized heatsink or a starved drive";
+    r.reason = os.str();
     return r;
 }
 

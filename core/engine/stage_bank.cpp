@@ -47,6 +47,21 @@ double baseVoltage(const Design& d, double ic_A, double earlyVoltage_V) {
 
 } // namespace
 
+// The shared base-drive resistance of a bipolar/Darlington bank (see the header); the design's
+// driver resistance for MOSFETs.
+double driveResistanceFor(const Design& d, double ballast_ohm, double earlyVoltage_V) {
+    if (d.bank.device.kind != "bipolar" && d.bank.device.kind != "darlington")
+        return d.drive.driverResistance_ohm;
+    Design sized = d;
+    sized.bank.ballast_ohm = ballast_ohm;
+    const int n = std::max(d.bank.count, 1);
+    const double ib = designBaseCurrent(d);
+    const double vb = baseVoltage(sized, designCollectorCurrent(d) / n, earlyVoltage_V);
+    if (ib > 0.0 && d.drive.supply_V > vb)
+        return std::max(0.0, (d.drive.supply_V - vb) / ib - d.bank.gateResistor_ohm / n);
+    return d.drive.driverResistance_ohm;
+}
+
 BankProblem bankProblemFor(const Design& d) {
     BankProblem p;
     p.part = d.bank.device;
@@ -57,16 +72,7 @@ BankProblem bankProblemFor(const Design& d) {
     p.legResistance_ohm = d.bank.legResistance_ohm;
     p.pulldown_ohm = d.drive.pulldown_ohm;
     p.driveVoltage_V = d.drive.supply_V;
-    p.driveResistance_ohm = d.drive.driverResistance_ohm;
-    if (d.bank.device.kind == "bipolar" || d.bank.device.kind == "darlington") {
-        const int n = std::max(d.bank.count, 1);
-        const double ib = designBaseCurrent(d);
-        const double vb = baseVoltage(d, designCollectorCurrent(d) / n, p.earlyVoltage_V);
-        if (ib > 0.0 && d.drive.supply_V > vb) {
-            const double total = (d.drive.supply_V - vb) / ib;
-            p.driveResistance_ohm = std::max(0.0, total - d.bank.gateResistor_ohm / n);
-        }
-    }
+    p.driveResistance_ohm = driveResistanceFor(d, d.bank.ballast_ohm, p.earlyVoltage_V);
     p.feed = BankFeed::Current;
     p.busVoltage_V = d.supply.nominal_V;
     p.ambient_C = d.heatsink.ambient_C;
@@ -103,7 +109,14 @@ void addBankStudies(const Design& d, const BankProblem& p, BankResult& bank) {
     if (!bank.firstToFail && run.firstToFail)
         bank.firstToFail = run.firstToFail;
 
-    const BallastSearch ballast = findMinimumBallast(p, d.bank.sharingTarget, 10.0);
+    // The design's base drive is sized with its ballast in the path: each trial value re-sizes it
+    // as the design would be (bankProblemFor).
+    const BallastSearch ballast = findMinimumBallast(p, d.bank.sharingTarget, 10.0, [&](double ohm) {
+        BankProblem q = p;
+        q.ballast_ohm = ohm;
+        q.driveResistance_ohm = driveResistanceFor(d, ohm, p.earlyVoltage_V);
+        return q;
+    });
     bank.minimumBallast_ohm = ballast.ballast_ohm;
     if (ballast.ballast_ohm) {
         bank.minimumBallastPower_W = ballast.ballastPower_W;

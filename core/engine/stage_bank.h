@@ -23,7 +23,8 @@
 // by the caller.
 //
 // Studies (per point, for evaluateFull): runaway load by scan and bisection up to the current
-// limit (bank/runaway.h), minimum ballast for stability and bank.sharingTarget (bank/ballast.h),
+// limit (bank/runaway.h), minimum ballast for stability and bank.sharingTarget (bank/ballast.h;
+// a bipolar bank's base drive re-sized for each ballast value, as the design would size it),
 // Monte Carlo over bank.spread with its worst-case corner (bank/spread.h; the chopper waveform and
 // the diode heat are held at the point's values for every sample), and the switching-imbalance
 // estimate at the PWM frequency and bus voltage (bank/switchingimbalance.h).
