@@ -1,0 +1,104 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "core/thermal/stall.h"
+
+#include <algorithm>
+#include <cmath>
+
+namespace amp::thermal {
+
+StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& start, double ambient_C,
+                             const TransientLosses& losses, const std::vector<double>& limit,
+                             const StallOptions& opt) {
+    StallResult out;
+    for (const std::string& p : validateNetwork(net))
+        out.problems.push_back(p);
+    const std::size_t n = net.sources.size();
+    if (limit.size() != n)
+        out.problems.push_back("One junction limit per source is needed");
+    if (!losses.resolve)
+        out.problems.push_back("No loss model was given");
+    if (!(opt.firstStep_s > 0.0) || !(opt.growth >= 1.0) || !(opt.maxStep_s >= opt.firstStep_s))
+        out.problems.push_back("The stall-time step options are inconsistent");
+    if (!out.problems.empty())
+        return out;
+    out.ok = true;
+
+    TransientStepper stepper(net, start);
+    std::vector<double> tj(n), tjRef(n), powerRef(n, 0.0), power(n, 0.0), next(n);
+    for (std::size_t k = 0; k < n; ++k) {
+        tj[k] = stepper.junction_C(k);
+        out.startTj_C = k == 0 ? tj[k] : std::max(out.startTj_C, tj[k]);
+        if (tj[k] >= limit[k] && !out.timeToLimit_s) {
+            out.timeToLimit_s = 0.0;
+            out.firstSource = k;
+        }
+    }
+    const SteadyState steady = steadyState(net, 0, ambient_C, losses.resolve);
+    if (steady.converged)
+        out.steadyTj_C = *std::max_element(steady.tj_C.begin(), steady.tj_C.end());
+    if (out.timeToLimit_s)
+        return out;
+
+    double longest = 0.0;
+    for (const TransientSource& s : net.sources)
+        for (const FosterStage& f : s.zthJc)
+            longest = std::max(longest, f.tau_s);
+    if (!steady.converged) {
+        // Runaway: the heatsink keeps rising; bound the run by the hottest R_sa on the curve.
+        const double rMax = *std::max_element(net.rsa.rth_KperW.begin(), net.rsa.rth_KperW.end());
+        longest = std::max(longest, rMax * net.heatsinkCapacity_JperK) * 10.0;
+    } else {
+        longest =
+            std::max(longest, net.rsa.at(steady.state.heatsink_C - ambient_C) * net.heatsinkCapacity_JperK);
+    }
+    const double horizon = std::max(10.0 * longest, 10.0 * opt.firstStep_s);
+
+    double t = 0.0, dt = opt.firstStep_s;
+    bool first = true;
+    while (t < horizon) {
+        bool full = first;
+        for (std::size_t k = 0; k < n && !full; ++k)
+            full = std::abs(tj[k] - tjRef[k]) > opt.resolveStep_K;
+        if (full) {
+            losses.resolve(0, tj, powerRef);
+            tjRef = tj;
+            power = powerRef;
+            first = false;
+        } else if (losses.rescale) {
+            losses.rescale(0, tjRef, powerRef, tj, power);
+        } else {
+            power = powerRef;
+        }
+        if (power.size() != n ||
+            std::any_of(power.begin(), power.end(), [](double p) { return !std::isfinite(p); })) {
+            out.ok = false;
+            out.problems.push_back("The loss model returned an invalid power");
+            return out;
+        }
+        stepper.advance(dt, power, ambient_C);
+        double crossing = dt + 1.0;
+        for (std::size_t k = 0; k < n; ++k) {
+            next[k] = stepper.junction_C(k);
+            if (next[k] >= limit[k]) {
+                const double f = next[k] > tj[k] ? (limit[k] - tj[k]) / (next[k] - tj[k]) : 1.0;
+                const double at = std::clamp(f, 0.0, 1.0) * dt;
+                if (at < crossing) {
+                    crossing = at;
+                    out.firstSource = k;
+                }
+            }
+        }
+        if (out.firstSource) {
+            out.timeToLimit_s = t + crossing;
+            out.simulated_s = t + dt;
+            return out;
+        }
+        tj = next;
+        t += dt;
+        dt = std::min(dt * opt.growth, opt.maxStep_s);
+    }
+    out.simulated_s = t;
+    return out;
+}
+
+} // namespace amp::thermal
