@@ -132,6 +132,31 @@ TransientStepper::TransientStepper(const TransientNetwork& net, TransientState s
     if (m_state.stageRise_K.size() != net.sources.size())
         m_state = restState(net, m_state.heatsink_C);
     m_state.power_W.resize(net.sources.size(), 0.0);
+    const RsaCurve& c = net.rsa;
+    for (std::size_t i = 0; i < c.rise_K.size(); ++i) {
+        m_lnRise.push_back(std::log(c.rise_K[i]));
+        m_lnR.push_back(std::log(c.rth_KperW[i]));
+    }
+    for (std::size_t i = 0; i + 1 < m_lnRise.size(); ++i)
+        m_slope.push_back((m_lnR[i + 1] - m_lnR[i]) / (m_lnRise[i + 1] - m_lnRise[i]));
+}
+
+// The same law as RsaCurve::at (log-log interpolation, constant beyond the ends), with the
+// logarithms precomputed and the interval found from the last one: this runs every step.
+double TransientStepper::sinkResistance(double rise) {
+    const std::size_t n = m_lnRise.size();
+    if (n == 1 || !(rise > m_net.rsa.rise_K.front()))
+        return m_net.rsa.rth_KperW.front();
+    if (rise >= m_net.rsa.rise_K.back())
+        return m_net.rsa.rth_KperW.back();
+    const auto& x = m_net.rsa.rise_K;
+    std::size_t i = std::min(m_segment, n - 2);
+    while (i > 0 && rise < x[i])
+        --i;
+    while (i + 2 < n && rise >= x[i + 1])
+        ++i;
+    m_segment = i;
+    return std::exp(m_lnR[i] + m_slope[i] * (std::log(rise) - m_lnRise[i]));
 }
 
 void TransientStepper::advance(double dt, const std::vector<double>& power, double ambient_C) {
@@ -160,7 +185,7 @@ void TransientStepper::advance(double dt, const std::vector<double>& power, doub
     const double c = m_net.heatsinkCapacity_JperK;
     double rise = m_state.heatsink_C - ambient_C;
     if (c > 0.0) {
-        const double r = m_net.rsa.at(rise);
+        const double r = sinkResistance(rise);
         const double a = std::exp(-dt / (r * c));
         rise = rise * a + total * r * (1.0 - a);
     } else {
@@ -249,17 +274,19 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
         out.heatsink_C.clear();
         out.tj_C.assign(n, {});
         double repTime = 0.0, nextSample = 0.0;
+        for (std::size_t k = 0; k < n; ++k)
+            tj[k] = stepper.junction_C(k);
         auto sample = [&]() {
             out.time_s.push_back(repTime);
             out.heatsink_C.push_back(stepper.state().heatsink_C);
             for (std::size_t k = 0; k < n; ++k)
-                out.tj_C[k].push_back(stepper.junction_C(k));
+                out.tj_C[k].push_back(tj[k]);
             nextSample += sampleEvery;
         };
         if (opt.maxSamples > 0)
             sample();
         for (std::size_t k = 0; k < n; ++k)
-            rev[k].add(stepper.junction_C(k));
+            rev[k].add(tj[k]);
 
         for (std::size_t si = 0; si < segments.size(); ++si) {
             const TransientSegment& seg = segments[si];
@@ -268,8 +295,7 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
             const double dt = seg.duration_s / static_cast<double>(steps);
             bool segmentStart = true;
             for (std::size_t step = 0; step < steps; ++step) {
-                for (std::size_t k = 0; k < n; ++k)
-                    tj[k] = stepper.junction_C(k);
+                // tj holds the junctions at the start of this step (end of the last one).
                 bool full = segmentStart || opt.resolveStep_K <= 0.0;
                 if (!full)
                     for (std::size_t k = 0; k < n && !full; ++k)
@@ -303,6 +329,7 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
                 ++out.steps;
                 for (std::size_t k = 0; k < n; ++k) {
                     const double t = stepper.junction_C(k);
+                    tj[k] = t;
                     if (t > out.tjMax_C[k]) {
                         out.tjMax_C[k] = t;
                         out.tjMaxTime_s[k] = time;

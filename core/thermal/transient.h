@@ -136,10 +136,14 @@ class TransientStepper {
     const TransientState& state() const { return m_state; }
 
   private:
+    double sinkResistance(double rise_K);
+
     const TransientNetwork& m_net;
     TransientState m_state;
     double m_cachedDt = -1.0;
-    std::vector<std::vector<double>> m_decay; ///< e^(−dt/τ) per stage for m_cachedDt
+    std::vector<std::vector<double>> m_decay;     ///< e^(−dt/τ) per stage for m_cachedDt
+    std::vector<double> m_lnRise, m_lnR, m_slope; ///< the R_sa curve in log-log form
+    std::size_t m_segment = 0;                    ///< last curve interval used (the rise moves slowly)
 };
 
 /// Validate the network (names the source and stage at fault).
