@@ -71,8 +71,12 @@ AMP_JSON(Bank, device, count, devices, gateResistor_ohm, ballast_ohm,
                                                 legResistance_ohm, derating, sharingTarget,
                                                 neighbourCoupling_KperW, interface, freewheelDiode,
                                                 diodeCount, spread)
+AMP_JSON(HeatsinkGeometry, baseWidth_m, baseLength_m, baseThickness_m, finCount, finHeight_m,
+         finThickness_m, material, orientation, emissivity, airVelocity_mps)
 AMP_JSON(Heatsink, part, ambient_C, insulatedFromTabs, wetLocation,
-                                                exposed)
+                                                exposed, mode, rthReferenceRise_K, rthRiseExponent, geometry)
+AMP_JSON(ThermalStudy, step_s, resolveStep_K, repetitions, untilPeriodic, stallStart, lifeCoefficient,
+         lifeExponent, lifeActivation_eV)
 AMP_JSON(Reversing, present, contactor, suppression, reversalsPerDay,
                                                 stopSpeed_rpm)
 AMP_JSON(Segment, name, duration_s, mode, torque_Nm, speed_rpm,
@@ -81,7 +85,7 @@ AMP_JSON(Wiring, batteryCableLength_m, batteryCable_mm2,
                                                 motorCableLength_m, motorCable_mm2, cableTemperature_C,
                                                 busCapacitance_F)
 AMP_JSON(Design, meta, supply, motor, pwm, drive, bank, heatsink,
-                                                reversing, dutyProfile, wiring)
+                                                reversing, dutyProfile, wiring, thermal)
 
 void normalizeBank(Bank& bank) {
     if (bank.count < 0)
