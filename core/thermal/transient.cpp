@@ -267,6 +267,7 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
     const int reps = std::max(1, opt.repetitions);
     double time = 0.0;
 
+    double lastSinkDrift = std::numeric_limits<double>::quiet_NaN();
     for (int rep = 0; rep < reps; ++rep) {
         const TransientState start = stepper.state();
         std::vector<ReversalTracker> rev(n, ReversalTracker(opt.reversalHysteresis_K));
@@ -359,6 +360,17 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
         out.periodic = drift < opt.periodicTolerance_K;
         if (opt.untilPeriodic && out.periodic)
             break;
+        const double sinkDrift = stepper.state().heatsink_C - start.heatsink_C;
+        if (opt.untilPeriodic && opt.accelerate && std::isfinite(lastSinkDrift) && lastSinkDrift != 0.0) {
+            const double rho = sinkDrift / lastSinkDrift;
+            if (rho > 0.0 && rho < 0.98) {
+                stepper.setHeatsink(stepper.state().heatsink_C + sinkDrift * rho / (1.0 - rho));
+                ++out.extrapolations;
+                lastSinkDrift = std::numeric_limits<double>::quiet_NaN(); // measure afresh after a jump
+                continue;
+            }
+        }
+        lastSinkDrift = sinkDrift;
     }
     out.finalState = stepper.state();
     out.ok = true;

@@ -88,6 +88,11 @@ struct TransientOptions {
     int repetitions = 1;        ///< profile repetitions (upper bound with untilPeriodic)
     bool untilPeriodic = false; ///< stop once a repetition ends where it started
     double periodicTolerance_K = 0.05;
+    /// With untilPeriodic: after two repetitions whose heatsink drifts shrink by a steady ratio ρ
+    /// (the sink is a first-order system, so x_(k+1) − x* = ρ·(x_k − x*)), jump the heatsink to the
+    /// extrapolated x* = x_k + Δ_k·ρ/(1 − ρ) (Aitken's Δ²). The Foster stages settle within a
+    /// repetition; the next repetitions confirm the periodic state.
+    bool accelerate = true;
     std::size_t maxSamples = 2000;      ///< sampled series length (per repetition)
     double reversalHysteresis_K = 0.05; ///< turning points closer than this are merged
 };
@@ -104,7 +109,8 @@ struct TransientResult {
     double heatsinkMaxTime_s = 0.0;
     std::vector<std::vector<double>> reversals_C; ///< [source] T_j turning points, last repetition
     int repetitionsRun = 0;
-    bool periodic = false; ///< the last repetition ended where it started
+    int extrapolations = 0; ///< heatsink jumps made by `accelerate`
+    bool periodic = false;  ///< the last repetition ended where it started
     std::size_t steps = 0;
     std::size_t resolves = 0;
     TransientState finalState;
@@ -133,6 +139,7 @@ class TransientStepper {
     /// Advance by dt with the powers per unit held; ambient for this step.
     void advance(double dt_s, const std::vector<double>& power_W, double ambient_C);
     double junction_C(std::size_t source) const;
+    void setHeatsink(double heatsink_C) { m_state.heatsink_C = heatsink_C; }
     const TransientState& state() const { return m_state; }
 
   private:

@@ -135,6 +135,38 @@ class TestThermalTransient : public QObject {
         QVERIFY(r.periodic);
     }
 
+    void periodicStateByExtrapolation() {
+        // A slow heatsink (R 0.5 K/W, C 2000 J/K, τ 1000 s) under 40 W for 30 s, off for 30 s: the
+        // periodic peak is the exact pulse formula with R 0.5, τ 1000 s → 10.150 K [calc]. Brute
+        // force needs about a hundred repetitions; the Aitken jump must reach the same periodic
+        // state within 0.05 K in a few.
+        TransientNetwork net;
+        net.sources = {{"device", {}, 0.0, 0.0, 1.0}};
+        net.rsa = rsaCurve(StatedHeatsink{0.5, 50.0, 0.0});
+        net.heatsinkCapacity_JperK = 2000.0;
+        const double exact = periodicPulse({{0.5, 1000.0}}, 40.0, 30.0, 60.0).riseMax_K;
+        QVERIFY(relDiff(exact, 10.150) < 1e-3);
+        TransientOptions opt;
+        opt.step_s = 0.1;
+        opt.untilPeriodic = true;
+        opt.periodicTolerance_K = 0.01;
+        opt.repetitions = 30;
+        const std::vector<TransientSegment> profile{{30.0, 0.0}, {30.0, 0.0}};
+        const TransientLosses losses{constantPerSegment({40.0, 0.0}), {}};
+        const TransientResult fast = runTransient(net, profile, losses, opt, restState(net, 0.0));
+        QVERIFY(fast.ok && fast.periodic);
+        QVERIFY(fast.extrapolations >= 1);
+        QVERIFY(fast.repetitionsRun < 10);
+        const auto& rev = fast.reversals_C[0];
+        QVERIFY2(std::abs(*std::max_element(rev.begin(), rev.end()) - exact) < 0.05,
+                 qPrintable(QString::number(*std::max_element(rev.begin(), rev.end()))));
+        // Without the jump, 30 repetitions are not enough: the run is still creeping up.
+        opt.accelerate = false;
+        const TransientResult slow = runTransient(net, profile, losses, opt, restState(net, 0.0));
+        QVERIFY(!slow.periodic);
+        QCOMPARE(slow.repetitionsRun, 30);
+    }
+
     void heatsinkRcAndSegmentAlignment() {
         // A massless junction on a first-order heatsink (R 0.5 K/W, C 2 J/K, τ 1 s): 40 W for
         // 0.105 s, then 0 W for 0.2 s. Exactly: T1 = 20·(1 − e^(−0.105)), T2 = T1·e^(−0.2) [calc].
