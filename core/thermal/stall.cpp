@@ -6,6 +6,38 @@
 
 namespace amp::thermal {
 
+namespace {
+
+constexpr double kSteadyMargin_K = 1.0;
+
+// The highest junction temperature each source can reach on the way from `start` to `steady`:
+// every part of the network is first order and moves monotonically from its start value to its
+// steady value (exactly so for constant losses), so no part exceeds the larger of the two.
+std::vector<double> pathBound(const TransientNetwork& net, const TransientState& start,
+                              const TransientState& steady) {
+    std::vector<double> bound(net.sources.size());
+    const double sink = std::max(start.heatsink_C, steady.heatsink_C);
+    for (std::size_t k = 0; k < net.sources.size(); ++k) {
+        const TransientSource& src = net.sources[k];
+        double t = sink;
+        for (std::size_t i = 0; i < src.zthJc.size(); ++i)
+            t += std::max(start.stageRise_K[k][i], steady.stageRise_K[k][i]);
+        const double p = std::max(k < start.power_W.size() ? start.power_W[k] : 0.0, steady.power_W[k]);
+        t += p * (src.rthCs_KperW + (src.zthJc.empty() ? src.rthJc_KperW : 0.0));
+        bound[k] = t;
+    }
+    return bound;
+}
+
+bool belowLimits(const std::vector<double>& tj, const std::vector<double>& limit) {
+    for (std::size_t k = 0; k < tj.size(); ++k)
+        if (!(tj[k] < limit[k] - kSteadyMargin_K))
+            return false;
+    return true;
+}
+
+} // namespace
+
 StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& start, double ambient_C,
                              const TransientLosses& losses, const std::vector<double>& limit,
                              const StallOptions& opt) {
@@ -17,7 +49,7 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
         out.problems.push_back("One junction limit per source is needed");
     if (!losses.resolve)
         out.problems.push_back("No loss model was given");
-    if (!(opt.firstStep_s > 0.0) || !(opt.growth >= 1.0) || !(opt.maxStep_s >= opt.firstStep_s))
+    if (!(opt.firstStep_s > 0.0) || opt.stepsPerDoubling < 1 || !(opt.maxStep_s >= opt.firstStep_s))
         out.problems.push_back("The stall-time step options are inconsistent");
     if (!out.problems.empty())
         return out;
@@ -33,11 +65,14 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
             out.firstSource = k;
         }
     }
-    const SteadyState steady = steadyState(net, 0, ambient_C, losses.resolve);
+    // A millikelvin is plenty for a decision with a 1 K margin; start from the present junctions.
+    const SteadyState steady = steadyState(net, 0, ambient_C, losses.resolve, 1e-3, &tj);
     if (steady.converged)
         out.steadyTj_C = *std::max_element(steady.tj_C.begin(), steady.tj_C.end());
     if (out.timeToLimit_s)
         return out;
+    if (steady.converged && belowLimits(pathBound(net, stepper.state(), steady.state), limit))
+        return out; // never reached: bounded on the whole way (see stall.h)
 
     double longest = 0.0;
     for (const TransientSource& s : net.sources)
@@ -54,6 +89,7 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
     const double horizon = std::max(10.0 * longest, 10.0 * opt.firstStep_s);
 
     double t = 0.0, dt = opt.firstStep_s;
+    int sameStep = 0;
     bool first = true;
     while (t < horizon) {
         bool full = first;
@@ -95,7 +131,10 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
         }
         tj = next;
         t += dt;
-        dt = std::min(dt * opt.growth, opt.maxStep_s);
+        if (++sameStep == opt.stepsPerDoubling) {
+            sameStep = 0;
+            dt = std::min(2.0 * dt, opt.maxStep_s);
+        }
     }
     out.simulated_s = t;
     return out;

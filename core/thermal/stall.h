@@ -5,12 +5,20 @@
 // before the stall, or a cold start).
 //
 // Method: the transient network of transient.h with one constant segment, stepped from the
-// starting state with steps that start at `firstStep_s` and grow geometrically (exact
-// exponentials keep any step stable; the small first steps resolve the fast Foster stages, the
-// long ones the heatsink). The crossing is interpolated linearly inside the step in which it
-// happens. The limit is "never reached" when the run passes 10 of the network's longest time
-// constants (Foster τ_i and R_sa·C) — by then every part is within e^(−10) of its steady value —
-// without a crossing; a runaway of the losses (no steady state) always ends at the limit.
+// starting state with steps that start at `firstStep_s` and double every `stepsPerDoubling` steps
+// up to `maxStep_s` (exact exponentials keep any step stable; the small first steps resolve the
+// fast Foster stages, the long ones the heatsink; runs of equal steps reuse their exponentials).
+// The crossing is interpolated linearly inside the step in which it happens.
+//
+// "Never reached" is decided in one of two ways. (1) Without stepping, when the stall has a steady
+// state and, for every source, the sum over the path of the larger of each part's start and
+// steady values (heatsink, every Foster stage, the massless drops) stays more than 1 K below the
+// limit: each part of the network is a first-order system that moves monotonically from its start
+// to its steady value when the losses are constant, so none exceeds the larger of the two; the
+// 1 K margin covers the losses' change with temperature on the way. (2) Otherwise by running past
+// 10 of the network's longest time constants (Foster τ_i and R_sa·C) — by then every part is
+// within e^(−10) of its steady value — without a crossing. A runaway of the losses (no steady
+// state) always ends at the limit.
 //
 // Units: s, °C, W. The loss callbacks are those of transient.h, called with segment index 0.
 
@@ -22,8 +30,8 @@ namespace amp::thermal {
 
 struct StallOptions {
     double firstStep_s = 1e-3;
-    double growth = 1.02; ///< step ratio
-    double maxStep_s = 5.0;
+    int stepsPerDoubling = 16;
+    double maxStep_s = 20.0;
     double resolveStep_K = 1.0;
 };
 

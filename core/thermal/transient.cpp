@@ -199,11 +199,14 @@ double TransientStepper::junction_C(std::size_t k) const {
 }
 
 SteadyState steadyState(const TransientNetwork& net, std::size_t segment, double ambient_C,
-                        const ResolveLosses& losses) {
+                        const ResolveLosses& losses, double tolerance_K,
+                        const std::vector<double>* startTj_C) {
     SteadyState out;
     const std::size_t n = net.sources.size();
     out.state = restState(net, ambient_C);
     out.tj_C.assign(n, ambient_C);
+    if (startTj_C && startTj_C->size() == n)
+        out.tj_C = *startTj_C;
     std::vector<double> p(n, 0.0);
     for (int it = 0; it < 1000; ++it) {
         losses(segment, out.tj_C, p);
@@ -223,7 +226,7 @@ SteadyState steadyState(const TransientNetwork& net, std::size_t segment, double
             change = std::max(change, std::abs(tj - out.tj_C[k]));
             out.tj_C[k] = tj;
         }
-        if (change < 1e-7) {
+        if (change < tolerance_K) {
             out.converged = true;
             return out;
         }

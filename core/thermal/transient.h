@@ -129,8 +129,11 @@ struct SteadyState {
     std::vector<double> tj_C;
     bool converged = false;
 };
+/// The iteration starts from `startTj_C` when given (else from ambient) and stops when no junction
+/// moves more than `tolerance_K` in an iteration.
 SteadyState steadyState(const TransientNetwork& net, std::size_t segment, double ambient_C,
-                        const ResolveLosses& losses);
+                        const ResolveLosses& losses, double tolerance_K = 1e-7,
+                        const std::vector<double>* startTj_C = nullptr);
 
 /// Low-level stepper, shared by the profile run and the stall-time search.
 class TransientStepper {
