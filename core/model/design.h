@@ -155,7 +155,7 @@ struct ThermalStudy {
     double resolveStep_K = 2.0;         ///< full bank solve when a junction moved this much
     int repetitions = 20;               ///< profile repetitions (the most tried with untilPeriodic)
     bool untilPeriodic = true;          ///< run the profile until it repeats itself
-    std::string stallStart = "hottestPoint"; ///< stall from "ambient" or the "hottestPoint" steady state
+    std::string stallStart = "hottestPoint"; ///< "ambient" or "hottestPoint" (hottest non-stall point)
     double lifeCoefficient = 640.0;     ///< A in N_f = A·ΔT^α·exp(E_a/(k_B·T_m))
     double lifeExponent = -5.0;         ///< α
     double lifeActivation_eV = 0.8;     ///< E_a

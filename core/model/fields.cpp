@@ -600,7 +600,8 @@ Table buildDesignFields() {
              "(optional; default true)."),
         choice("thermal.stallStart", {"ambient", "hottestPoint"}, "Stall starts from",
                "State the stall-time study starts from: \"ambient\" (cold) or \"hottestPoint\" (the steady "
-               "state of the hottest operating point) (optional; default hottestPoint)."),
+               "state of the hottest operating point that is not itself a stall) (optional; default "
+               "hottestPoint)."),
         num("thermal.lifeCoefficient", Unit::None, 1e-30, 1e30, "Life coefficient A",
             "A in N_f = A·ΔT^α·exp(E_a/(k_B·T_m)) (Held et al. 1997: 640 for wire-bonded modules, from memory; "
             "uncertain by an order of magnitude) (optional; default 640).",
