@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/evaluate.h"
+#include "core/engine/stage_protection.h"
 
 #include "core/engine/stage_thermal.h"
 #include "core/physics/bank_sharing.h"
@@ -845,6 +846,7 @@ Results evaluate(const Design& input, const EvaluateOptions& options) {
         }
         r.operatingPoints.push_back(std::move(op));
     }
+    addProtection(d, r);
     addThermalResults(
         d, context.heatsink,
         [&](std::size_t i, const std::vector<double>& tj, std::vector<double>& p) { sourceLosses(context, r, i, tj, p); },

@@ -3,6 +3,8 @@
 // What the engine returns: plain data, SI units (°C in _C names). The results JSON is written
 // from these structs by engine/results_json.h and documented in the README.
 
+#include "core/engine/protection_results.h"
+
 #include <optional>
 #include <string>
 #include <vector>
@@ -169,6 +171,7 @@ struct Results {
     double maxJunction_C = 0.0;     ///< hottest switch junction over all points
     double maxTotalLoss_W = 0.0;
     std::vector<std::string> warnings; ///< solver notes that are not checks
+    ProtectionResults protection;   ///< contactors, reversal, pre-charge, cables, fuse (engine/stage_protection.h)
     std::optional<HeatsinkSummary> heatsink;
     std::optional<TransientSummary> transient; ///< full evaluation only
     std::optional<double> stallTimeToLimit_s;  ///< empty when the limit is never reached

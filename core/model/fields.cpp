@@ -556,6 +556,32 @@ Table buildDesignFields() {
             "Direction changes per day, for contactor life; 10–500."),
         num("reversing.stopSpeed_rpm", Unit::Rpm, 0.0, 1e5, "Change-over speed",
             "Motor speed below which a change-over is allowed; 0–100 rpm."),
+        choice("reversing.category", {"", "DC-1", "DC-3", "DC-5"}, "DC utilisation category",
+               "The contactor's IEC 60947-4-1 DC category (test-circuit L/R 1, 2 and 7.5 ms); empty when not "
+               "stated. A motor L/R beyond it means the contactor must never break load."),
+        num("reversing.coilSupplyMin_V", Unit::Volt, 0.0, 1000.0, "Lowest coil supply",
+            "Lowest voltage the coil gets (battery sag); 0 = the rated coil voltage. Should be ≥ 85 % of rated."),
+        num("reversing.coilSupplyMax_V", Unit::Volt, 0.0, 1000.0, "Highest coil supply",
+            "Highest voltage the coil gets (full charge); 0 = the rated coil voltage. Should be ≤ 110 % of rated."),
+        num("reversing.coilTimeConstant_s", Unit::Second, 1e-4, 1.0, "Coil time constant",
+            "Coil L/R with the armature closed, for the suppressed drop-out time; 5–50 ms (20 ms is an estimate)."),
+        num("reversing.coilReleaseFraction", Unit::None, 0.01, 0.9, "Coil release fraction",
+            "Coil current at which the armature releases, as a fraction of the holding current; 0.1–0.3."),
+        num("reversing.zener_V", Unit::Volt, 0.0, 1000.0, "Suppression Zener voltage",
+            "Zener voltage of a diode + Zener suppressor; 0 = the coil voltage."),
+        num("reversing.tvs_V", Unit::Volt, 0.0, 2000.0, "Suppression TVS voltage",
+            "Clamp voltage of a TVS across the coil; 0 = 1.5 × the coil voltage. Must exceed the coil supply."),
+        flag("reversing.waitForStop", "Wait for the stop",
+             "True when the sequence waits for the stop speed before changing over (never reverse at speed)."),
+        num("reversing.stopTime_s", Unit::Second, 0.0, 600.0, "Stated stop time",
+            "Time allowed for the motor to slow to the stop speed; 0 = computed from the inertia, the motor's "
+            "no-load torque and the retarding torque."),
+        num("reversing.retardingTorque_Nm", Unit::NewtonMetre, 0.0, 1e4, "Retarding torque",
+            "Friction and load torque that slow the coasting motor, beyond its own k·I0; 0 when unknown."),
+        num("reversing.changeoverMargin_s", Unit::Second, 0.0, 10.0, "Change-over margin",
+            "Wait between the drop-out of one direction and the pick-up of the other; 20–100 ms."),
+        num("reversing.softStartRamp_s", Unit::Second, 0.0, 60.0, "Soft restart ramp",
+            "Duty ramp after the change-over; 0.2–2 s."),
 
         list("dutyProfile", 0, 1000, "Duty profile",
              "Operating-point segments (start, cruise, hill, stall) held for their durations; at least one."),
@@ -584,6 +610,28 @@ Table buildDesignFields() {
             "Conductor temperature for its resistance; 40–90 °C."),
         num("wiring.busCapacitance_F", Unit::Farad, 0.0, 10.0, "Bus capacitance",
             "Bus capacitors at the bank; 0.5–10 mF."),
+        flag("wiring.prechargePresent", "Pre-charge fitted",
+             "True when a resistor charges the bus capacitors before the main contactor closes."),
+        num("wiring.prechargeResistor_ohm", Unit::Ohm, 0.0, 1e6, "Pre-charge resistor",
+            "Stated pre-charge resistor; 0 = sized for the target time. 20–500 Ω."),
+        num("wiring.prechargeTime_s", Unit::Second, 1e-3, 600.0, "Pre-charge time",
+            "Target time to reach the pre-charge fraction; 0.5–3 s."),
+        num("wiring.prechargeFraction", Unit::None, 0.5, 0.9999, "Pre-charge fraction",
+            "Bus fraction reached before the main contactor closes; 0.9–0.99 (5·R·C gives 0.993)."),
+        num("wiring.fuseRating_A", Unit::Ampere, 0.0, 1e5, "Fuse rating",
+            "Rated current of the battery fuse; 0 = no fuse stated."),
+        num("wiring.fuseVoltage_V", Unit::Volt, 0.0, 1e4, "Fuse DC voltage",
+            "DC voltage rating of the fuse; must cover the highest bus voltage."),
+        num("wiring.fuseBreaking_A", Unit::Ampere, 0.0, 1e7, "Fuse breaking capacity",
+            "DC breaking capacity of the fuse; 0 = not stated. Must exceed the prospective short circuit."),
+        num("wiring.fuseI2t_A2s", Unit::None, 0.0, 1e12, "Fuse clearing I²t",
+            "Total clearing I²t of the fuse in A²s at the prospective fault; 0 = not stated."),
+        num("wiring.bankWithstandI2t_A2s", Unit::None, 0.0, 1e12, "Bank I²t withstand",
+            "Short-circuit I²t in A²s the switch bank survives; 0 = not stated."),
+        num("wiring.allowedCableDrop", Unit::None, 0.001, 0.5, "Allowed cable drop",
+            "Voltage drop allowed in each cable, as a fraction of the nominal voltage; 0.01–0.05."),
+        choice("wiring.cableInsulation", {"pvc", "xlpe"}, "Cable insulation",
+               "\"pvc\" (conductor limit 70 °C, k = 115) or \"xlpe\" (90 °C, k = 143)."),
 
         num("thermal.step_s", Unit::Second, 1e-4, 10.0, "Transient time step",
             "Largest time step of the duty-profile transient; segments are split into equal steps "
@@ -612,6 +660,7 @@ Table buildDesignFields() {
             "E_a in the power-cycling law; about 0.8 eV (Held et al. 1997) (optional; default 0.8 eV)."),
     };
     append(t, "", rest);
+    append(t, "wiring.mainContactor.", designPart("contactor"));
     return t;
 }
 
@@ -1163,15 +1212,73 @@ std::vector<Problem> convertUnitStrings(nlohmann::json& object, std::string_view
     return out;
 }
 
+namespace {
+
+// The value a field takes when a file omits it: read from a default-constructed design whose
+// lists hold one default item each, so that "dutyProfile[].duration_s" has a default too.
+std::string defaultOf(const nlohmann::json& defaults, const FieldSpec& f) {
+    if (f.type == FieldSpec::Type::List)
+        return "empty"; // every list of a default design is empty
+    const nlohmann::json* node = &defaults;
+    std::string path = f.path;
+    std::size_t at = 0;
+    while (at <= path.size()) {
+        const auto end = path.find('.', at);
+        std::string key = path.substr(at, end == std::string::npos ? std::string::npos : end - at);
+        const bool item = key.size() > 2 && key.compare(key.size() - 2, 2, "[]") == 0;
+        if (item)
+            key.resize(key.size() - 2);
+        if (!node->is_object() || !node->contains(key))
+            return {};
+        node = &(*node)[key];
+        if (item) {
+            if (!node->is_array() || node->empty())
+                return f.type == FieldSpec::Type::List ? "empty" : "";
+            node = &(*node)[0];
+        }
+        if (end == std::string::npos)
+            break;
+        at = end + 1;
+    }
+    if (node->is_number())
+        return f.type == FieldSpec::Type::Integer ? std::to_string(node->get<long long>())
+                                                  : units::format(node->get<double>(), f.unit, 4);
+    if (node->is_boolean())
+        return node->get<bool>() ? "yes" : "no";
+    if (node->is_string())
+        return node->get<std::string>().empty() ? "(empty)" : node->get<std::string>();
+    if (node->is_array())
+        return node->empty() ? "empty" : std::to_string(node->size()) + " items";
+    return {};
+}
+
+nlohmann::json defaultDesignJson() {
+    Design d;
+    d.dutyProfile.emplace_back();
+    d.bank.devices.emplace_back();
+    d.motor.magnetisation.emplace_back();
+    for (SwitchPart* part : {&d.bank.device}) {
+        part->soa.emplace_back();
+        part->zthJc.emplace_back();
+        part->mosfet.rdsOnTable.emplace_back();
+    }
+    d.bank.freewheelDiode.zthJc.emplace_back();
+    return d;
+}
+
+} // namespace
+
 std::string fieldsMarkdown() {
+    const nlohmann::json defaults = defaultDesignJson();
     std::ostringstream md;
-    md << "| Field | Unit | Allowed | Meaning |\n|---|---|---|---|\n";
+    md << "| Field | Unit | Allowed | Default | Meaning |\n|---|---|---|---|---|\n";
     for (const auto& f : designFields()) {
         std::string unit(units::symbol(f.unit));
         if (f.type != Type::Number && f.type != Type::Integer)
             unit.clear();
         md << "| `" << f.path << "` | " << markdownEscape(unit) << " | " << markdownEscape(describeRange(f))
-           << " | " << markdownEscape(f.label + ". " + f.help) << " |\n";
+           << " | " << markdownEscape(defaultOf(defaults, f)) << " | " << markdownEscape(f.label + ". " + f.help)
+           << " |\n";
     }
     return md.str();
 }

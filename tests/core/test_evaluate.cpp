@@ -119,6 +119,10 @@ double interfaceR(const Design& d) {
 void requireFiniteJson(const json& j, const std::string& path, std::vector<std::string>& bad) {
     static const std::set<std::string> nullable{"efficiency", "loopGain", "runawayLoad_A", "firstToFail",
                                                 "minimumBallast_ohm",
+                                                // protection stage: sections not computed, values not stated
+                                                "reversal", "contactor", "mainDisconnect", "precharge", "cable",
+                                                "motorCable", "fuse", "continuousMargin", "electricalLife_years",
+                                                "requiredCrossSection_mm2",
                                                 // thermal stage: not computed, or never reached
                                                 "heatsink", "transient", "life", "stallTimeToLimit_s",
                                                 "finSpacing_m", "optimumFinSpacing_m", "optimumFinCount",
