@@ -56,7 +56,7 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
     out.ok = true;
 
     TransientStepper stepper(net, start);
-    std::vector<double> tj(n), tjRef(n), powerRef(n, 0.0), power(n, 0.0), next(n);
+    std::vector<double> tj(n), tjRef(n), powerRef(n, 0.0), power(n, 0.0), next(n), endPower;
     for (std::size_t k = 0; k < n; ++k) {
         tj[k] = stepper.junction_C(k);
         out.startTj_C = k == 0 ? tj[k] : std::max(out.startTj_C, tj[k]);
@@ -111,7 +111,28 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
             out.problems.push_back("The loss model returned an invalid power");
             return out;
         }
-        stepper.advance(dt, power, ambient_C);
+        if (losses.rescale) {
+            // Predictor–corrector: a trial step with the start power, the power at its end, and
+            // the step again with the power moving linearly between the two (exact for every RC
+            // part); the corrector runs twice, because the fast parts (interface, fast Foster
+            // stages) follow the end power at once and the first trial, made with the start
+            // power, under-states it. Over a long step the losses change with the temperature:
+            // holding the start value would lag by a share of the step.
+            const TransientState before = stepper.state();
+            stepper.advance(dt, power, ambient_C);
+            for (int pass = 0; pass < 2; ++pass) {
+                for (std::size_t k = 0; k < n; ++k)
+                    next[k] = stepper.junction_C(k);
+                losses.rescale(0, tjRef, powerRef, next, endPower);
+                if (endPower.size() != n ||
+                    !std::all_of(endPower.begin(), endPower.end(), [](double p) { return std::isfinite(p); }))
+                    break;
+                stepper.setState(before);
+                stepper.advanceRamp(dt, power, endPower, ambient_C);
+            }
+        } else {
+            stepper.advance(dt, power, ambient_C);
+        }
         double crossing = dt + 1.0;
         for (std::size_t k = 0; k < n; ++k) {
             next[k] = stepper.junction_C(k);

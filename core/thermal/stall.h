@@ -8,6 +8,9 @@
 // starting state with steps that start at `firstStep_s` and double every `stepsPerDoubling` steps
 // up to `maxStep_s` (exact exponentials keep any step stable; the small first steps resolve the
 // fast Foster stages, the long ones the heatsink; runs of equal steps reuse their exponentials).
+// Within a step the power moves linearly from its start value to its value at the end of a trial
+// step (a predictor–corrector with the exact first-order-hold update of every RC part), since over
+// a long step the losses rise with the temperature.
 // The crossing is interpolated linearly inside the step in which it happens.
 //
 // "Never reached" is decided in one of two ways. (1) Without stepping, when the stall has a steady

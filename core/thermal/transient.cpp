@@ -160,36 +160,57 @@ double TransientStepper::sinkResistance(double rise) {
 }
 
 void TransientStepper::advance(double dt, const std::vector<double>& power, double ambient_C) {
+    advanceRamp(dt, power, power, ambient_C);
+}
+
+// Exact for a power that moves linearly from p0 to p1 over the step (first-order hold): with
+// s = (p1 − p0)/Δt, θ(Δt) = θ0·a + R·[p1 − a·p0 − s·τ·(1 − a)], a = e^(−Δt/τ). It reduces to the
+// zero-order hold when p1 = p0; fast parts (τ ≪ Δt) end at R·p1, slow ones integrate the mean.
+void TransientStepper::advanceRamp(double dt, const std::vector<double>& p0, const std::vector<double>& p1,
+                                   double ambient_C) {
     const std::size_t n = m_net.sources.size();
     if (dt != m_cachedDt) {
         m_decay.resize(n);
+        m_lag.resize(n);
         for (std::size_t k = 0; k < n; ++k) {
             const auto& z = m_net.sources[k].zthJc;
             m_decay[k].resize(z.size());
-            for (std::size_t i = 0; i < z.size(); ++i)
+            m_lag[k].resize(z.size());
+            for (std::size_t i = 0; i < z.size(); ++i) {
                 m_decay[k][i] = z[i].tau_s > 0.0 ? std::exp(-dt / z[i].tau_s) : 0.0;
+                m_lag[k][i] = z[i].tau_s / dt * (1.0 - m_decay[k][i]); // τ·(1 − a)/Δt
+            }
         }
         m_cachedDt = dt;
     }
-    double total = 0.0;
+    const bool ramp = &p0 != &p1;
+    double total0 = 0.0, total1 = 0.0;
     for (std::size_t k = 0; k < n; ++k) {
-        const double p = power[k];
         const auto& z = m_net.sources[k].zthJc;
         auto& th = m_state.stageRise_K[k];
         const auto& a = m_decay[k];
-        for (std::size_t i = 0; i < z.size(); ++i)
-            th[i] = th[i] * a[i] + z[i].r_KperW * p * (1.0 - a[i]);
-        m_state.power_W[k] = p;
-        total += m_net.sources[k].count * p;
+        if (ramp) {
+            const double dp = p1[k] - p0[k];
+            for (std::size_t i = 0; i < z.size(); ++i)
+                th[i] = th[i] * a[i] + z[i].r_KperW * (p1[k] - a[i] * p0[k] - dp * m_lag[k][i]);
+        } else {
+            for (std::size_t i = 0; i < z.size(); ++i)
+                th[i] = th[i] * a[i] + z[i].r_KperW * p0[k] * (1.0 - a[i]);
+        }
+        m_state.power_W[k] = p1[k];
+        total0 += m_net.sources[k].count * p0[k];
+        total1 += m_net.sources[k].count * p1[k];
     }
     const double c = m_net.heatsinkCapacity_JperK;
     double rise = m_state.heatsink_C - ambient_C;
     if (c > 0.0) {
         const double r = sinkResistance(rise);
-        const double a = std::exp(-dt / (r * c));
-        rise = rise * a + total * r * (1.0 - a);
+        const double tau = r * c;
+        const double a = std::exp(-dt / tau);
+        rise = ramp ? rise * a + r * (total1 - a * total0 - (total1 - total0) * tau / dt * (1.0 - a))
+                    : rise * a + total0 * r * (1.0 - a);
     } else {
-        rise = sinkRise(m_net.rsa, total);
+        rise = sinkRise(m_net.rsa, total1);
     }
     m_state.heatsink_C = ambient_C + rise;
 }

@@ -141,8 +141,12 @@ class TransientStepper {
     TransientStepper(const TransientNetwork& net, TransientState state);
     /// Advance by dt with the powers per unit held; ambient for this step.
     void advance(double dt_s, const std::vector<double>& power_W, double ambient_C);
+    /// Advance by dt with the powers moving linearly from p0 to p1 (exact for every RC part).
+    void advanceRamp(double dt_s, const std::vector<double>& p0_W, const std::vector<double>& p1_W,
+                     double ambient_C);
     double junction_C(std::size_t source) const;
     void setHeatsink(double heatsink_C) { m_state.heatsink_C = heatsink_C; }
+    void setState(const TransientState& state) { m_state = state; }
     const TransientState& state() const { return m_state; }
 
   private:
@@ -152,6 +156,7 @@ class TransientStepper {
     TransientState m_state;
     double m_cachedDt = -1.0;
     std::vector<std::vector<double>> m_decay;     ///< e^(−dt/τ) per stage for m_cachedDt
+    std::vector<std::vector<double>> m_lag;       ///< τ·(1 − e^(−dt/τ))/dt per stage
     std::vector<double> m_lnRise, m_lnR, m_slope; ///< the R_sa curve in log-log form
     std::size_t m_segment = 0;                    ///< last curve interval used (the rise moves slowly)
 };

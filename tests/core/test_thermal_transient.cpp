@@ -271,6 +271,32 @@ class TestThermalTransient : public QObject {
         QVERIFY(relDiff(*s.steadyTj_C, 125.0) < 1e-6);
     }
 
+    void stallTimeWithRisingLoss() {
+        // A loss that rises with temperature, P = 50·(1 + 0.01·(T − 25 °C)) W, into a first-order
+        // sink (R 1 K/W, C 1000 J/K): C·dΔ/dt = 50 + 0.5·Δ − Δ/R, so Δ(t) = 100·(1 − e^(−t/2000 s))
+        // and the 60 K rise is reached at t = 2000·ln(2.5) = 1832.6 s [calc]. The search takes
+        // steps up to 20 s; its predictor–corrector must keep within 0.1 %.
+        TransientNetwork net;
+        net.sources = {{"device", {}, 0.0, 0.0, 1.0}};
+        net.rsa = rsaCurve(StatedHeatsink{1.0, 50.0, 0.0});
+        net.heatsinkCapacity_JperK = 1000.0;
+        auto p = [](double t) { return 50.0 * (1.0 + 0.01 * (t - 25.0)); };
+        TransientLosses l;
+        l.resolve = [&](std::size_t, const std::vector<double>& tj, std::vector<double>& out) {
+            out = {p(tj[0])};
+        };
+        l.rescale = [&](std::size_t, const std::vector<double>&, const std::vector<double>&,
+                        const std::vector<double>& tj, std::vector<double>& out) { out = {p(tj[0])}; };
+        const StallResult s = stallTimeToLimit(net, restState(net, 25.0), 25.0, l, {85.0});
+        QVERIFY(s.ok && s.timeToLimit_s);
+        QVERIFY2(relDiff(*s.timeToLimit_s, 2000.0 * std::log(2.5)) < 1e-3,
+                 qPrintable(QString::number(*s.timeToLimit_s)));
+        // Holding the start power over each step (no rescale) lags: the search is then slower.
+        l.rescale = nullptr;
+        const StallResult held = stallTimeToLimit(net, restState(net, 25.0), 25.0, l, {85.0});
+        QVERIFY(held.timeToLimit_s && *held.timeToLimit_s > *s.timeToLimit_s);
+    }
+
     void stallTimeWithHeatsink() {
         // The bank stalled at 200 A from its 60 A steady state: the adaptive search must agree with
         // the fixed-step run (10 ms steps, full solve every step) on the crossing time within 1 %.
