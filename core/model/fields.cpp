@@ -103,7 +103,10 @@ Table fosterFields(const std::string& what) {
         list("zthJc", 0, 10, "Z_th,jc Foster stages",
              "Optional Foster fit of the " + what +
                  "'s junction-to-case transient thermal impedance, Z(t) = Σ r·(1 − e^(−t/τ)). "
-                 "Empty: a single stage from R_th,jc is assumed. 2–5 stages are usual."),
+                 "2–5 stages are usual. A Foster fit reproduces the curve only and does not chain with the "
+                 "heatsink's network: the junction rides on the case (heatsink plus interface drop) and the "
+                 "device's power goes straight into the heatsink. Empty: R_th,jc acts at once, as if the die "
+                 "had no heat capacity (pessimistic for short pulses)."),
         num("zthJc[].r_KperW", Unit::KelvinPerWatt, 0.0, 100.0, "Stage resistance",
             "Thermal resistance r_i of one Foster stage; the stages add up to about R_th,jc."),
         num("zthJc[].tau_s", Unit::Second, 1e-9, 1e4, "Stage time constant",
