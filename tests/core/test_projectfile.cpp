@@ -68,7 +68,7 @@ class TestProjectFile : public QObject {
         QTest::newRow("duration") << "negative-duration" << "dutyProfile[0].duration_s" << "1";
         QTest::newRow("unknown key") << "unknown-key" << "supply.nominalVoltage" << "unknown";
         QTest::newRow("min > nominal") << "min-above-nominal" << "supply.min_V" << "50";
-        QTest::newRow("empty profile") << "empty-profile" << "dutyProfile" << "segment";
+        QTest::newRow("empty profile") << "empty-profile" << "dutyProfile" << "empty";
         QTest::newRow("huge L") << "huge-inductance" << "motor.inductance_H" << "1";
         QTest::newRow("negative Rth") << "negative-rth" << "heatsink.part.rthSa_KperW" << "0.1";
         QTest::newRow("device kind") << "unknown-device-kind" << "bank.device.kind" << "vacuum-tube";
