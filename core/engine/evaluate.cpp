@@ -3,6 +3,8 @@
 #include "core/engine/stage_bank.h"
 #include "core/engine/stage_protection.h"
 
+#include "core/engine/stage_thermal.h"
+
 #include "core/bank/banksolver.h"
 #include "core/bank/thermalnetwork.h"
 #include "core/physics/bank_sharing.h"
@@ -207,6 +209,7 @@ struct Context {
     bool mosfet = true;
     BipolarOnState bipolar;
     double rthCs_KperW = 0.0;
+    HeatsinkModel heatsink;             // stated or plate-fin geometry (stage_thermal.h)
     int diodes = 1;
     std::vector<double> ballast_ohm;    // per device
     std::vector<double> leg_ohm;        // per device
@@ -232,6 +235,7 @@ Context makeContext(const Design& d) {
     c.bipolar = bipolarOnState(d.bank.device);
     c.rthCs_KperW = interfaceResistance(d.bank.interface);
     c.diodes = std::max(1, d.bank.diodeCount);
+    c.heatsink = HeatsinkModel(d);
     for (const auto& dev : d.bank.devices) {
         c.ballast_ohm.push_back(std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm));
         c.leg_ohm.push_back(std::max(0.0, d.bank.legResistance_ohm + dev.legResistanceDeviation_ohm));
@@ -324,7 +328,10 @@ ThermalChainResult solveThermal(const Context& c, const Electrical& e) {
     const Design& d = *c.design;
     ThermalChainInput in;
     in.ambient_C = d.heatsink.ambient_C;
-    in.rthSa_KperW = std::max(0.0, d.heatsink.part.rthSa_KperW);
+    double heat_W = e.diodeLoss_W; // into the sink: R_th,sa may depend on it (natural convection)
+    for (const double p : e.conduction_W)
+        heat_W += p;
+    in.rthSa_KperW = std::max(0.0, c.heatsink.rthSa(heat_W));
     for (const double p : e.conduction_W)
         in.branches.push_back({p, std::max(0.0, d.bank.device.rthJc_KperW), c.rthCs_KperW, 1});
     in.branches.push_back({e.diodeLoss_W / c.diodes, std::max(0.0, d.bank.freewheelDiode.rthJc_KperW), c.rthCs_KperW,
@@ -338,6 +345,27 @@ std::vector<double> thermalMap(const Context& c, const Demand& demand, const std
     const std::vector<double> devices(t.begin(), t.end() - 1);
     const auto e = solveElectrical(c, demand, devices, t.back());
     return solveThermal(c, e).junction_C;
+}
+
+void networkLosses(const Context& c, const Demand& demand, const std::vector<double>& tj, std::vector<double>& p,
+                   std::vector<double>& memory);
+
+// Per-unit losses of the switches and of one freewheel diode at given junction temperatures, for
+// the thermal stage's transients (the bank network and the chopper, as at the steady points): a computed point holds its current and back-EMF; point ==
+// profile size is a stall at the current limit (at full duty when there is none).
+void sourceLosses(const Context& c, const Results& r, std::size_t point, const std::vector<double>& tj,
+                  std::vector<double>& p, std::vector<double>& memory) {
+    Demand demand;
+    if (point < r.operatingPoints.size()) {
+        demand.current_A = r.operatingPoints[point].motorCurrent_A;
+        demand.emf_V = r.operatingPoints[point].backEmf_V;
+    } else if (c.design->pwm.currentLimit_A > 0.0) {
+        demand.current_A = c.design->pwm.currentLimit_A;
+    } else {
+        demand.hold = Hold::DutyAtEmf;
+        demand.duty = c.design->pwm.maxDuty;
+    }
+    networkLosses(c, demand, tj, p, memory);
 }
 
 struct BankSolve {
@@ -493,11 +521,19 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     bool settled = false;
     bool runaway = false;
     BankSolution runawayState;
-    // y = what the chopper sees of the bank and the diode: (V0, R_b, T_diode). One round maps the
-    // chopper at y through the network to g(y); the rounds settle at g(y) = y. Anderson mixing of
-    // depth 1 on the scaled residual g − y (Walker & Ni, SIAM J. Numer. Anal. 49, 2011) cuts the
-    // rounds of this mildly contracting map to a few.
-    std::array<double, 3> y{}, gPrev{}, fPrev{};
+    // y = what the chopper sees of the bank and the diode, and the heatsink's R_th,sa at the heat it
+    // takes: (V0, R_b, T_diode, R_th,sa). One round maps the chopper at y through the network to
+    // g(y); the rounds settle at g(y) = y. Anderson mixing of depth 1 on the scaled residual g − y
+    // (Walker & Ni, SIAM J. Numer. Anal. 49, 2011) cuts the rounds of this mildly contracting map to
+    // a few.
+    constexpr int kY = 4;
+    std::array<double, kY> y{}, gPrev{}, fPrev{};
+    {
+        double heat = e.diodeLoss_W;
+        for (const double w : e.conduction_W)
+            heat += w;
+        y[3] = std::max(0.0, c.heatsink.rthSa(heat));
+    }
     bool havePrev = false;
     for (int round = 0; round < kMaxCouplingRounds; ++round) {
         s.iterations = round + 1;
@@ -510,6 +546,7 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
         p.duty = duty;
         p.rmsFactor = duty > 0.0 && iOn > 0.0 ? w.switchRms_A * w.switchRms_A / (duty * iOn * iOn) : 0.0;
         p.sinkExtraPower_W = e.diodeLoss_W;
+        p.rthSa_KperW = y[3];
         BankSolution next = solveBank(p, have ? &b : nullptr);
         if (!next.converged && !runaway && next.failure == BankFailure::ThermalRunaway && next.devices.size() == n) {
             // No fixed point. Report the bank as the runaway left it: the junctions held at the
@@ -535,14 +572,19 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
         }
         b = std::move(next);
         have = true;
-        const std::array<double, 3> g{b.commonNode_V - b.incrementalResistance_ohm * b.load_A,
-                                      b.incrementalResistance_ohm,
-                                      b.heatsink_C + e.diodeLoss_W / c.diodes * diodeR};
-        const std::array<double, 3> scale{std::max(std::abs(b.commonNode_V), 0.01),
-                                          std::max(std::abs(b.incrementalResistance_ohm), 1e-6), 1.0};
-        std::array<double, 3> f{};
+        double heat = e.diodeLoss_W;
+        for (const auto& dv : b.devices)
+            heat += dv.loss_W;
+        const std::array<double, kY> g{b.commonNode_V - b.incrementalResistance_ohm * b.load_A,
+                                       b.incrementalResistance_ohm,
+                                       b.heatsink_C + e.diodeLoss_W / c.diodes * diodeR,
+                                       std::max(0.0, c.heatsink.rthSa(heat))};
+        const std::array<double, kY> scale{std::max(std::abs(b.commonNode_V), 0.01),
+                                           std::max(std::abs(b.incrementalResistance_ohm), 1e-6), 1.0,
+                                           std::max(g[3], 1e-3)};
+        std::array<double, kY> f{};
         double fmax = 0.0;
-        for (int i = 0; i < 3; ++i) {
+        for (int i = 0; i < kY; ++i) {
             f[i] = (g[i] - y[i]) / scale[i];
             fmax = std::max(fmax, std::abs(f[i]));
         }
@@ -552,16 +594,16 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             settled = true;
             break;
         }
-        std::array<double, 3> yNext = g;
+        std::array<double, kY> yNext = g;
         if (havePrev) {
             double num = 0.0, den = 0.0;
-            for (int i = 0; i < 3; ++i) {
+            for (int i = 0; i < kY; ++i) {
                 const double df = f[i] - fPrev[i];
                 num += f[i] * df;
                 den += df * df;
             }
             if (den > 0.0 && std::isfinite(num / den))
-                for (int i = 0; i < 3; ++i)
+                for (int i = 0; i < kY; ++i)
                     yNext[i] = g[i] - (num / den) * (g[i] - gPrev[i]);
         }
         gPrev = g;
@@ -609,6 +651,47 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
                                      kMaxCouplingRounds);
     }
     return s;
+}
+
+void networkLosses(const Context& c, const Demand& demand, const std::vector<double>& tj, std::vector<double>& p,
+                   std::vector<double>& memory) {
+    // One round, for speed (the transient asks often): the chopper with the simple bank model at
+    // these temperatures gives the waveform; the network, held at the same junction temperatures,
+    // splits the losses. The coupled rounds of solveBankPoint would move the duty by the difference
+    // of the two bank drops over the bus voltage: a second-order change in the losses.
+    const std::size_t n = c.design->bank.devices.size();
+    const std::vector<double> devices(tj.begin(), tj.end() - 1);
+    const Electrical e = solveElectrical(c, demand, devices, tj.back());
+    const ChopperWaveform& w = e.chopper.waveform;
+    BankProblem bp = c.bankProblem;
+    bp.isothermal = true;
+    bp.isothermalTjPerDevice_C = devices;
+    bp.duty = w.duty;
+    bp.load_A = w.duty > 0.0 ? w.switchAverage_A / w.duty : 0.0;
+    bp.rmsFactor = w.duty > 0.0 && bp.load_A > 0.0 ? w.switchRms_A * w.switchRms_A / (w.duty * bp.load_A * bp.load_A) : 0.0;
+    const BankSolution b = w.valid ? solveBank(bp) : BankSolution{};
+    p.clear();
+    if (b.converged && b.devices.size() == n) {
+        for (const auto& dv : b.devices)
+            p.push_back(dv.loss_W);
+        // The transient updates the losses explicitly, once per step, with the junctions settled
+        // against them (Z_th,jc ≪ the step). Where the losses react to temperature by more than the
+        // thermal path can damp (spectral radius ρ of Z·dP/dT above 1, e.g. a drive-starved bipolar
+        // bank whose V_CE falls steeply as it warms), that update would ring. Relaxing the change
+        // by 1/(1 + ρ) makes it contract; the fixed point (the steady state) is unchanged, and the
+        // losses lag the junctions by about ρ steps. (Below ρ = 1 nothing is relaxed: the stall
+        // search's 1 K slope probe must see the losses as they are.)
+        const double rho = b.stability.valid ? b.stability.loopGain : 0.0;
+        if (rho > 1.0 && memory.size() == n) {
+            const double alpha = 1.0 / (1.0 + rho);
+            for (std::size_t k = 0; k < n; ++k)
+                p[k] = memory[k] + alpha * (p[k] - memory[k]);
+        }
+        memory.assign(p.begin(), p.end());
+    } else {
+        p = e.conduction_W;
+    }
+    p.push_back(e.diodeLoss_W / c.diodes);
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -990,7 +1073,10 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     return op;
 }
 
-Results evaluateImpl(const Design& input, bool full) {
+} // namespace
+
+Results evaluate(const Design& input, const EvaluateOptions& options) {
+    const bool full = options.bankStudies;
     Results r;
     r.design = input.meta.title;
     r.topology = input.pwm.topology;
@@ -1041,13 +1127,21 @@ Results evaluateImpl(const Design& input, bool full) {
         r.operatingPoints.push_back(std::move(op));
     }
     addProtection(d, r);
+    std::vector<std::vector<double>> lossMemory(r.operatingPoints.size() + 1); // per point, then the stall
+    addThermalResults(
+        d, context.heatsink,
+        [&](std::size_t i, const std::vector<double>& tj, std::vector<double>& p) {
+            sourceLosses(context, r, i, tj, p, lossMemory[std::min(i, lossMemory.size() - 1)]);
+        },
+        {options.thermalTransient}, r);
     return r;
 }
 
-} // namespace
-
-Results evaluate(const Design& design) { return evaluateImpl(design, false); }
-
-Results evaluateFull(const Design& design) { return evaluateImpl(design, true); }
+Results evaluateFull(const Design& design) {
+    EvaluateOptions options;
+    options.thermalTransient = true;
+    options.bankStudies = true;
+    return evaluate(design, options);
+}
 
 } // namespace amp

@@ -9,13 +9,21 @@
 
 namespace amp {
 
-Results evaluate(const Design& design);
+/// What evaluate() computes beyond the steady operating points and their checks.
+struct EvaluateOptions {
+    /// The duty-profile transient and the power-cycling life: tens of milliseconds, so the
+    /// interactive evaluation leaves them out and the command line and the report ask for them.
+    bool thermalTransient = false;
+    /// The bank's slower studies at every operating point (core/engine/stage_bank.h): the runaway
+    /// load (scan and bisection up to the current limit), the minimum ballast, the Monte Carlo run
+    /// over bank.spread with its worst-case corner, and the switching-imbalance estimate. Tens of
+    /// milliseconds per point instead of a fraction of one: for reports and the command line.
+    bool bankStudies = false;
+};
 
-/// evaluate() plus the bank's slower studies at every operating point (core/engine/stage_bank.h):
-/// the runaway load (scan and bisection up to the current limit), the minimum ballast, the Monte
-/// Carlo run over bank.spread with its worst-case corner, and the switching-imbalance estimate.
-/// Tens of milliseconds per point instead of a fraction of one: for reports and the command line,
-/// not for every edit.
+Results evaluate(const Design& design, const EvaluateOptions& options = {});
+
+/// evaluate() with every option on: the thermal transient and the bank studies.
 Results evaluateFull(const Design& design);
 
 } // namespace amp
