@@ -196,6 +196,11 @@ QString FieldEditor::tooltipFor(const FieldSpec& spec) {
 }
 
 QString FieldEditor::choiceLabel(const std::string& choice) {
+    // Abbreviations the trade writes in capitals.
+    if (choice == "mosfet")
+        return QStringLiteral("MOSFET");
+    if (choice == "pvc" || choice == "xlpe" || choice == "tvs")
+        return toQ(choice).toUpper();
     QString out;
     for (const QChar c : toQ(choice)) {
         if (c.isUpper() && !out.isEmpty())

@@ -252,7 +252,7 @@ CompareDialog::CompareDialog(DesignDocument* document, QWidget* parent) : QDialo
     m_figures->setEditTriggers(QAbstractItemView::NoEditTriggers);
     m_figures->setAlternatingRowColors(true);
     m_figures->horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
-    m_figures->horizontalHeader()->setSectionResizeMode(1, QHeaderView::Stretch);
+    m_figures->horizontalHeader()->setStretchLastSection(true);
     column->addWidget(m_figures, 3);
 
     auto* checksCaption = new QLabel(tr("Checks that differ"), this);
@@ -262,13 +262,17 @@ CompareDialog::CompareDialog(DesignDocument* document, QWidget* parent) : QDialo
     column->addWidget(checksCaption);
     m_checks = new QTableWidget(this);
     m_checks->setObjectName(QStringLiteral("compareChecks"));
-    m_checks->setColumnCount(4);
-    m_checks->setHorizontalHeaderLabels({tr("Check"), tr("Point"), tr("A"), tr("B")});
+    m_checks->setColumnCount(5);
+    m_checks->setHorizontalHeaderLabels({tr("Check"), tr("Point"), tr("A"), tr("B"), tr("What B finds")});
     m_checks->verticalHeader()->hide();
     m_checks->setEditTriggers(QAbstractItemView::NoEditTriggers);
     m_checks->horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
-    m_checks->horizontalHeader()->setSectionResizeMode(0, QHeaderView::Stretch);
+    m_checks->horizontalHeader()->setStretchLastSection(true);
+    m_checks->setWordWrap(true);
     column->addWidget(m_checks, 2);
+    m_noChecks = new QLabel(tr("Every check has the same outcome in both variants."), this);
+    m_noChecks->setForegroundRole(QPalette::PlaceholderText);
+    column->addWidget(m_noChecks);
 
     auto* buttons = new QDialogButtonBox(QDialogButtonBox::Close, this);
     connect(buttons, &QDialogButtonBox::rejected, this, &QDialog::reject);
@@ -344,7 +348,7 @@ void CompareDialog::refresh() {
                     diff += QStringLiteral("  (%1%2 %)").arg(sign).arg(100.0 * d / std::abs(f.a), 0, 'f', 1);
             }
         }
-        auto* item = cell(4, diff);
+        auto* item = cell(4, QStringLiteral("  ") + diff, Qt::AlignLeft | Qt::AlignVCenter);
         if (differs) {
             QFont font = item->font();
             font.setBold(true);
@@ -372,7 +376,12 @@ void CompareDialog::refresh() {
                 }
         m_checks->setItem(row, 2, a);
         m_checks->setItem(row, 3, b);
+        auto* what = new QTableWidgetItem(d.messageB.isEmpty() ? tr("(not checked in B) %1").arg(d.messageA) : d.messageB);
+        what->setToolTip(tr("A: %1\nB: %2").arg(d.messageA, d.messageB));
+        m_checks->setItem(row, 4, what);
     }
+    m_checks->setVisible(!c.checks.empty());
+    m_noChecks->setVisible(c.checks.empty());
     m_summary->setText(tr("A: “%1” · B: “%2” — %3 that differ.")
                            .arg(m_a->currentText(), m_b->currentText(),
                                 countOf(static_cast<long long>(c.checks.size()), tr("check"), tr("checks"))));

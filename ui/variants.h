@@ -110,6 +110,7 @@ class CompareDialog : public QDialog {
     QTableWidget* m_figures = nullptr;
     QTableWidget* m_checks = nullptr;
     QLabel* m_summary = nullptr;
+    QLabel* m_noChecks = nullptr;
 };
 
 } // namespace amp::ui
