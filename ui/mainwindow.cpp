@@ -29,6 +29,7 @@
 #include <QFileDialog>
 #include <QFileInfo>
 #include <QLabel>
+#include <QLineEdit>
 #include <QListWidget>
 #include <QMenuBar>
 #include <QMessageBox>
@@ -85,6 +86,10 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent), m_document(new De
         updateTitle();
     });
 
+    // A design file dropped anywhere on the window opens it; line edits would otherwise take the
+    // drop as text.
+    for (auto* line : findChildren<QLineEdit*>())
+        line->setAcceptDrops(false);
     restoreWindowState(this);
     updateTitle();
     showResults();

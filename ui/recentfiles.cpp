@@ -80,6 +80,8 @@ void restoreWindowState(QMainWindow* window) {
             split->restoreState(sp);
 }
 
+bool hasSavedWindowState() { return QSettings().contains(kGeometryKey); }
+
 QString droppedProjectFile(const QMimeData* mime) {
     if (!mime || !mime->hasUrls())
         return {};

@@ -28,6 +28,8 @@ void fillRecentMenu(QMenu* menu, const std::function<void(const QString&)>& open
 /// Window geometry and the state of toolbars and docks, plus any splitter named "mainSplit".
 void saveWindowState(const QMainWindow* window);
 void restoreWindowState(QMainWindow* window);
+/// Whether a window geometry was kept from an earlier session.
+bool hasSavedWindowState();
 
 /// The first local .ampw file among the dragged URLs, or "".
 QString droppedProjectFile(const QMimeData* mime);
