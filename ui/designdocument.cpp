@@ -189,7 +189,7 @@ QString DesignDocument::fieldText(const QString& path) const {
     return formatFieldValue(plain, value);
 }
 
-EditOutcome DesignDocument::setFieldText(const QString& path, const QString& text) {
+EditOutcome DesignDocument::setFieldText(const QString& path, const QString& text, const QString& commandText) {
     EditOutcome out;
     const FieldSpec* spec = findField(path.toStdString());
     if (!spec) {
@@ -257,7 +257,7 @@ EditOutcome DesignDocument::setFieldText(const QString& path, const QString& tex
         out.error = tr("%1 is a list and is edited in its own table").arg(label);
         return out;
     }
-    return setFieldValue(path, value);
+    return setFieldValue(path, value, commandText);
 }
 
 EditOutcome DesignDocument::setFieldValue(const QString& path, const nlohmann::json& value,

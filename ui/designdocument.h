@@ -53,7 +53,7 @@ class DesignDocument : public QObject {
     /// Parse `text` for the field at `path` (units, range, choices) and set it. An invalid entry
     /// leaves the design unchanged and returns the message; an entry equal to the current value
     /// is accepted without pushing a command.
-    EditOutcome setFieldText(const QString& path, const QString& text);
+    EditOutcome setFieldText(const QString& path, const QString& text, const QString& commandText = {});
     /// Set a field (or a whole sub-object such as "bank.device") to a JSON value. The result is
     /// validated like a project file (field ranges, then cross-field rules) before it is taken.
     /// `commandText` names the edit on the undo stack (default: "Set <label> to <value>").

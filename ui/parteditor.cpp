@@ -100,7 +100,7 @@ PartEditorDialog::PartEditorDialog(const QString& kind, const nlohmann::json& st
         m_start["id"] = fromId.empty() ? std::string("my-") + kind.toStdString() : "my-" + fromId;
     m_start.erase("invented"); // one's own part is a real one from a datasheet
     if (!fromId.empty() && m_start.contains("name") && m_start["name"].is_string())
-        m_start["note"] = "Started from library part " + fromId + "; values from the datasheet of the part.";
+        m_start["note"] = "Entered from a datasheet, starting from library part " + fromId + ".";
 
     auto* outer = new QVBoxLayout(this);
     auto* intro = new QLabel(tr("Enter the values from the datasheet. Numbers take a unit or prefix (3.5 mΩ, "

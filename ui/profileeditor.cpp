@@ -449,13 +449,17 @@ bool ProfileEditor::enterCell(int row, int column, const QString& text) {
     if (key.isEmpty() || row < 0 || row >= static_cast<int>(m_document->design().dutyProfile.size()))
         return false;
     const QString path = segmentPath(row, key);
-    const EditOutcome r = m_document->setFieldText(path, text);
+    const FieldSpec* spec = specFor(column);
+    const QString what = spec ? toQ(spec->label) : key;
+    // The undo entry names the segment: "Set Torque of “Hill climb” to 12.5 N·m".
+    const QString segment = toQ(m_document->design().dutyProfile[static_cast<std::size_t>(row)].name);
+    QString shown = text.trimmed();
+    if (spec && spec->type == FieldSpec::Type::Choice)
+        shown = FieldEditor::choiceLabel(shown.toStdString());
+    const EditOutcome r =
+        m_document->setFieldText(path, text, tr("Set %1 of “%2” to %3").arg(what, segment, shown.left(40)));
     if (!r) {
-        const FieldSpec* spec = specFor(column);
-        const QString what = spec ? toQ(spec->label) : key;
-        showError(tr("Segment %1 (%2), %3: %4")
-                      .arg(row + 1)
-                      .arg(toQ(m_document->design().dutyProfile[static_cast<std::size_t>(row)].name), what, r.error));
+        showError(tr("Segment %1 (%2), %3: %4").arg(row + 1).arg(segment, what, r.error));
         refresh(); // the cell shows the design's value again; the reason stays below the table
         m_table->setCurrentCell(row, column);
         return false;

@@ -144,6 +144,9 @@ void TestEditors::profileCellEditsUndoRedoExactly() {
     QCOMPARE(QString::fromStdString(doc.design().dutyProfile[2].direction), QString("reverse"));
     states.push_back(doc.design());
     QCOMPARE(undo->count(), 5);
+    // The undo entries name the segment.
+    QVERIFY2(undo->text(1).contains("Torque") && undo->text(1).contains(QString::fromStdString(states[0].dutyProfile[2].name)),
+             qPrintable(undo->text(1)));
     // The same value again is no command.
     QVERIFY(editor.enterCell(2, ProfileEditor::Speed, "1800"));
     QCOMPARE(undo->count(), 5);
