@@ -31,6 +31,7 @@
 #include <QDropEvent>
 #include <QLabel>
 #include <QListWidget>
+#include <QMenu>
 #include <QMimeData>
 #include <QScrollArea>
 #include <QStackedWidget>
@@ -528,6 +529,22 @@ void TestEditors::undoFollowsItsVariant() {
     QVERIFY(switcher);
     QCOMPARE(switcher->currentText(), QString("Hot day"));
     QCOMPARE(switcher->count(), 2);
+
+    // The Variants menu lists both, the active one ticked; choosing "Main" switches to it.
+    QMenu menu;
+    fillVariantMenu(&menu, doc, &window);
+    QAction* mainAction = nullptr;
+    for (QAction* a : menu.actions())
+        if (a->text() == "Main")
+            mainAction = a;
+        else if (a->text() == "Hot day")
+            QVERIFY(a->isChecked());
+    QVERIFY(mainAction && !mainAction->isChecked());
+    mainAction->trigger();
+    QCOMPARE(doc->activeVariantName(), QString("Main"));
+    QCOMPARE(switcher->currentText(), QString("Main"));
+    QVERIFY(doc->design() == main);
+    doc->undoStack()->setClean();
 }
 
 void TestEditors::compareNamesDifferences() {
@@ -572,6 +589,14 @@ void TestEditors::recentFilesGeometryAndDrop() {
         QVERIFY(window.openFile(first));
         QVERIFY(window.openFile(second));
         QCOMPARE(recentFiles(), (QStringList{QFileInfo(second).absoluteFilePath(), QFileInfo(first).absoluteFilePath()}));
+        // File → Recent designs: newest first, each entry opens its file.
+        QMenu recent;
+        QStringList opened;
+        fillRecentMenu(&recent, [&](const QString& f) { opened << f; });
+        QVERIFY(recent.actions().size() >= 2);
+        QVERIFY(recent.actions()[0]->text().contains("recent-b"));
+        recent.actions()[1]->trigger();
+        QCOMPARE(opened, QStringList{QFileInfo(first).absoluteFilePath()});
         window.resize(1111, 777);
         window.close(); // keeps geometry and state
     }
