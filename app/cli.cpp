@@ -164,7 +164,7 @@ int evaluateCommand(const QStringList& args) {
     const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
     if (!chosen)
         return 1;
-    Results results = evaluate(chosen->design);
+    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true});
     results.variant = chosen->variant;
     if (!p.isSet(quiet))
         printSummary(results);
@@ -269,7 +269,7 @@ int runHeadless(const QString& designFile, const QString& jsonOut) {
     if (!chosen)
         return 1;
     out("No display: evaluating " + QFileInfo(designFile).absoluteFilePath() + " headless.");
-    Results results = evaluate(chosen->design);
+    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true});
     results.variant = chosen->variant;
     printSummary(results);
     if (!writeJson(results, jsonOut))
