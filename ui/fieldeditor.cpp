@@ -201,6 +201,15 @@ QString FieldEditor::choiceLabel(const std::string& choice) {
         return QStringLiteral("MOSFET");
     if (choice == "pvc" || choice == "xlpe" || choice == "tvs")
         return toQ(choice).toUpper();
+    // Pairs read as pairs.
+    if (choice == "torqueSpeed")
+        return tr("Torque & speed");
+    if (choice == "currentSpeed")
+        return tr("Current & speed");
+    if (choice == "currentDuty")
+        return tr("Current & duty");
+    if (choice == "diodeZener")
+        return tr("Diode + Zener");
     QString out;
     for (const QChar c : toQ(choice)) {
         if (c.isUpper() && !out.isEmpty())
