@@ -26,6 +26,8 @@ struct FieldSpec {
     std::vector<std::string> choices; ///< for Choice
     std::string label;              ///< short label for the workbench
     std::string help;               ///< meaning and typical range, for tooltips and docs
+    bool required = false;          ///< part files only: the key must be present (a design's
+                                    ///< keys are all optional with documented defaults)
 };
 
 /// Every field of a design, in a stable order (sections as in the workbench).
@@ -42,9 +44,22 @@ const FieldSpec* findField(std::string_view concretePath);
 /// "dutyProfile[2].duration_s" -> "dutyProfile[].duration_s".
 std::string fieldPattern(std::string_view concretePath);
 
+/// The spec of a part field for a concrete path relative to the part ("mosfet.rdsOn25_ohm",
+/// "zthJc[1].tau_s"), or nullptr.
+const FieldSpec* findPartField(std::string_view partKind, std::string_view concretePath);
+
 /// Check a raw design JSON object: every known field's type and range, unknown keys, choices.
+/// A top-level integer "formatVersion" is tolerated (a project file carries it beside the design).
 /// Returns every problem found (empty when valid).
 std::vector<Problem> validateDesignJson(const nlohmann::json& design);
+
+/// Check one value against one spec (type, finiteness, range, choice); `path` names it in the
+/// messages. Used by the field editors and by --set.
+std::vector<Problem> checkFieldValue(const FieldSpec& spec, const nlohmann::json& value,
+                                     std::string_view path);
+
+/// "1 V … 1 kV", "one of: a, b", "1 … 64 items": the allowed values in words.
+std::string describeRange(const FieldSpec& spec);
 
 /// Check a raw part object against partFields(kind); `prefix` is prepended to the paths.
 std::vector<Problem> validatePartJson(const nlohmann::json& part, std::string_view partKind,
@@ -53,6 +68,10 @@ std::vector<Problem> validatePartJson(const nlohmann::json& part, std::string_vi
 /// Cross-field checks that a single range cannot express (min ≤ nominal ≤ max voltage, ...).
 struct Design;
 std::vector<Problem> validateDesign(const Design& design);
+
+/// Every check on a design held in memory: the field table's types and ranges on its JSON form,
+/// then validateDesign().
+std::vector<Problem> checkDesign(const Design& design);
 
 /// Convert every string value whose key carries a unit suffix ("rdsOn25_ohm": "3.5 mΩ") into its
 /// SI number, in place, recursively. Problems name the path and the text.

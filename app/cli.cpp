@@ -1,0 +1,264 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "app/cli.h"
+
+#include "core/engine/evaluate.h"
+#include "core/engine/results_json.h"
+#include "core/io/datapaths.h"
+#include "core/io/partslibrary.h"
+#include "core/io/projectfile.h"
+#include "core/model/fields.h"
+#include "core/units/units.h"
+
+#include <QCommandLineParser>
+#include <QCoreApplication>
+#include <QDir>
+#include <QFileInfo>
+#include <QStandardPaths>
+
+#include <nlohmann/json.hpp>
+#include <spdlog/spdlog.h>
+
+#include <cstdio>
+#include <fstream>
+
+namespace amp::app {
+
+namespace {
+
+void out(const QString& text) {
+    std::fputs(text.toLocal8Bit().constData(), stdout);
+    std::fputc('\n', stdout);
+}
+
+void err(const QString& text) {
+    std::fputs(("ampwright: " + text).toLocal8Bit().constData(), stderr);
+    std::fputc('\n', stderr);
+}
+
+DataPaths dataPaths() {
+    const auto exeDir = QCoreApplication::applicationDirPath().toStdString();
+    return findDataPaths(exeDir, AMPWRIGHT_SOURCE_DIR);
+}
+
+QString fmt(double v, units::Unit u, int digits = 3) { return QString::fromStdString(units::format(v, u, digits)); }
+
+// Load a design, apply --set overrides (validated like a file), report problems on stderr.
+std::optional<Design> loadWithOverrides(const QString& file, const QStringList& overrides) {
+    const std::string name = QFileInfo(file).fileName().toStdString();
+    auto reportAll = [&](const std::vector<Problem>& problems) {
+        for (const auto& p : problems)
+            err(QString::fromStdString(name + ": " + (p.path.empty() ? "" : p.path + ": ") + p.message));
+    };
+    const LoadResult loaded = loadProject(file.toStdString());
+    if (!loaded) {
+        reportAll(loaded.problems);
+        return std::nullopt;
+    }
+    if (overrides.isEmpty())
+        return loaded.design;
+    nlohmann::json project = projectToJson(*loaded.design);
+    for (const auto& o : overrides) {
+        const auto problems = applyOverride(project, o.toStdString());
+        if (!problems.empty()) {
+            for (const auto& p : problems)
+                err(QString::fromStdString("--set " + p.path + ": " + p.message));
+            return std::nullopt;
+        }
+    }
+    const LoadResult changed = designFromJson(project);
+    if (!changed) {
+        for (const auto& p : changed.problems)
+            err(QString::fromStdString("--set: " + (p.path.empty() ? "" : p.path + ": ") + p.message));
+        return std::nullopt;
+    }
+    return changed.design;
+}
+
+void printSummary(const Results& r) {
+    out(QString("%1  [%2]").arg(QString::fromStdString(r.design), QString::fromStdString(r.topology)));
+    for (const auto& op : r.operatingPoints) {
+        double tjMax = 0.0;
+        for (const auto& d : op.devices)
+            tjMax = std::max(tjMax, d.tj_C);
+        out(QString("  %1: motor %2, duty %3 %, battery %4, loss %5, hottest junction %6%7")
+                .arg(QString::fromStdString(op.name), fmt(op.motorCurrent_A, units::Unit::Ampere),
+                     QString::number(op.duty * 100.0, 'f', 1), fmt(op.batteryCurrent_A, units::Unit::Ampere),
+                     fmt(op.totalLoss_W, units::Unit::Watt), fmt(tjMax, units::Unit::Celsius),
+                     op.valid ? QString() : QString("  (not reached)")));
+    }
+    int counts[4] = {0, 0, 0, 0};
+    for (const auto& c : r.checks)
+        ++counts[static_cast<int>(c.severity)];
+    out(QString("  checks: %1 pass, %2 advice, %3 warning, %4 fail")
+            .arg(counts[0])
+            .arg(counts[1])
+            .arg(counts[2])
+            .arg(counts[3]));
+    for (const auto& c : r.checks)
+        if (c.severity == Severity::Fail || c.severity == Severity::Warning)
+            out(QString("    %1 %2: %3")
+                    .arg(QString::fromLatin1(toString(c.severity)).toUpper(), QString::fromStdString(c.id),
+                         QString::fromStdString(c.message)));
+}
+
+bool writeJson(const Results& r, const QString& path) {
+    const std::string text = resultsToJson(r).dump(2) + "\n";
+    const SaveResult saved = writeFileAtomically(path.toStdString(), text, SaveOptions{false, {}});
+    if (!saved)
+        err("cannot write the results JSON: " + QString::fromStdString(saved.error));
+    return saved.ok;
+}
+
+int evaluateCommand(const QStringList& args) {
+    QCommandLineParser p;
+    p.setApplicationDescription("Evaluate a design and write its results JSON.");
+    p.addHelpOption();
+    p.addPositionalArgument("evaluate", "The command.");
+    p.addPositionalArgument("design", "The design file (.ampw).");
+    QCommandLineOption json("json", "Write the results JSON to <file>.", "file");
+    QCommandLineOption set("set", "Override a design field: path=value, e.g. bank.count=3 or "
+                                  "bank.device.mosfet.rdsOn25_ohm=\"3.5 mΩ\". Repeatable.",
+                           "path=value");
+    QCommandLineOption quiet("quiet", "Print nothing but errors.");
+    QCommandLineOption verbose("verbose", "Log details to the console.");
+    p.addOptions({json, set, quiet, verbose});
+    if (!p.parse(args)) {
+        err(p.errorText());
+        return 2;
+    }
+    if (p.isSet("help")) {
+        out(p.helpText());
+        return 0;
+    }
+    const QStringList pos = p.positionalArguments();
+    if (pos.size() != 2) {
+        err("evaluate needs exactly one design file (see ampwright evaluate --help)");
+        return 2;
+    }
+    const auto design = loadWithOverrides(pos[1], p.values(set));
+    if (!design)
+        return 1;
+    const Results results = evaluate(*design);
+    if (!p.isSet(quiet))
+        printSummary(results);
+    if (p.isSet(json)) {
+        if (!writeJson(results, p.value(json)))
+            return 1;
+        if (!p.isSet(quiet))
+            out("results written to " + QFileInfo(p.value(json)).absoluteFilePath());
+    }
+    return 0;
+}
+
+int fieldsCommand(const QStringList&) {
+    out(QString::fromStdString(fieldsMarkdown()));
+    return 0;
+}
+
+int partsCommand(const QStringList& args) {
+    QCommandLineParser p;
+    p.setApplicationDescription("List the parts library (shipped parts, then the user parts folder).");
+    p.addHelpOption();
+    p.addPositionalArgument("parts", "The command.");
+    QCommandLineOption user("user", "Read user parts from <folder> instead of the default.", "folder");
+    p.addOption(user);
+    if (!p.parse(args)) {
+        err(p.errorText());
+        return 2;
+    }
+    if (p.isSet("help")) {
+        out(p.helpText());
+        return 0;
+    }
+    const QString userDir = p.isSet(user) ? p.value(user)
+                                          : QStandardPaths::writableLocation(QStandardPaths::AppDataLocation) +
+                                                "/parts";
+    const auto lib = loadPartsLibrary({dataPaths().parts, userDir.toStdString()});
+    for (const auto& s : lib.switches)
+        out(QString("switch     %1  %2").arg(QString::fromStdString(s.partId), -22).arg(QString::fromStdString(s.name)));
+    for (const auto& d : lib.diodes)
+        out(QString("diode      %1  %2").arg(QString::fromStdString(d.partId), -22).arg(QString::fromStdString(d.name)));
+    for (const auto& i : lib.interfaces)
+        out(QString("interface  %1  %2").arg(QString::fromStdString(i.partId), -22).arg(QString::fromStdString(i.name)));
+    for (const auto& h : lib.heatsinks)
+        out(QString("heatsink   %1  %2").arg(QString::fromStdString(h.partId), -22).arg(QString::fromStdString(h.name)));
+    for (const auto& c : lib.contactors)
+        out(QString("contactor  %1  %2").arg(QString::fromStdString(c.partId), -22).arg(QString::fromStdString(c.name)));
+    for (const auto& pr : lib.problems)
+        err(QString::fromStdString(pr.file.string() + ": " + (pr.problem.path.empty() ? "" : pr.problem.path + ": ") +
+                                   pr.problem.message));
+    out(QString("user parts folder: %1").arg(userDir));
+    return lib.problems.empty() ? 0 : 1;
+}
+
+} // namespace
+
+QString demoProject() {
+    return QString::fromStdString((dataPaths().demos / "garden-cart.ampw").string());
+}
+
+bool isCommand(const QString& word) {
+    return word == "evaluate" || word == "fields" || word == "parts";
+}
+
+QString helpText() {
+    return QStringLiteral(
+        "Usage: ampwright [DESIGN.ampw]\n"
+        "       ampwright COMMAND [options]\n"
+        "\n"
+        "Ampwright designs the power stage of brushed DC motor drives: a parallel switch bank under PWM,\n"
+        "its losses and junction temperatures, heatsink, drive, capacitors and reversing contactor.\n"
+        "\n"
+        "Without a command, opens the workbench on DESIGN (or the demo project). With no display\n"
+        "(DISPLAY and WAYLAND_DISPLAY unset) it evaluates the design headless instead, prints a summary\n"
+        "and writes <name>-results.json in the current folder.\n"
+        "\n"
+        "Commands:\n"
+        "  evaluate DESIGN [--json OUT] [--set path=value ...]\n"
+        "        Evaluate a design; print a summary; write the results JSON to OUT.\n"
+        "        --set overrides a field by its dotted path, [i] for list items, e.g.\n"
+        "        --set bank.count=3  --set dutyProfile[0].duration_s=20\n"
+        "        --set bank.device.mosfet.rdsOn25_ohm=\"3.5 mΩ\"   (JSON, or a number with a unit)\n"
+        "  fields\n"
+        "        Print every design field with its unit, range and meaning (Markdown).\n"
+        "  parts [--user FOLDER]\n"
+        "        List the parts library and any part file that was skipped, with the reason.\n"
+        "\n"
+        "Options:\n"
+        "  -h, --help     This text (COMMAND --help for one command).\n"
+        "  -v, --version  The version.\n"
+        "  --verbose      Log details to the console.\n"
+        "\n"
+        "Exit status: 0 on success; 1 when a design, part or output file is bad (the message names the\n"
+        "file and the field); 2 for a bad command line.\n"
+        "\n"
+        "Ampwright assists a competent person. Local codes, the machine's or vehicle's regulations and\n"
+        "licensed practice decide.\n");
+}
+
+int runHeadless(const QString& designFile, const QString& jsonOut) {
+    const auto design = loadWithOverrides(designFile, {});
+    if (!design)
+        return 1;
+    out("No display: evaluating " + QFileInfo(designFile).absoluteFilePath() + " headless.");
+    const Results results = evaluate(*design);
+    printSummary(results);
+    if (!writeJson(results, jsonOut))
+        return 1;
+    out("results written to " + QFileInfo(jsonOut).absoluteFilePath());
+    return 0;
+}
+
+int runCommand(const QStringList& args) {
+    const QString verb = args.value(1);
+    if (verb == "evaluate")
+        return evaluateCommand(args);
+    if (verb == "fields")
+        return fieldsCommand(args);
+    if (verb == "parts")
+        return partsCommand(args);
+    err("unknown command '" + verb + "' (see ampwright --help)");
+    return 2;
+}
+
+} // namespace amp::app

@@ -1,0 +1,332 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "core/io/projectfile.h"
+
+#include "core/model/design_json.h"
+#include "core/model/fields.h"
+#include "core/units/units.h"
+
+#include <spdlog/spdlog.h>
+
+#include <cerrno>
+#include <cstdio>
+#include <cstring>
+#include <fstream>
+#include <sstream>
+#include <stdexcept>
+#include <system_error>
+
+#if defined(__unix__) || defined(__APPLE__)
+#include <fcntl.h>
+#include <unistd.h>
+#endif
+
+namespace amp {
+
+using nlohmann::json;
+
+MigrationChain defaultMigrations() {
+    // Version 1 is the first format: no steps yet. Each later version adds one step here
+    // (from = N rewrites N into N + 1) with a fixture of version N under tests/data/migrations/.
+    return MigrationChain{kProjectFormatVersion, {}};
+}
+
+namespace {
+
+// Line and column of a byte offset, for parse-error messages a user can act on.
+std::string position(std::string_view text, std::size_t byte) {
+    std::size_t line = 1, column = 1;
+    for (std::size_t i = 0; i < byte && i < text.size(); ++i) {
+        if (text[i] == '\n') {
+            ++line;
+            column = 1;
+        } else {
+            ++column;
+        }
+    }
+    return "line " + std::to_string(line) + ", column " + std::to_string(column);
+}
+
+LoadResult failure(std::string path, std::string message) {
+    LoadResult r;
+    r.problems.push_back({std::move(path), std::move(message)});
+    return r;
+}
+
+} // namespace
+
+LoadResult designFromJson(const json& project) {
+    LoadResult result;
+    if (!project.is_object())
+        return failure("", "the project must be a JSON object");
+    json body = project;
+    body.erase("formatVersion");
+    result.problems = validateDesignJson(body);
+    if (!result.problems.empty())
+        return result;
+    Design design;
+    try {
+        design = body.get<Design>();
+    } catch (const std::exception& e) {
+        // The validator should have caught every type problem; this is the safety net.
+        return failure("", std::string("the project does not match the design structure: ") + e.what());
+    }
+    normalizeBank(design.bank);
+    result.problems = validateDesign(design);
+    if (result.problems.empty())
+        result.design = std::move(design);
+    return result;
+}
+
+LoadResult parseProject(std::string_view text, const MigrationChain& chain) {
+    json project;
+    try {
+        project = json::parse(text.begin(), text.end());
+    } catch (const json::parse_error& e) {
+        std::string what = e.what();
+        // nlohmann's message starts with "[json.exception.parse_error.101] parse error at line…";
+        // keep the readable part after the last ']'.
+        const auto cut = what.find("] ");
+        if (cut != std::string::npos)
+            what = what.substr(cut + 2);
+        return failure("", "not valid JSON (" + position(text, e.byte == 0 ? 0 : e.byte - 1) + "): " + what);
+    }
+    if (!project.is_object())
+        return failure("", "the file must hold a JSON object with a formatVersion");
+    const auto version = project.find("formatVersion");
+    if (version == project.end())
+        return failure("formatVersion", "missing: this does not look like an Ampwright project");
+    if (!version->is_number_integer())
+        return failure("formatVersion", "must be a whole number, found " + version->dump());
+    const int fileVersion = version->get<int>();
+    if (fileVersion > chain.current)
+        return failure("formatVersion",
+                       "the file was written by a newer Ampwright (format " + std::to_string(fileVersion) +
+                           "); this version reads formats up to " + std::to_string(chain.current) +
+                           ". Open it with a newer Ampwright.");
+    if (fileVersion < 1)
+        return failure("formatVersion", "must be 1 or more, found " + std::to_string(fileVersion));
+
+    std::vector<std::string> applied;
+    for (int v = fileVersion; v < chain.current; ++v) {
+        const MigrationStep* step = nullptr;
+        for (const auto& s : chain.steps)
+            if (s.from == v)
+                step = &s;
+        if (step == nullptr)
+            return failure("formatVersion", "no migration from format " + std::to_string(v) + " to " +
+                                                std::to_string(v + 1));
+        try {
+            step->apply(project);
+        } catch (const std::exception& e) {
+            return failure("formatVersion", "migration from format " + std::to_string(v) + " failed: " + e.what());
+        }
+        project["formatVersion"] = v + 1;
+        applied.push_back(step->description);
+    }
+    LoadResult result = designFromJson(project);
+    result.fileVersion = fileVersion;
+    result.migrationsApplied = std::move(applied);
+    return result;
+}
+
+LoadResult loadProject(const std::filesystem::path& file, const MigrationChain& chain) {
+    std::ifstream in(file, std::ios::binary);
+    if (!in)
+        return failure("", "cannot open " + file.string() + ": " + std::strerror(errno));
+    std::ostringstream ss;
+    ss << in.rdbuf();
+    if (in.bad())
+        return failure("", "cannot read " + file.string());
+    return parseProject(ss.str(), chain);
+}
+
+json projectToJson(const Design& design) {
+    json j = design;
+    j["formatVersion"] = kProjectFormatVersion;
+    return j;
+}
+
+SaveResult writeFileAtomically(const std::filesystem::path& file, std::string_view text,
+                               const SaveOptions& options) {
+    namespace fs = std::filesystem;
+    const fs::path tmp = file.string() + ".tmp";
+    const fs::path backup = file.string() + ".bak";
+    auto stage = [&](std::string_view name) {
+        if (options.hook)
+            options.hook(name);
+    };
+    std::FILE* f = nullptr;
+    try {
+        stage("open");
+        f = std::fopen(tmp.c_str(), "wb");
+        if (f == nullptr)
+            throw std::runtime_error("cannot create " + tmp.string() + ": " + std::strerror(errno));
+        // Write in chunks so that a crash-safety test can stop the process in the middle of a write.
+        constexpr std::size_t chunk = 4096;
+        for (std::size_t at = 0; at < text.size(); at += chunk) {
+            stage("write");
+            const std::size_t n = std::min(chunk, text.size() - at);
+            if (std::fwrite(text.data() + at, 1, n, f) != n)
+                throw std::runtime_error("cannot write " + tmp.string() + ": " + std::strerror(errno));
+        }
+        stage("flush");
+        if (std::fflush(f) != 0)
+            throw std::runtime_error("cannot flush " + tmp.string() + ": " + std::strerror(errno));
+#if defined(__unix__) || defined(__APPLE__)
+        if (::fsync(::fileno(f)) != 0)
+            throw std::runtime_error("cannot sync " + tmp.string() + ": " + std::strerror(errno));
+#endif
+        const int closed = std::fclose(f);
+        f = nullptr;
+        if (closed != 0)
+            throw std::runtime_error("cannot close " + tmp.string() + ": " + std::strerror(errno));
+        std::error_code ec;
+        if (options.keepBackup && fs::exists(file, ec)) {
+            stage("backup");
+            fs::copy_file(file, backup, fs::copy_options::overwrite_existing, ec);
+            if (ec)
+                throw std::runtime_error("cannot keep a backup " + backup.string() + ": " + ec.message());
+        }
+        stage("rename");
+        fs::rename(tmp, file, ec);
+        if (ec)
+            throw std::runtime_error("cannot replace " + file.string() + ": " + ec.message());
+#if defined(__unix__) || defined(__APPLE__)
+        // Make the rename itself durable.
+        const auto dir = file.has_parent_path() ? file.parent_path() : fs::path(".");
+        const int dfd = ::open(dir.c_str(), O_RDONLY | O_DIRECTORY);
+        if (dfd >= 0) {
+            ::fsync(dfd);
+            ::close(dfd);
+        }
+#endif
+        return {true, {}};
+    } catch (const std::exception& e) {
+        if (f != nullptr)
+            std::fclose(f);
+        std::error_code ec;
+        fs::remove(tmp, ec);
+        spdlog::warn("save of {} failed: {}", file.string(), e.what());
+        return {false, e.what()};
+    }
+}
+
+SaveResult saveProject(const Design& design, const std::filesystem::path& file, const SaveOptions& options) {
+    return writeFileAtomically(file, projectToJson(design).dump(2) + "\n", options);
+}
+
+namespace {
+
+struct PathToken {
+    std::string key;
+    std::optional<std::size_t> index;
+};
+
+// "dutyProfile[0].duration_s" -> {dutyProfile,[0]}, {duration_s}
+std::optional<std::vector<PathToken>> splitPath(std::string_view path, std::string& error) {
+    std::vector<PathToken> tokens;
+    std::size_t i = 0;
+    while (i < path.size()) {
+        std::size_t end = path.find_first_of(".[", i);
+        std::string key(path.substr(i, end == std::string_view::npos ? std::string_view::npos : end - i));
+        if (key.empty()) {
+            error = "empty name in the path";
+            return std::nullopt;
+        }
+        tokens.push_back({key, std::nullopt});
+        i = end == std::string_view::npos ? path.size() : end;
+        while (i < path.size() && path[i] == '[') {
+            const auto close = path.find(']', i);
+            if (close == std::string_view::npos) {
+                error = "missing ']' in the path";
+                return std::nullopt;
+            }
+            const std::string digits(path.substr(i + 1, close - i - 1));
+            if (digits.empty() || digits.find_first_not_of("0123456789") != std::string::npos) {
+                error = "list index '" + digits + "' is not a whole number";
+                return std::nullopt;
+            }
+            tokens.push_back({"", static_cast<std::size_t>(std::stoul(digits))});
+            i = close + 1;
+        }
+        if (i < path.size()) {
+            if (path[i] != '.') {
+                error = "unexpected '" + std::string(1, path[i]) + "' in the path";
+                return std::nullopt;
+            }
+            ++i;
+            if (i == path.size()) {
+                error = "the path ends with '.'";
+                return std::nullopt;
+            }
+        }
+    }
+    if (tokens.empty()) {
+        error = "empty path";
+        return std::nullopt;
+    }
+    return tokens;
+}
+
+} // namespace
+
+std::vector<Problem> applyOverride(json& project, std::string_view assignment) {
+    const auto eq = assignment.find('=');
+    if (eq == std::string_view::npos || eq == 0)
+        return {{std::string(assignment), "an override must read path=value, e.g. bank.count=3"}};
+    const std::string path(assignment.substr(0, eq));
+    const std::string text(assignment.substr(eq + 1));
+    std::string error;
+    const auto tokens = splitPath(path, error);
+    if (!tokens)
+        return {{path, error}};
+
+    // Walk to the parent of the last token.
+    json* node = &project;
+    for (std::size_t t = 0; t + 1 < tokens->size(); ++t) {
+        const auto& tok = (*tokens)[t];
+        if (tok.index) {
+            if (!node->is_array())
+                return {{path, "'" + path + "' indexes something that is not a list"}};
+            if (*tok.index >= node->size())
+                return {{path, "item " + std::to_string(*tok.index) + " does not exist: the list has " +
+                                   std::to_string(node->size()) + " items"}};
+            node = &(*node)[*tok.index];
+        } else {
+            if (!node->is_object() || !node->contains(tok.key))
+                return {{path, "unknown field '" + path + "'"}};
+            node = &(*node)[tok.key];
+        }
+    }
+    const auto& last = tokens->back();
+    const FieldSpec* spec = findField(path);
+    if (last.index) {
+        if (!node->is_array() || *last.index >= node->size())
+            return {{path, "item " + std::to_string(*last.index) + " does not exist"}};
+    } else if (!node->is_object() || (!node->contains(last.key) && spec == nullptr)) {
+        return {{path, "unknown field '" + path + "'"}};
+    }
+
+    // The value: JSON when it parses as such, else a number with a unit, else plain text.
+    json value;
+    bool parsedJson = false;
+    try {
+        value = json::parse(text);
+        parsedJson = true;
+    } catch (const json::parse_error&) {
+    }
+    const auto unit = last.index ? std::nullopt : units::unitFromKey(last.key);
+    if (unit && (!parsedJson || value.is_string())) {
+        const auto parsed = units::parse(parsedJson ? value.get<std::string>() : text, *unit);
+        if (!parsed)
+            return {{path, parsed.error}};
+        value = *parsed.value;
+    } else if (!parsedJson) {
+        value = text; // text and choice fields take the raw words
+    }
+    json& target = last.index ? (*node)[*last.index] : (*node)[last.key];
+    target = std::move(value);
+    return {};
+}
+
+} // namespace amp
