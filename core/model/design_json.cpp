@@ -58,10 +58,10 @@ AMP_JSON(Motor, kind, armatureResistance20_ohm, windingTemperature_C,
                                                 rotorInertia_kgm2, loadInertia_kgm2, demagCurrent_A,
                                                 magnetisation)
 AMP_JSON(Pwm, frequency_Hz, topology, currentLimit_A, maxDuty,
-                                                deadTime_s)
+                                                deadTime_s, fullBridgeModulation, brakingCutoutDelay_s)
 AMP_JSON(Drive, supply_V, minSupply_V, driverResistance_ohm,
                                                 driverPeakCurrent_A, pulldown_ohm, baseDriveCurrent_A,
-                                                forcedBeta)
+                                                forcedBeta, shortCircuitResponse_s)
 AMP_JSON(BankDevice, rdsOnDeviation, vthDeviation_V, vbeDeviation_V,
                                                 betaDeviation, gateResistorDeviation_ohm,
                                                 ballastDeviation_ohm, legResistanceDeviation_ohm)
@@ -80,8 +80,15 @@ AMP_JSON(Segment, name, duration_s, mode, torque_Nm, speed_rpm,
 AMP_JSON(Wiring, batteryCableLength_m, batteryCable_mm2,
                                                 motorCableLength_m, motorCable_mm2, cableTemperature_C,
                                                 busCapacitance_F)
+AMP_JSON(PowerLayout, capacitorCount, capacitorRippleRating_A, capacitorEsr_ohm,
+                                                capacitorVoltageRating_V, capacitorDerating,
+                                                capacitorThermalResistance_KperW, capacitorMaxTemperature_C,
+                                                capacitorInductance_H, commutationLoopInductance_H, loopLayout,
+                                                loopLength_m, loopConductorRadius_m, loopSpacing_m,
+                                                loopPlateWidth_m, packageInductance_H, batteryCableSpacing_m,
+                                                overshootDerating)
 AMP_JSON(Design, meta, supply, motor, pwm, drive, bank, heatsink,
-                                                reversing, dutyProfile, wiring)
+                                                reversing, dutyProfile, wiring, layout)
 
 void normalizeBank(Bank& bank) {
     if (bank.count < 0)
