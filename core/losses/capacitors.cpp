@@ -19,6 +19,7 @@ CapacitorResult busCapacitors(const CapacitorInput& in) {
     c.positive("rippleRating_A", in.rippleRating_A, "the capacitor ripple-current rating");
     c.nonNegative("esr_ohm", in.esr_ohm, "the capacitor ESR");
     c.positive("capacitance_F", in.capacitance_F, "the capacitance per capacitor");
+    c.nonNegative("totalCapacitance_F", in.totalCapacitance_F, "the total bus capacitance");
     if (in.count < 0)
         c.fail("count", "the number of capacitors must not be negative, got " + std::to_string(in.count));
     c.nonNegative("thermalResistance_KperW", in.thermalResistance_KperW, "the capacitor thermal resistance");
@@ -37,7 +38,7 @@ CapacitorResult busCapacitors(const CapacitorInput& in) {
     for (int pass = 0; pass < 4; ++pass) { // the share depends on the count; settles in a step or two
         share = 1.0;
         if (cable) {
-            const double capTotal = n * in.capacitance_F;
+            const double capTotal = in.totalCapacitance_F > 0.0 ? in.totalCapacitance_F : n * in.capacitance_F;
             const double x = std::pow(2.0 * std::numbers::pi * in.rippleFrequency_Hz, 2) * in.batteryLoopInductance_H * capTotal;
             share = std::abs(x - 1.0) > 1e-6 ? std::abs(x / (x - 1.0)) : 1e6;
         }
@@ -48,7 +49,7 @@ CapacitorResult busCapacitors(const CapacitorInput& in) {
             break;
         n = needed;
     }
-    const double capTotal = n * in.capacitance_F;
+    const double capTotal = in.totalCapacitance_F > 0.0 ? in.totalCapacitance_F : n * in.capacitance_F;
     if (in.batteryLoopInductance_H > 0.0)
         r.resonance_Hz = 1.0 / (2.0 * std::numbers::pi * std::sqrt(in.batteryLoopInductance_H * capTotal));
     r.cableShare = share;

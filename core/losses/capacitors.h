@@ -15,7 +15,7 @@
 // derating to ≈ 80 % of the rating is common practice.
 //
 // Units and valid ranges: currents in A (≥ 0; rating > 0), V in V (> 0), derating 0 … 1 (> 0),
-// ESR in Ω (≥ 0), C in F (> 0), L in H (≥ 0; 0 = ignore the cable), f in Hz (≥ 0), R_th in K/W
+// ESR in Ω (≥ 0), C in F (> 0; a stated total overrides n·C_1), L in H (≥ 0; 0 = ignore the cable), f in Hz (≥ 0), R_th in K/W
 // (≥ 0), temperatures in °C. count 0 means "as many as needed".
 
 #include "core/losses/inputcheck.h"
@@ -34,6 +34,7 @@ struct CapacitorInput {
     double rippleRating_A = 2.0;        ///< per capacitor, at its rated temperature and frequency
     double esr_ohm = 0.05;              ///< per capacitor
     double capacitance_F = 470e-6;      ///< per capacitor
+    double totalCapacitance_F = 0.0;    ///< > 0: the bank's stated total, whatever the count
     int count = 0;                      ///< fitted capacitors (0 = as many as needed)
     double thermalResistance_KperW = 20.0; ///< per capacitor, hot spot to ambient
     double ambient_C = 30.0;

@@ -94,7 +94,9 @@ PathSample diodeOnly(double x, double vf0, double rd) { return {0.0, 0.0, x, vf0
 
 /// A channel conducting in reverse with its body diode in parallel: the diode takes the excess once
 /// the channel drop exceeds its threshold.
-PathSample channelReverse(double x, double r, double vf0, double rd) {
+PathSample channelReverse(double x, double r, double vf0, double rd, bool reverseChannel) {
+    if (!reverseChannel)
+        return diodeOnly(x, vf0, rd);
     const bool diodeGiven = vf0 > 0.0 || rd > 0.0;
     if (!diodeGiven || r <= 0.0 || r * x <= vf0)
         return channelForward(x, r);
@@ -312,13 +314,13 @@ TopologyResult topologyCurrents(const TopologyInput& in) {
                         case LegState::High:
                             bank = leg.highBank;
                             s = outSign >= 0.0 ? channelForward(x, p.bankResistance_ohm)
-                                               : channelReverse(x, p.bankResistance_ohm, p.bodyVf0_V, p.bodyRd_ohm);
+                                               : channelReverse(x, p.bankResistance_ohm, p.bodyVf0_V, p.bodyRd_ohm, p.reverseChannel);
                             bus += out;
                             break;
                         case LegState::Low:
                             bank = leg.lowBank;
                             s = outSign <= 0.0 ? channelForward(x, p.bankResistance_ohm)
-                                               : channelReverse(x, p.bankResistance_ohm, p.bodyVf0_V, p.bodyRd_ohm);
+                                               : channelReverse(x, p.bankResistance_ohm, p.bodyVf0_V, p.bodyRd_ohm, p.reverseChannel);
                             break;
                         case LegState::Dead:
                             bank = outSign > 0.0 ? leg.lowBank : leg.highBank;
@@ -336,8 +338,8 @@ TopologyResult topologyCurrents(const TopologyInput& in) {
                         ba.diode.loss += weight * s.diodeLoss_W;
                         if (s.diode_A > 0.0)
                             ba.diode.fraction += weight;
-                        if (states[k][l] != LegState::Dead)
-                            ba.channel.fraction += weight;
+                        if (states[k][l] != LegState::Dead && (s.channel_A > 0.0 || x == 0.0))
+                            ba.channel.fraction += weight; // gated on and carrying (or no current at all)
                     }
                 }
                 busAvg += weight * bus;

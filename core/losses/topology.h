@@ -21,7 +21,8 @@
 // hands the current to the opposite diode (hard turn-off); a bank turning on against a conducting
 // diode commutates it and takes its recovery (hard turn-on); the other edges are soft.
 // A channel conducting in reverse (synchronous rectification) shares the current with its body
-// diode once R·i exceeds the diode threshold. Dead-time voltage follows the sign of the mean current.
+// diode once R·i exceeds the diode threshold (a bipolar bank has no reverse channel: its anti-parallel
+// diode carries the reverse current alone). Dead-time voltage follows the sign of the mean current.
 // Sources: the switching-cell analysis of Mohan, Undeland & Robbins, "Power Electronics", dc-dc
 // converter and full-bridge chapters (from memory); piecewise-linear diode model, same book.
 //
@@ -55,6 +56,7 @@ struct PathParams {
     double bodyRd_ohm = 0.0;
     double freewheelVf0_V = 0.0;         ///< the chopper's freewheel diodes together
     double freewheelRd_ohm = 0.0;
+    bool reverseChannel = true;          ///< the channel conducts in reverse (MOSFET); false: the diode alone (bipolar)
 };
 
 struct TopologyInput {

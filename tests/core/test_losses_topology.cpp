@@ -232,6 +232,25 @@ class TestLossesTopology : public QObject {
         CHECK_REL(r.banks[1].diodeLoss_W, 0.02 * (0.8 * 44.0 + 4e-3 * 44.0 * 44.0), 0.01);
     }
 
+    void bipolarBankHasNoReverseChannel() {
+        // A bipolar transistor does not conduct collector-to-emitter in reverse usefully (β_R ≪ β_F):
+        // in a half-bridge its anti-parallel diode carries the whole off-time current, so the low bank's
+        // diode loss equals the chopper's freewheel diode loss with the same diode (same waveform).
+        TopologyInput hb = caseB(Topology::SynchronousHalfBridge);
+        hb.paths.bankResistance_ohm = 3e-3;
+        hb.paths.bodyVf0_V = 0.7;
+        hb.paths.bodyRd_ohm = 5e-3;
+        hb.paths.reverseChannel = false;
+        TopologyInput ch = caseB(Topology::LowSideChopper);
+        ch.paths.freewheelVf0_V = 0.7;
+        ch.paths.freewheelRd_ohm = 5e-3;
+        const TopologyResult rh = topologyCurrents(hb);
+        const TopologyResult rc = topologyCurrents(ch);
+        QCOMPARE(rh.banks[1].channelLoss_W, 0.0);
+        CHECK_REL(rh.banks[1].diodeLoss_W, rc.freewheelDiode.loss_W, 1e-6);
+        CHECK_REL(rh.banks[1].diodeFraction, 0.4, 1e-6);
+    }
+
     void brakingReversesTheRoles() {
         // Braking (negative current): the low bank switches hard, the high bank rectifies and its
         // body diode takes the dead times; the bus receives current (negative mean).
