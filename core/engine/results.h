@@ -43,8 +43,8 @@ struct DeviceResult {
     double diode_W = 0.0;           ///< body diode (synchronous topologies)
     double ballast_W = 0.0;
     double leg_W = 0.0;             ///< in the device's leg (busbar/trace); not on the heatsink
-    double drive_W = 0.0;           ///< its share of the gate/base drive power (the driver is fed from the
-                                    ///< battery); the part in the die heats its junction
+    double drive_W = 0.0;           ///< gate/base drive dissipated in the die (internal gate resistance,
+                                    ///< base-emitter); the driver's own and its resistors' share are not here
     double loss_W = 0.0;            ///< device total (without ballast)
     double tj_C = 0.0;
     double tcase_C = 0.0;

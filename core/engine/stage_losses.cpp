@@ -11,6 +11,7 @@
 #include "core/losses/switching_bipolar.h"
 #include "core/losses/switching_mosfet.h"
 #include "core/losses/topology.h"
+#include "core/physics/chopper.h"
 #include "core/physics/mosfet_rdson.h"
 
 #include <fmt/format.h>
@@ -142,7 +143,6 @@ losses::MosfetSwitchingInput mosfetEdgeInput(const Design& d, int device, double
 struct EdgeResult {
     double energy_J = 0.0;
     double currentFall_s = 0.0;         ///< turn-off current fall (for the overshoot)
-    double transition_s = 0.0;          ///< time at full voltage and current (for the SOA)
     std::string problem;
 };
 
@@ -160,8 +160,6 @@ EdgeResult mosfetEdge(const Design& d, int device, double bus_V, double current_
     }
     e.energy_J = turnOn ? r.turnOnEnergy_J + r.cossEnergy_J + r.recoveryEnergy_J : r.turnOffEnergy_J;
     e.currentFall_s = r.turnOffCurrentFall_s;
-    e.transition_s = turnOn ? r.turnOnCurrentRise_s + r.turnOnVoltageFall_s
-                            : r.turnOffVoltageRise_s + r.turnOffCurrentFall_s;
     return e;
 }
 
@@ -226,7 +224,6 @@ EdgeResult bipolarEdge(const Design& d, double bus_V, double current_A, bool tur
     // a MOSFET (losses/switching_mosfet.h).
     e.energy_J = turnOn ? r.turnOnEnergy_J + recoveryCharge_As * bus_V : r.turnOffEnergy_J;
     e.currentFall_s = b.fallTime_s;
-    e.transition_s = turnOn ? 2.0 * b.riseTime_s : 2.0 * b.fallTime_s;
     if (storage_s)
         *storage_s = r.storageTime_s;
     return e;
@@ -267,16 +264,16 @@ LossPlan planLosses(const Design& d) {
     loop.radius_m = lay.loopConductorRadius_m;
     loop.spacing_m = lay.loopSpacing_m;
     loop.width_m = lay.loopPlateWidth_m;
-    loop.separation_m = lay.loopSpacing_m;
+    loop.separation_m = lay.loopPlateSeparation_m;
     loop.packageInductance_H = lay.packageInductance_H;
     loop.devices = p.devices;
     loop.capacitorInductance_H = lay.capacitorInductance_H;
-    loop.capacitors = std::max(1, lay.capacitorCount);
+    loop.capacitors = 1; // capacitorInductance_H is the bank's ESL already
     const auto l = losses::commutationLoopInductance(loop);
     static const std::pair<const char*, const char*> kLoopFields[] = {
         {"stated_H", "layout.commutationLoopInductance_H"}, {"layout", "layout.loopLayout"},
         {"length_m", "layout.loopLength_m"}, {"radius_m", "layout.loopConductorRadius_m"},
-        {"spacing_m", "layout.loopSpacing_m"}, {"separation_m", "layout.loopSpacing_m"},
+        {"spacing_m", "layout.loopSpacing_m"}, {"separation_m", "layout.loopPlateSeparation_m"},
         {"width_m", "layout.loopPlateWidth_m"}, {"packageInductance_H", "layout.packageInductance_H"},
         {"capacitorInductance_H", "layout.capacitorInductance_H"}, {"devices", "bank.count"},
         {"capacitors", "layout.capacitorCount"}};
@@ -445,6 +442,31 @@ ChopperStandIn chopperStandIn(const LossPlan& plan) {
     return s;
 }
 
+void adaptStandIn(const LossPlan& plan, const Design& d, double bankResistance_ohm, double bankDrop_V, double bankTj_C,
+                  ChopperCircuit& circuit) {
+    const ChopperStandIn s = chopperStandIn(plan);
+    circuit.frequency_Hz *= s.frequencyFactor;
+    circuit.switchResistance_ohm = s.onPathBanks * bankResistance_ohm;
+    circuit.switchDrop_V = s.onPathBanks * bankDrop_V;
+    if (s.offPathBanks > 0) {
+        if (plan.mosfet) {
+            // The synchronous banks' channels carry the off-time current (their body diodes the dead
+            // times: the stage adds the difference).
+            circuit.diodeDrop_V = 0.0;
+            circuit.diodeResistance_ohm = s.offPathBanks * bankResistance_ohm;
+        } else {
+            const Antiparallel a = antiparallel(d, false);
+            circuit.diodeDrop_V = s.offPathBanks * losses::diodeThreshold(a.vf0_V, a.tempco_VperK, bankTj_C);
+            circuit.diodeResistance_ohm = s.offPathBanks * a.rd_ohm / a.count;
+        }
+    }
+}
+
+double standInConduction(const ChopperCircuit& c, const ChopperWaveform& w) {
+    return c.switchDrop_V * w.switchAverage_A + c.switchResistance_ohm * w.switchRms_A * w.switchRms_A +
+           c.diodeDrop_V * w.diodeAverage_A + c.diodeResistance_ohm * w.diodeRms_A * w.diodeRms_A;
+}
+
 // ---------------------------------------------------------------------------------------------
 
 LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPointInput& in) {
@@ -472,11 +494,16 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
             if (!in.tj_C.empty())
                 bankTj[0] = *std::max_element(in.tj_C.begin(), in.tj_C.end());
         } else {
-            const double tj = b - 1 < in.otherTj_C.size() ? in.otherTj_C[b - 1] : bankTj[0];
-            bankTj[b] = tj;
-            const double r = plan.mosfet ? rdsOn(part.mosfet, tj)
-                                         : std::max(0.0, part.bjt.collectorResistance_ohm + part.bjt.emitterResistance_ohm);
-            rOn[b].assign(nz, r);
+            bankTj[b] = bankTj[0];
+            rOn[b].resize(nz);
+            for (std::size_t k = 0; k < nz; ++k) {
+                const std::size_t at = (b - 1) * nz + k;
+                const double tj = at < in.otherTj_C.size() ? in.otherTj_C[at] : bankTj[0];
+                if (k == 0 || tj > bankTj[b])
+                    bankTj[b] = tj;
+                rOn[b][k] = plan.mosfet ? rdsOn(part.mosfet, tj)
+                                        : std::max(0.0, part.bjt.collectorResistance_ohm + part.bjt.emitterResistance_ohm);
+            }
         }
         rOn[b].resize(nz, rOn[b].empty() ? 0.0 : rOn[b].back());
     }
@@ -534,7 +561,6 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
 
     // ---- Switching edges ----
     double offCurrentMax = 0.0, fall_s = 0.0;
-    std::vector<double> transition_s(nz, 0.0);
     std::vector<double> recoveringDiodes(share.size(), 0.0); // recoveries of each bank's diodes per period
     double freewheelRecoveries = 0.0;
     double storage_s = 0.0;
@@ -577,8 +603,6 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
             lp.banks[b][k].switching_W += f * edge.energy_J;
             if (!e.turnOn && b == 0)
                 fall_s = std::max(fall_s, edge.currentFall_s);
-            if (b == 0)
-                transition_s[k] = std::max(transition_s[k], edge.transition_s);
         }
     }
     if (!edgeProblem.empty())
@@ -644,21 +668,16 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
                 g.pulldown_ohm = d.drive.pulldown_ohm;
                 g.specGate_V = part.mosfet.rdsOnSpecGate_V;
                 const auto r = losses::mosfetGateDrive(g);
-                if (r.ok()) {
-                    // Each device's share of what the driver draws: its gate charge and its pull-down.
-                    dl.drive_W = r.perDevice_W + r.pulldown_W;
-                    inDie = r.internal_W;
-                }
+                if (r.ok())
+                    inDie = r.internal_W; // the gate resistance inside the die
             } else {
                 // The other banks' base drive runs over their own conduction time at their own current.
                 const BaseDrive bd = b == 0 ? base[k] : baseDrive(d, static_cast<int>(k), dl.current_A, bankTj[b], duty);
-                if (bd.result.ok()) {
-                    const double supply = bd.result.driverSupply_W / n;
-                    dl.drive_W = supply;
+                if (bd.result.ok())
                     inDie = bd.result.baseEmitter_W;
-                }
             }
-            dl.junction_W = (lp.computesConduction ? dl.conduction_W : 0.0) + dl.switching_W + dl.diode_W + inDie;
+            dl.drive_W = inDie;
+            dl.junction_W = (lp.computesConduction ? dl.conduction_W : 0.0) + dl.switching_W + dl.diode_W + dl.drive_W;
         }
     }
 
@@ -807,9 +826,6 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
             si.voltageRating_V = part.voltageRating_V;
             const double onTime = channelFraction[0] / f;
             si.points.push_back({"on-state", von, ion, onTime});
-            if (offCurrentMax > 0.0 && transition_s[k] > 0.0)
-                si.points.push_back({"turn-off", atPoint.ok() && atPoint.peak_V > 0.0 ? atPoint.peak_V : v,
-                                     s * offCurrentMax, transition_s[k]});
             const auto r = losses::checkStress(si);
             if (!r.ok())
                 continue;
@@ -820,11 +836,11 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
                 const double ratio = pt.check.limit > 0.0 ? pt.check.value / pt.check.limit : 1e9;
                 if (ratio > worstRatio || (pt.check.failed && !failed)) {
                     worstRatio = ratio;
-                    worstMessage = fmt::format("device {} {}: {} A at {} V for {} against the SOA limit of {} A", k, pt.name,
-                                               num(pt.check.value), num(pt.name == "on-state" ? von : si.points.back().voltage_V),
-                                               pt.curvePulse_s > 0.0 ? num(pt.name == "on-state" ? onTime : transition_s[k]) + " s"
-                                                                     : std::string("DC"),
-                                               num(pt.check.limit));
+                    worstMessage = fmt::format("device {} {}: {} A at {} V for {} against the SOA limit of {} A ({})", k,
+                                               pt.name, num(pt.check.value), num(von), num(onTime) + " s",
+                                               num(pt.check.limit),
+                                               pt.curvePulse_s > 0.0 ? "curve of " + num(pt.curvePulse_s) + " s pulses"
+                                                                     : std::string("DC curve"));
                 }
                 failed = failed || pt.check.failed;
             }
@@ -901,6 +917,7 @@ void recordLossPoint(const LossPoint& lp, const std::vector<double>& otherTj_C, 
             dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
         }
         const DeviceResult proto = op.devices.empty() ? DeviceResult{} : op.devices.front();
+        std::size_t at = 0; // index into the other banks' temperatures, device by device
         for (std::size_t b = 1; b < lp.banks.size(); ++b) {
             for (const DeviceLoss& dl : lp.banks[b]) {
                 DeviceResult dv;
@@ -918,8 +935,9 @@ void recordLossPoint(const LossPoint& lp, const std::vector<double>& otherTj_C, 
                 dv.diode_W = dl.diode_W;
                 dv.drive_W = dl.drive_W;
                 dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
-                dv.tj_C = b - 1 < otherTj_C.size() ? otherTj_C[b - 1] : proto.tj_C;
-                dv.tcase_C = b - 1 < otherTcase_C.size() ? otherTcase_C[b - 1] : proto.tcase_C;
+                dv.tj_C = at < otherTj_C.size() ? otherTj_C[at] : proto.tj_C;
+                dv.tcase_C = at < otherTcase_C.size() ? otherTcase_C[at] : proto.tcase_C;
+                ++at;
                 op.devices.push_back(dv);
             }
         }

@@ -18,8 +18,12 @@
 //    dead times, reverse conduction, bipolar PWM's ±V ripple) and reports every bank's devices.
 //  - Energy: everything the stage reports that the stand-in's source did not already pay for is
 //    drawn from the bus on top of the conduction current (LossPoint::busPower_W), so that
-//    V_bus × battery current = motor input + every loss. The gate/base driver is taken as supplied
-//    from the traction battery (the usual case; its converter's own loss is not modelled).
+//    V_bus × battery current = motor input + every loss. The drive power that ends in the dies is
+//    counted as drawn from the battery (the driver rail is fed from it); the driver's own loss and
+//    its external gate/base resistors' share are the driver's and stay outside the balance.
+// The safe operating area is judged at the conducting state (linear mode, second breakdown); the
+// switching transitions of a clamped inductive load are judged by the overshoot and avalanche
+// checks.
 // Parts of a bank switch together and share the switched current as they share the on-state
 // current; the device that avalanches takes the whole clamp energy (worst case).
 
@@ -57,6 +61,17 @@ struct ChopperStandIn {
 };
 ChopperStandIn chopperStandIn(const LossPlan& plan);
 
+struct ChopperCircuit;
+struct ChopperWaveform;
+
+/// Set the stand-in's frequency and paths from one bank's on-state (resistance of its devices in
+/// parallel with ballast and legs, constant drop, junction temperature). Unchanged for the chopper.
+void adaptStandIn(const LossPlan& plan, const Design& design, double bankResistance_ohm, double bankDrop_V,
+                  double bankTj_C, ChopperCircuit& circuit);
+
+/// The conduction loss the stand-in's source pays in its on and off paths.
+double standInConduction(const ChopperCircuit& circuit, const ChopperWaveform& waveform);
+
 /// One operating point from the averaged solve (bank totals, SI, °C).
 struct LossPointInput {
     double busVoltage_V = 0.0;
@@ -72,7 +87,7 @@ struct LossPointInput {
     std::vector<double> ballast_ohm;
     std::vector<double> leg_ohm;
     std::vector<double> tj_C;
-    /// Junction temperature of each other bank (index bank − 1) from the previous pass.
+    /// Junction temperature of each device of the other banks (bank by bank) from the previous pass.
     std::vector<double> otherTj_C;
     double diodeTj_C = 25.0;            ///< freewheel diodes
 };
@@ -89,9 +104,9 @@ struct DeviceLoss {
     double leg_W = 0.0;
     double switching_W = 0.0;
     double diode_W = 0.0;               ///< body or anti-parallel diode: conduction + own recovery share
-    double drive_W = 0.0;               ///< its share of the gate/base drive power
+    double drive_W = 0.0;               ///< gate/base drive dissipated in the die (internal R_g, V_BE·I_B)
     double junction_W = 0.0;            ///< what heats its junction: conduction (when given) + switching
-                                        ///< + diode + the drive dissipated in the die
+                                        ///< + diode + drive
 };
 
 struct LossPoint {
@@ -117,7 +132,8 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& design, const Los
 /// Write the stage's numbers into a solved operating point: the reported bank's device entries
 /// gain switching, diode and drive losses (and, for synchronous topologies, their conduction and
 /// currents); the other banks' devices are appended with their junction and case temperatures
-/// (per other bank); the freewheel diode gains its recovery share; the point's checks are added.
+/// (device by device, bank by bank); the freewheel diode gains its recovery share; the point's
+/// checks are added.
 void recordLossPoint(const LossPoint& point, const std::vector<double>& otherTj_C,
                      const std::vector<double>& otherTcase_C, OperatingPointResult& op,
                      std::vector<Check>& checks);

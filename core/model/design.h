@@ -199,13 +199,14 @@ struct PowerLayout {
     double capacitorDerating = 0.8;     ///< highest fraction of the voltage rating in use
     double capacitorThermalResistance_KperW = 15.0; ///< per capacitor, hot spot to ambient
     double capacitorMaxTemperature_C = 105.0;
-    double capacitorInductance_H = 15e-9; ///< ESL per capacitor
+    double capacitorInductance_H = 3e-9; ///< ESL of the capacitor bank as the loop sees it (one ESL / number in parallel)
     double commutationLoopInductance_H = 0.0; ///< capacitor → bank → diode loop (0 = from the layout below)
-    std::string loopLayout = "wirePair"; ///< "wirePair" (round conductors) or "platePair" (laminated bars)
-    double loopLength_m = 0.1;          ///< loop conductor length, one way
+    std::string loopLayout = "platePair"; ///< "platePair" (laminated bars, board planes) or "wirePair" (round conductors)
+    double loopLength_m = 0.05;         ///< loop conductor length, one way
     double loopConductorRadius_m = 1.5e-3; ///< wirePair
-    double loopSpacing_m = 8e-3;        ///< wirePair: centre spacing; platePair: separation
+    double loopSpacing_m = 8e-3;        ///< wirePair: centre spacing
     double loopPlateWidth_m = 20e-3;    ///< platePair
+    double loopPlateSeparation_m = 0.5e-3; ///< platePair: insulation between the plates
     double packageInductance_H = 7e-9;  ///< lead inductance per device
     double batteryCableSpacing_m = 10e-3; ///< centre spacing of the battery cable pair
     double overshootDerating = 0.8;     ///< highest fraction of the device rating the turn-off peak may reach

@@ -91,7 +91,8 @@ AMP_JSON(PowerLayout, capacitorCount, capacitorRippleRating_A, capacitorEsr_ohm,
                                                 capacitorThermalResistance_KperW, capacitorMaxTemperature_C,
                                                 capacitorInductance_H, commutationLoopInductance_H, loopLayout,
                                                 loopLength_m, loopConductorRadius_m, loopSpacing_m,
-                                                loopPlateWidth_m, packageInductance_H, batteryCableSpacing_m,
+                                                loopPlateWidth_m, loopPlateSeparation_m, packageInductance_H,
+                                                batteryCableSpacing_m,
                                                 overshootDerating)
 AMP_JSON(Design, meta, supply, motor, pwm, drive, bank, heatsink,
                                                 reversing, dutyProfile, wiring, layout)
