@@ -830,7 +830,7 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
             op.bankLoss_W += dv.loss_W + dv.ballast_W + dv.leg_W;
     }
     op.totalLoss_W = op.bankLoss_W + op.freewheelDiode.loss_W;
-    if (op.inputPower_W > 1e-9)
+    if (op.inputPower_W > 1e-9 && op.motorCurrent_A > 0.0) // null when no current flows
         op.efficiency = op.motorInputPower_W / op.inputPower_W;
     op.heatsinkTemperature_C = s.thermal.heatsink_C;
     op.bank = s.bank;

@@ -647,10 +647,11 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
         }
     }
 
-    // ---- Gate / base drive ----
+    // ---- Gate / base drive (a bank that never switches draws none) ----
     for (std::size_t b = 0; b < share.size(); ++b) {
         const double duty = channelFraction[b];
-        for (std::size_t k = 0; k < nz; ++k) {
+        const bool switches = duty > 0.0 && duty < 1.0;
+        for (std::size_t k = 0; k < nz && switches; ++k) {
             DeviceLoss& dl = lp.banks[b][k];
             double inDie = 0.0;
             if (plan.mosfet) {

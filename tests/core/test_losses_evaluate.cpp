@@ -199,6 +199,29 @@ class TestLossesEvaluate : public QObject {
         }
     }
 
+    void noCurrentNoEfficiency() {
+        // A point where no current flows (no load, no friction current): nothing switches, nothing is
+        // drawn, and the efficiency is null rather than 0 or NaN.
+        Design d = loadDemo();
+        d.motor.noLoadCurrent_A = 0.0;
+        Segment idle;
+        idle.name = "Idle";
+        idle.mode = "torqueSpeed";
+        idle.torque_Nm = 0.0;
+        idle.speed_rpm = 500.0;
+        d.dutyProfile = {idle};
+        const Results r = evaluate(d);
+        QCOMPARE(r.operatingPoints.size(), std::size_t(1));
+        const auto& p = r.operatingPoints.front();
+        QCOMPARE(p.motorCurrent_A, 0.0);
+        QVERIFY(!p.efficiency.has_value());
+        for (const auto& dv : p.devices) {
+            QCOMPARE(dv.switching_W, 0.0);
+            QCOMPARE(dv.drive_W, 0.0);
+        }
+        QVERIFY(resultsToJson(r).at("operatingPoints").at(0).at("efficiency").is_null());
+    }
+
     void soaOutsideFails() {
         Design d = loadDemo();
         d.bank.device.soa = {{1.0, 5.0, 0.0}, {100.0, 0.05, 0.0}}; // a part that can hardly conduct
