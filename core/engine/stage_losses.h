@@ -26,6 +26,9 @@
 // checks.
 // Parts of a bank switch together and share the switched current as they share the on-state
 // current; the device that avalanches takes the whole clamp energy (worst case).
+// Left out: a hard turn-on in a half-bridge also charges the opposite bank's output capacitance
+// (up to Q_oss·V in all, against the ½·C·V²-type own share counted here); the gate charge is taken
+// at the drive voltage as stated; the storage time of a bipolar bank is reported, not fed back.
 
 #include "core/engine/results.h"
 #include "core/model/design.h"
