@@ -3,6 +3,7 @@
 #include "core/engine/stage_losses.h"
 #include "core/engine/stage_protection.h"
 
+#include "core/engine/stage_thermal.h"
 #include "core/physics/bank_sharing.h"
 #include "core/physics/bipolar_on_state.h"
 #include "core/physics/chopper.h"
@@ -204,6 +205,7 @@ struct Context {
     bool mosfet = true;
     BipolarOnState bipolar;
     double rthCs_KperW = 0.0;
+    HeatsinkModel heatsink;             // stated or plate-fin geometry (stage_thermal.h)
     int diodes = 1;
     std::vector<double> ballast_ohm;    // per device
     std::vector<double> leg_ohm;        // per device
@@ -230,6 +232,7 @@ Context makeContext(const Design& d) {
     c.rthCs_KperW = interfaceResistance(d.bank.interface);
     c.diodes = std::max(1, d.bank.diodeCount);
     c.losses = planLosses(d);
+    c.heatsink = HeatsinkModel(d);
     for (const auto& dev : d.bank.devices) {
         c.ballast_ohm.push_back(std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm));
         c.leg_ohm.push_back(std::max(0.0, d.bank.legResistance_ohm + dev.legResistanceDeviation_ohm));
@@ -349,18 +352,33 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
     return e;
 }
 
+// Heat in each device's junction: its conduction and what the loss stage adds (which holds the
+// conduction itself for the synchronous topologies).
+std::vector<double> junctionHeat(const Electrical& e) {
+    const auto& lp = e.losses;
+    std::vector<double> device(e.conduction_W.size());
+    for (std::size_t k = 0; k < device.size(); ++k) {
+        const double extra = lp.banks.empty() || k >= lp.banks.front().size() ? 0.0 : lp.banks.front()[k].junction_W;
+        device[k] = (lp.computesConduction ? 0.0 : e.conduction_W[k]) + extra;
+    }
+    return device;
+}
+
 ThermalChainResult solveThermal(const Context& c, const Electrical& e) {
     const Design& d = *c.design;
     ThermalChainInput in;
     in.ambient_C = d.heatsink.ambient_C;
-    in.rthSa_KperW = std::max(0.0, d.heatsink.part.rthSa_KperW);
     const auto& lp = e.losses;
-    for (std::size_t k = 0; k < e.conduction_W.size(); ++k) {
-        // The stage's junction heat holds the conduction too when it computed it.
-        const double extra = lp.banks.empty() || k >= lp.banks.front().size() ? 0.0 : lp.banks.front()[k].junction_W;
-        const double p = (lp.computesConduction ? 0.0 : e.conduction_W[k]) + extra;
+    const std::vector<double> device = junctionHeat(e);
+    double heat_W = e.diodeLoss_W + lp.freewheelRecovery_W; // into the sink: R_th,sa may depend on it
+    for (const double p : device)
+        heat_W += p;
+    for (std::size_t b = 1; b < lp.banks.size(); ++b)
+        for (const auto& dl : lp.banks[b])
+            heat_W += dl.junction_W;
+    in.rthSa_KperW = std::max(0.0, c.heatsink.rthSa(heat_W));
+    for (const double p : device)
         in.branches.push_back({p, std::max(0.0, d.bank.device.rthJc_KperW), c.rthCs_KperW, 1});
-    }
     in.branches.push_back({(e.diodeLoss_W + lp.freewheelRecovery_W) / c.diodes,
                            std::max(0.0, d.bank.freewheelDiode.rthJc_KperW), c.rthCs_KperW, c.diodes});
     // The topology's other banks after the diode, device by device.
@@ -378,6 +396,27 @@ std::vector<double> thermalMap(const Context& c, const Demand& demand, const std
     const std::vector<double> others(t.begin() + static_cast<std::ptrdiff_t>(n + 1), t.end());
     const auto e = solveElectrical(c, demand, devices, t[n], others, busExtra_A);
     return solveThermal(c, e).junction_C;
+}
+
+// Per-unit losses of the switches and of one freewheel diode at given junction temperatures, for
+// the thermal stage's transients: a computed point holds its current and back-EMF; point ==
+// profile size is a stall at the current limit (at full duty when there is none).
+void sourceLosses(const Context& c, const Results& r, std::size_t point, const std::vector<double>& tj,
+                  std::vector<double>& p) {
+    Demand demand;
+    if (point < r.operatingPoints.size()) {
+        demand.current_A = r.operatingPoints[point].motorCurrent_A;
+        demand.emf_V = r.operatingPoints[point].backEmf_V;
+    } else if (c.design->pwm.currentLimit_A > 0.0) {
+        demand.current_A = c.design->pwm.currentLimit_A;
+    } else {
+        demand.hold = Hold::DutyAtEmf;
+        demand.duty = c.design->pwm.maxDuty;
+    }
+    // The other banks of a synchronous topology are taken at the solved bank's temperature here.
+    const auto e = solveElectrical(c, demand, std::vector<double>(tj.begin(), tj.end() - 1), tj.back(), {}, 0.0);
+    p = junctionHeat(e);
+    p.push_back((e.diodeLoss_W + e.losses.freewheelRecovery_W) / c.diodes);
 }
 
 struct BankSolve {
@@ -840,7 +879,7 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
 
 } // namespace
 
-Results evaluate(const Design& input) {
+Results evaluate(const Design& input, const EvaluateOptions& options) {
     Results r;
     r.design = input.meta.title;
     r.topology = input.pwm.topology;
@@ -890,6 +929,10 @@ Results evaluate(const Design& input) {
         r.operatingPoints.push_back(std::move(op));
     }
     addProtection(d, r);
+    addThermalResults(
+        d, context.heatsink,
+        [&](std::size_t i, const std::vector<double>& tj, std::vector<double>& p) { sourceLosses(context, r, i, tj, p); },
+        {options.thermalTransient}, r);
     return r;
 }
 

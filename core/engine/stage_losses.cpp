@@ -301,6 +301,9 @@ LossPlan planLosses(const Design& d) {
         p.notes.push_back(fmt::format("a {} bank has no body diode: each bank of the {} topology uses "
                                       "bank.diodeCount freewheel diodes as its anti-parallel diodes",
                                       d.bank.device.kind, t));
+    if (p.topology != StageTopology::LowSideChopper)
+        p.notes.push_back("the duty-profile transient heats the sink with the solved bank and its freewheel path; the "
+                          "topology's other banks are in the steady-state points only");
     if (p.topology == StageTopology::FullBridgeBipolar)
         p.notes.push_back("full bridge with bipolar PWM: the mean currents come from the averaged bridge; the "
                           "ripple, the switched currents and the capacitor current from the ±V waveform");

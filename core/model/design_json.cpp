@@ -71,8 +71,12 @@ AMP_JSON(Bank, device, count, devices, gateResistor_ohm, ballast_ohm,
                                                 legResistance_ohm, derating, sharingTarget,
                                                 neighbourCoupling_KperW, interface, freewheelDiode,
                                                 diodeCount, spread)
+AMP_JSON(HeatsinkGeometry, baseWidth_m, baseLength_m, baseThickness_m, finCount, finHeight_m,
+         finThickness_m, material, orientation, emissivity, airVelocity_mps)
 AMP_JSON(Heatsink, part, ambient_C, insulatedFromTabs, wetLocation,
-                                                exposed)
+                                                exposed, mode, rthReferenceRise_K, rthRiseExponent, geometry)
+AMP_JSON(ThermalStudy, step_s, resolveStep_K, repetitions, untilPeriodic, stallStart, lifeCoefficient,
+         lifeExponent, lifeActivation_eV)
 AMP_JSON(Reversing, present, contactor, suppression, reversalsPerDay,
                                                 stopSpeed_rpm, category, coilSupplyMin_V, coilSupplyMax_V,
                                                 coilTimeConstant_s, coilReleaseFraction, zener_V, tvs_V,
@@ -95,7 +99,7 @@ AMP_JSON(PowerLayout, capacitorCount, capacitorRippleRating_A, capacitorEsr_ohm,
                                                 batteryCableSpacing_m,
                                                 overshootDerating)
 AMP_JSON(Design, meta, supply, motor, pwm, drive, bank, heatsink,
-                                                reversing, dutyProfile, wiring, layout)
+                                                reversing, dutyProfile, wiring, thermal, layout)
 
 void normalizeBank(Bank& bank) {
     if (bank.count < 0)
