@@ -89,6 +89,14 @@ LoadResult parseProject(std::string_view text, const MigrationChain& chain) {
         if (cut != std::string::npos)
             what = what.substr(cut + 2);
         return failure("", "not valid JSON (" + position(text, e.byte == 0 ? 0 : e.byte - 1) + "): " + what);
+    } catch (const json::exception& e) {
+        // Not a syntax error but still no JSON we can hold, e.g. a number beyond a double (1e999),
+        // which nlohmann reports as out_of_range.
+        std::string what = e.what();
+        const auto cut = what.find("] ");
+        if (cut != std::string::npos)
+            what = what.substr(cut + 2);
+        return failure("", "not valid JSON: " + what);
     }
     if (!project.is_object())
         return failure("", "the file must hold a JSON object with a formatVersion");
@@ -313,7 +321,8 @@ std::vector<Problem> applyOverride(json& project, std::string_view assignment) {
     try {
         value = json::parse(text);
         parsedJson = true;
-    } catch (const json::parse_error&) {
+    } catch (const json::exception&) {
+        // Not JSON (or a number beyond a double, out_of_range): read it as a value with a unit.
     }
     const auto unit = last.index ? std::nullopt : units::unitFromKey(last.key);
     if (unit && (!parsedJson || value.is_string())) {

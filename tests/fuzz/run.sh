@@ -2,7 +2,7 @@
 # SPDX-License-Identifier: GPL-3.0-or-later
 # Build the loaders' fuzz targets with clang (libFuzzer, ASan, UBSan) and run each for SECONDS
 # (default 30). The corpus grows in BUILD_DIR/fuzz-corpus across runs; seeds are the demos, the
-# test fixtures and the shipped parts. A crash, a hang (> 10 s on one input), a leak or a sanitizer
+# test fixtures, the shipped parts and every input that once failed (tests/fuzz/regressions/). A crash, a hang (> 10 s on one input), a leak or a sanitizer
 # report fails the run and leaves the input in BUILD_DIR/fuzz-artifacts/.
 #   bash tests/fuzz/run.sh            # CI: 30 s each
 #   bash tests/fuzz/run.sh 3600       # the long run: one hour each
@@ -20,9 +20,10 @@ cmake --build "$build_dir" --target fuzz_projectfile fuzz_partfile -j "$jobs"
 seeds_for() {
     local d
     case "$1" in
-        projectfile) for d in resources/demos tests/data/valid tests/data/broken tests/data/migrations; do
+        projectfile) for d in resources/demos tests/data/valid tests/data/broken tests/data/migrations \
+                                  tests/fuzz/regressions/projectfile; do
                          [ -d "$d" ] && echo "$d"; done ;;
-        partfile)    for d in parts tests/data/parts; do [ -d "$d" ] && echo "$d"; done ;;
+        partfile)    for d in parts tests/data/parts tests/fuzz/regressions/partfile; do [ -d "$d" ] && echo "$d"; done ;;
     esac
     return 0
 }
