@@ -3,6 +3,8 @@
 // What the engine returns: plain data, SI units (°C in _C names). The results JSON is written
 // from these structs by engine/results_json.h and documented in the README.
 
+#include "core/engine/protection_results.h"
+
 #include <optional>
 #include <string>
 #include <vector>
@@ -39,6 +41,7 @@ struct DeviceResult {
     double switching_W = 0.0;
     double diode_W = 0.0;           ///< body diode (synchronous topologies)
     double ballast_W = 0.0;
+    double leg_W = 0.0;             ///< in the device's leg (busbar/trace); not on the heatsink
     double drive_W = 0.0;           ///< gate resistor / base drive dissipated at the device
     double loss_W = 0.0;            ///< device total (without ballast)
     double tj_C = 0.0;
@@ -81,6 +84,8 @@ struct OperatingPointResult {
     double backEmf_V = 0.0;
     double busVoltage_V = 0.0;      ///< at the bus capacitors, after the battery and cable drop
     double ripplePeakToPeak_A = 0.0;
+    double motorPeakCurrent_A = 0.0; ///< highest instantaneous armature current
+    double motorMinCurrent_A = 0.0; ///< lowest instantaneous armature current (0 in DCM)
     double rippleLinear_A = 0.0;    ///< the linear approximation, for comparison
     std::string conductionMode = "continuous"; ///< "continuous" or "discontinuous"
     double motorRmsCurrent_A = 0.0;
@@ -91,12 +96,13 @@ struct OperatingPointResult {
     double capacitorRmsCurrent_A = 0.0;
     double inputPower_W = 0.0;      ///< at the bus: busVoltage × batteryCurrent
     double batteryLoss_W = 0.0;     ///< in the battery's internal resistance and battery cable
-    double motorInputPower_W = 0.0; ///< at the motor terminals
+    double motorInputPower_W = 0.0; ///< at the controller's motor output: cable, contacts, motor
     double mechanicalPower_W = 0.0; ///< shaft output
     double motorCopperLoss_W = 0.0;
     double motorCableLoss_W = 0.0;
+    double contactorLoss_W = 0.0;   ///< reversing contactor contacts in the armature path
     double motorMechanicalLoss_W = 0.0; ///< no-load (friction, iron) loss k·I0·ω
-    double bankLoss_W = 0.0;        ///< switches + ballast
+    double bankLoss_W = 0.0;        ///< switches + ballast + legs
     double totalLoss_W = 0.0;       ///< power stage: bank + ballast + freewheel diodes
     std::optional<double> efficiency; ///< motor-terminal power / battery power
     double heatsinkTemperature_C = 0.0;
@@ -116,6 +122,7 @@ struct Results {
     double maxJunction_C = 0.0;     ///< hottest switch junction over all points
     double maxTotalLoss_W = 0.0;
     std::vector<std::string> warnings; ///< solver notes that are not checks
+    ProtectionResults protection;   ///< contactors, reversal, pre-charge, cables, fuse (engine/stage_protection.h)
 };
 
 /// The worst severity among the checks (Pass when there are none).

@@ -1,0 +1,827 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "core/engine/evaluate.h"
+#include "core/engine/stage_protection.h"
+
+#include "core/physics/bank_sharing.h"
+#include "core/physics/bipolar_on_state.h"
+#include "core/physics/chopper.h"
+#include "core/physics/copper.h"
+#include "core/physics/diode_conduction.h"
+#include "core/physics/mosfet_rdson.h"
+#include "core/physics/motor.h"
+#include "core/physics/thermal_chain.h"
+
+// GCC 12 reports a false use-after-free inside <complex> when it inlines Eigen's eigen-solver.
+#if defined(__GNUC__) && !defined(__clang__) && __GNUC__ == 12
+#pragma GCC diagnostic ignored "-Wuse-after-free"
+#endif
+#include <Eigen/Dense>
+#include <Eigen/Eigenvalues>
+#include <fmt/format.h>
+#include <spdlog/spdlog.h>
+
+#include <algorithm>
+#include <cmath>
+#include <string>
+#include <vector>
+
+namespace amp {
+
+namespace {
+
+// A junction above this has no physical fixed point worth reporting: the bank has run away.
+constexpr double kRunawayLimit_C = 400.0;
+constexpr int kMaxIterations = 500;
+constexpr double kConverged_K = 1e-7;
+// Above this many devices the dense Jacobian and its eigenvalues cost more than an edit should
+// wait for; the network solver (core/bank/) takes over such banks.
+constexpr std::size_t kMaxLoopGainDevices = 64;
+// Perturbation for the loop-gain Jacobian; the map is smooth, 10 mK keeps rounding far below it.
+constexpr double kJacobianStep_K = 0.01;
+// Junction margin below the part's T_j,max that raises a warning (common practice).
+constexpr double kJunctionMargin_K = 15.0;
+
+bool finite(double v) { return std::isfinite(v); }
+
+std::string num(double v, int digits = 3) { return fmt::format("{:.{}g}", v, digits); }
+
+// ---------------------------------------------------------------------------------------------
+// Input problems: evaluate() must give a clear message instead of NaN for any design that slipped
+// past validation (or was built in code).
+
+struct InputProblem {
+    std::string field;
+    std::string message;
+};
+
+class ProblemList {
+  public:
+    void need(bool ok, std::string field, std::string message) {
+        if (!ok)
+            m_problems.push_back({std::move(field), std::move(message)});
+    }
+    void positive(double v, const std::string& field, const std::string& what) {
+        need(finite(v) && v > 0.0, field, fmt::format("{} is {}: {} must be a positive number", field, num(v), what));
+    }
+    void nonNegative(double v, const std::string& field, const std::string& what) {
+        need(finite(v) && v >= 0.0, field, fmt::format("{} is {}: {} must be zero or positive", field, num(v), what));
+    }
+    void isFinite(double v, const std::string& field, const std::string& what) {
+        need(finite(v), field, fmt::format("{} is not a number: {} must be finite", field, what));
+    }
+    const std::vector<InputProblem>& problems() const { return m_problems; }
+
+  private:
+    std::vector<InputProblem> m_problems;
+};
+
+std::vector<InputProblem> designProblems(const Design& d) {
+    ProblemList p;
+    p.positive(d.supply.nominal_V, "supply.nominal_V", "the battery voltage");
+    p.nonNegative(d.supply.internalResistance_ohm, "supply.internalResistance_ohm", "the battery resistance");
+
+    const auto& m = d.motor;
+    p.need(m.kind == "permanentMagnet" || m.kind == "seriesWound", "motor.kind",
+           fmt::format("motor.kind is \"{}\": it must be \"permanentMagnet\" or \"seriesWound\"", m.kind));
+    p.nonNegative(m.armatureResistance20_ohm, "motor.armatureResistance20_ohm", "the armature resistance");
+    p.isFinite(m.windingTemperature_C, "motor.windingTemperature_C", "the winding temperature");
+    p.positive(m.inductance_H, "motor.inductance_H", "the armature inductance");
+    p.nonNegative(m.noLoadCurrent_A, "motor.noLoadCurrent_A", "the no-load current");
+    if (m.kind == "seriesWound") {
+        p.need(!m.magnetisation.empty(), "motor.magnetisation",
+               "motor.magnetisation is empty: a series-wound motor needs its k(I) table");
+        for (std::size_t i = 0; i < m.magnetisation.size(); ++i) {
+            const std::string f = fmt::format("motor.magnetisation[{}]", i);
+            p.nonNegative(m.magnetisation[i].current_A, f + ".current_A", "the table current");
+            p.positive(m.magnetisation[i].torqueConstant_NmPerA, f + ".torqueConstant_NmPerA", "k");
+        }
+    } else {
+        p.positive(m.torqueConstant_NmPerA, "motor.torqueConstant_NmPerA", "the torque constant");
+    }
+
+    p.positive(d.pwm.frequency_Hz, "pwm.frequency_Hz", "the PWM frequency");
+    p.need(finite(d.pwm.maxDuty) && d.pwm.maxDuty > 0.0 && d.pwm.maxDuty <= 1.0, "pwm.maxDuty",
+           fmt::format("pwm.maxDuty is {}: it must lie in (0, 1]", num(d.pwm.maxDuty)));
+    p.nonNegative(d.pwm.currentLimit_A, "pwm.currentLimit_A", "the current limit (0 = none)");
+
+    const auto& b = d.bank;
+    p.need(b.count >= 1, "bank.count", fmt::format("bank.count is {}: the bank needs at least one device", b.count));
+    const auto& s = b.device;
+    p.need(s.kind == "mosfet" || s.kind == "bipolar" || s.kind == "darlington", "bank.device.kind",
+           fmt::format("bank.device.kind is \"{}\": it must be \"mosfet\", \"bipolar\" or \"darlington\"", s.kind));
+    if (s.kind == "mosfet") {
+        p.positive(s.mosfet.rdsOn25_ohm, "bank.device.mosfet.rdsOn25_ohm", "R_ds(on) at 25 °C");
+        p.isFinite(s.mosfet.rdsOnTempExponent, "bank.device.mosfet.rdsOnTempExponent", "the R_ds(on) exponent");
+        for (std::size_t i = 0; i < s.mosfet.rdsOnTable.size(); ++i) {
+            const std::string f = fmt::format("bank.device.mosfet.rdsOnTable[{}]", i);
+            p.isFinite(s.mosfet.rdsOnTable[i].tj_C, f + ".tj_C", "the table temperature");
+            p.positive(s.mosfet.rdsOnTable[i].factor, f + ".factor", "the normalised R_ds(on)");
+        }
+    } else {
+        p.nonNegative(s.bjt.vceSat_V, "bank.device.bjt.vceSat_V", "V_CE(sat)");
+        p.nonNegative(s.bjt.collectorResistance_ohm, "bank.device.bjt.collectorResistance_ohm", "r_C");
+        p.nonNegative(s.bjt.emitterResistance_ohm, "bank.device.bjt.emitterResistance_ohm", "r_E");
+    }
+    p.positive(s.currentRating_A, "bank.device.currentRating_A", "the device's current rating");
+    p.nonNegative(s.leadLimit_A, "bank.device.leadLimit_A", "the package lead limit (0 = not stated)");
+    p.isFinite(s.tjMax_C, "bank.device.tjMax_C", "the highest junction temperature");
+    p.nonNegative(s.rthJc_KperW, "bank.device.rthJc_KperW", "R_th,jc");
+    p.nonNegative(b.ballast_ohm, "bank.ballast_ohm", "the ballast resistance");
+    p.nonNegative(b.legResistance_ohm, "bank.legResistance_ohm", "the leg resistance");
+    p.need(finite(b.derating) && b.derating > 0.0 && b.derating <= 1.0, "bank.derating",
+           fmt::format("bank.derating is {}: it must lie in (0, 1]", num(b.derating)));
+    p.positive(b.sharingTarget, "bank.sharingTarget", "the accepted max/min current ratio");
+    for (std::size_t k = 0; k < b.devices.size(); ++k) {
+        const auto& dev = b.devices[k];
+        const std::string f = fmt::format("bank.devices[{}]", k);
+        p.need(finite(dev.rdsOnDeviation) && dev.rdsOnDeviation > -1.0, f + ".rdsOnDeviation",
+               fmt::format("{}.rdsOnDeviation is {}: it must be above −1 (R_ds(on) stays positive)", f,
+                           num(dev.rdsOnDeviation)));
+        p.isFinite(dev.ballastDeviation_ohm, f + ".ballastDeviation_ohm", "the ballast deviation");
+        p.isFinite(dev.legResistanceDeviation_ohm, f + ".legResistanceDeviation_ohm", "the leg deviation");
+    }
+    p.need(b.diodeCount >= 1, "bank.diodeCount",
+           fmt::format("bank.diodeCount is {}: the low-side chopper needs a freewheel diode", b.diodeCount));
+    p.nonNegative(b.freewheelDiode.vf0_V, "bank.freewheelDiode.vf0_V", "the diode threshold voltage");
+    p.nonNegative(b.freewheelDiode.rd_ohm, "bank.freewheelDiode.rd_ohm", "the diode resistance");
+    p.isFinite(b.freewheelDiode.vfTempCoeff_VperK, "bank.freewheelDiode.vfTempCoeff_VperK", "dV_f/dT");
+    p.nonNegative(b.freewheelDiode.rthJc_KperW, "bank.freewheelDiode.rthJc_KperW", "the diode's R_th,jc");
+    p.isFinite(b.freewheelDiode.tjMax_C, "bank.freewheelDiode.tjMax_C", "the diode's highest junction temperature");
+    p.positive(b.interface.conductivity_WperMK, "bank.interface.conductivity_WperMK", "the interface conductivity");
+    p.positive(b.interface.area_m2, "bank.interface.area_m2", "the interface area");
+    p.nonNegative(b.interface.thickness_m, "bank.interface.thickness_m", "the interface thickness");
+    p.nonNegative(b.interface.contactResistance_KperW, "bank.interface.contactResistance_KperW",
+                  "the contact resistance");
+
+    p.nonNegative(d.heatsink.part.rthSa_KperW, "heatsink.part.rthSa_KperW", "R_th,sa");
+    p.isFinite(d.heatsink.ambient_C, "heatsink.ambient_C", "the ambient temperature");
+    if (d.reversing.present)
+        p.nonNegative(d.reversing.contactor.contactResistance_ohm, "reversing.contactor.contactResistance_ohm",
+                      "the contact resistance");
+
+    const auto& w = d.wiring;
+    p.nonNegative(w.batteryCableLength_m, "wiring.batteryCableLength_m", "the battery cable length");
+    p.positive(w.batteryCable_mm2, "wiring.batteryCable_mm2", "the battery cable cross-section");
+    p.nonNegative(w.motorCableLength_m, "wiring.motorCableLength_m", "the motor cable length");
+    p.positive(w.motorCable_mm2, "wiring.motorCable_mm2", "the motor cable cross-section");
+    p.isFinite(w.cableTemperature_C, "wiring.cableTemperature_C", "the cable temperature");
+    return p.problems();
+}
+
+std::vector<InputProblem> segmentProblems(const Segment& s, std::size_t index) {
+    ProblemList p;
+    const std::string f = fmt::format("dutyProfile[{}]", index);
+    const bool known = s.mode == "torqueSpeed" || s.mode == "currentSpeed" || s.mode == "currentDuty" || s.mode == "stall";
+    p.need(known, f + ".mode",
+           fmt::format("{}.mode is \"{}\": it must be \"torqueSpeed\", \"currentSpeed\", \"currentDuty\" or \"stall\"", f,
+                       s.mode));
+    if (s.mode == "torqueSpeed")
+        p.nonNegative(s.torque_Nm, f + ".torque_Nm",
+                      "the shaft torque (braking needs a topology that returns energy)");
+    if (s.mode == "torqueSpeed" || s.mode == "currentSpeed")
+        p.nonNegative(s.speed_rpm, f + ".speed_rpm", "the speed (the direction is set by the contactor)");
+    if (s.mode == "currentSpeed" || s.mode == "currentDuty")
+        p.nonNegative(s.motorCurrent_A, f + ".motorCurrent_A", "the motor current");
+    if (s.mode == "currentDuty")
+        p.need(finite(s.duty) && s.duty >= 0.0 && s.duty <= 1.0, f + ".duty",
+               fmt::format("{}.duty is {}: it must lie in [0, 1]", f, num(s.duty)));
+    return p.problems();
+}
+
+// ---------------------------------------------------------------------------------------------
+// The design reduced to the numbers the operating-point solve needs.
+
+struct Context {
+    const Design* design = nullptr;
+    MotorModel motor;
+    double armature_ohm = 0.0;
+    double motorCable_ohm = 0.0;
+    double contactor_ohm = 0.0;
+    double motorBranch_ohm = 0.0;       // armature + motor cable + contacts
+    double batteryCable_ohm = 0.0;
+    ChopperSupply supply;               // battery EMF, internal + cable resistance
+    bool mosfet = true;
+    BipolarOnState bipolar;
+    double rthCs_KperW = 0.0;
+    int diodes = 1;
+    std::vector<double> ballast_ohm;    // per device
+    std::vector<double> leg_ohm;        // per device
+};
+
+Context makeContext(const Design& d) {
+    Context c;
+    c.design = &d;
+    c.motor = makeMotorModel(d.motor);
+    c.armature_ohm = c.motor.armatureResistance_ohm;
+    // Wiring lengths are total conductor lengths, both poles counted (design.h: "both poles").
+    c.motorCable_ohm = copper::conductorResistance(d.wiring.motorCableLength_m, d.wiring.motorCable_mm2,
+                                                   d.wiring.cableTemperature_C);
+    c.batteryCable_ohm = copper::conductorResistance(d.wiring.batteryCableLength_m, d.wiring.batteryCable_mm2,
+                                                     d.wiring.cableTemperature_C);
+    // The reversing contactor puts one contact in each armature lead.
+    c.contactor_ohm = d.reversing.present ? 2.0 * std::max(0.0, d.reversing.contactor.contactResistance_ohm) : 0.0;
+    c.motorBranch_ohm = c.armature_ohm + c.motorCable_ohm + c.contactor_ohm;
+    c.supply.voltage_V = d.supply.nominal_V;
+    c.supply.resistance_ohm = std::max(0.0, d.supply.internalResistance_ohm) + c.batteryCable_ohm;
+    c.mosfet = d.bank.device.kind == "mosfet";
+    c.bipolar = bipolarOnState(d.bank.device);
+    c.rthCs_KperW = interfaceResistance(d.bank.interface);
+    c.diodes = std::max(1, d.bank.diodeCount);
+    for (const auto& dev : d.bank.devices) {
+        c.ballast_ohm.push_back(std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm));
+        c.leg_ohm.push_back(std::max(0.0, d.bank.legResistance_ohm + dev.legResistanceDeviation_ohm));
+    }
+    return c;
+}
+
+// What an operating point holds fixed while the temperatures settle.
+enum class Hold {
+    CurrentAtEmf,   // the controller sets the duty for a current at a known speed
+    CurrentAtDuty,  // current and duty stated: the speed follows
+    DutyAtEmf,      // stall without a current limit: full duty, the current follows
+};
+
+struct Demand {
+    Hold hold = Hold::CurrentAtEmf;
+    double current_A = 0.0;
+    double emf_V = 0.0;
+    double duty = 0.0;
+};
+
+struct Electrical {
+    ChopperSolution chopper;
+    Sharing sharing;
+    std::vector<double> device_ohm;     // on-state resistance of each device alone
+    double switchDrop_V = 0.0;
+    std::vector<double> conduction_W;   // per device
+    double diodeThreshold_V = 0.0;
+    double diodeLoss_W = 0.0;           // all freewheel diodes
+};
+
+Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C) {
+    const Design& d = *c.design;
+    const std::size_t n = d.bank.devices.size();
+    Electrical e;
+    std::vector<double> path(n);
+    e.device_ohm.resize(n);
+    for (std::size_t k = 0; k < n; ++k) {
+        const double r = c.mosfet ? rdsOn(d.bank.device.mosfet, tj_C[k]) * (1.0 + d.bank.devices[k].rdsOnDeviation)
+                                  : c.bipolar.resistance_ohm;
+        e.device_ohm[k] = std::max(0.0, r);
+        path[k] = e.device_ohm[k] + c.ballast_ohm[k] + c.leg_ohm[k];
+    }
+    e.sharing = shareByConductance(path);
+    e.switchDrop_V = c.mosfet ? 0.0 : c.bipolar.drop_V;
+    e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
+
+    ChopperCircuit circuit;
+    circuit.frequency_Hz = d.pwm.frequency_Hz;
+    circuit.inductance_H = d.motor.inductance_H;
+    circuit.loadResistance_ohm = c.motorBranch_ohm;
+    circuit.backEmf_V = demand.emf_V;
+    circuit.switchDrop_V = e.switchDrop_V;
+    circuit.switchResistance_ohm = e.sharing.resistance_ohm;
+    circuit.diodeDrop_V = e.diodeThreshold_V;
+    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    switch (demand.hold) {
+    case Hold::CurrentAtEmf:
+        e.chopper = chopperForCurrent(circuit, c.supply, demand.current_A, d.pwm.maxDuty);
+        break;
+    case Hold::CurrentAtDuty:
+        e.chopper = chopperEmfForCurrent(circuit, c.supply, demand.duty, demand.current_A);
+        break;
+    case Hold::DutyAtEmf:
+        e.chopper = chopperAtDuty(circuit, c.supply, demand.duty);
+        break;
+    }
+    const auto& w = e.chopper.waveform;
+    e.conduction_W.resize(n);
+    for (std::size_t k = 0; k < n; ++k) {
+        const double avg = e.sharing.share[k] * w.switchAverage_A;
+        const double rms = e.sharing.share[k] * w.switchRms_A;
+        e.conduction_W[k] = e.switchDrop_V * avg + e.device_ohm[k] * rms * rms;
+    }
+    e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
+    return e;
+}
+
+ThermalChainResult solveThermal(const Context& c, const Electrical& e) {
+    const Design& d = *c.design;
+    ThermalChainInput in;
+    in.ambient_C = d.heatsink.ambient_C;
+    in.rthSa_KperW = std::max(0.0, d.heatsink.part.rthSa_KperW);
+    for (const double p : e.conduction_W)
+        in.branches.push_back({p, std::max(0.0, d.bank.device.rthJc_KperW), c.rthCs_KperW, 1});
+    in.branches.push_back({e.diodeLoss_W / c.diodes, std::max(0.0, d.bank.freewheelDiode.rthJc_KperW), c.rthCs_KperW,
+                           c.diodes});
+    return solveThermalChain(in);
+}
+
+// One pass of the electrothermal map: temperatures → losses → temperatures. The last entry is
+// the freewheel diodes' junction.
+std::vector<double> thermalMap(const Context& c, const Demand& demand, const std::vector<double>& t) {
+    const std::vector<double> devices(t.begin(), t.end() - 1);
+    const auto e = solveElectrical(c, demand, devices, t.back());
+    return solveThermal(c, e).junction_C;
+}
+
+struct BankSolve {
+    Electrical electrical;
+    ThermalChainResult thermal;
+    std::vector<double> temperatures;   // devices, then diode
+    BankResult bank;
+    int iterations = 0;
+};
+
+// Fixed point of the electrothermal map from ambient. Starting cold, the iterates rise
+// monotonically towards the lowest fixed point; when there is none they pass the runaway limit.
+BankSolve solveBank(const Context& c, const Demand& demand) {
+    const Design& d = *c.design;
+    const std::size_t n = d.bank.devices.size();
+    BankSolve s;
+    std::vector<double> t(n + 1, d.heatsink.ambient_C);
+    bool converged = false;
+    bool runaway = false;
+    for (int it = 0; it < kMaxIterations; ++it) {
+        s.iterations = it + 1;
+        const std::vector<double> devices(t.begin(), t.end() - 1);
+        s.electrical = solveElectrical(c, demand, devices, t.back());
+        s.thermal = solveThermal(c, s.electrical);
+        std::vector<double> next = s.thermal.junction_C;
+        double delta = 0.0;
+        for (std::size_t k = 0; k < next.size(); ++k) {
+            if (!finite(next[k]) || next[k] > kRunawayLimit_C)
+                runaway = true;
+            delta = std::max(delta, std::abs(next[k] - t[k]));
+        }
+        s.temperatures = next;
+        if (runaway)
+            break;
+        t = std::move(next);
+        if (delta < kConverged_K) {
+            converged = true;
+            break;
+        }
+    }
+
+    BankResult& b = s.bank;
+    const auto& share = s.electrical.sharing.share;
+    if (!share.empty()) {
+        const auto [lo, hi] = std::minmax_element(share.begin(), share.end());
+        b.maxMinCurrentRatio = *lo > 0.0 ? *hi / *lo : 0.0;
+    }
+    auto hottest = [&]() {
+        const auto it = std::max_element(s.temperatures.begin(), s.temperatures.end() - 1);
+        return static_cast<int>(it - s.temperatures.begin());
+    };
+    if (runaway) {
+        b.converged = false;
+        b.stable = false;
+        b.firstToFail = n > 0 ? std::optional<int>(hottest()) : std::nullopt;
+        b.failure = fmt::format("no thermal fixed point below {} °C: the junctions heat without bound at {} A "
+                                "(device {} first)",
+                                num(kRunawayLimit_C), num(s.electrical.chopper.waveform.motorAverage_A),
+                                b.firstToFail.value_or(0));
+        return s;
+    }
+    if (!converged) {
+        b.converged = false;
+        b.stable = false;
+        b.failure = fmt::format("the temperatures did not settle in {} iterations (loop gain close to 1)", kMaxIterations);
+        return s;
+    }
+    if (!c.mosfet || n == 0 || n > kMaxLoopGainDevices)
+        return s; // the simple bipolar model has no temperature feedback to measure
+
+    // Loop gain: spectral radius of the Jacobian of the map (∂P/∂T·Z_th), with what `demand`
+    // holds fixed (the motor current, or the duty at stall without a limit).
+    const std::size_t m = n + 1;
+    Eigen::MatrixXd jac(static_cast<Eigen::Index>(m), static_cast<Eigen::Index>(m));
+    const std::vector<double> base = thermalMap(c, demand, t);
+    for (std::size_t j = 0; j < m; ++j) {
+        std::vector<double> tp = t;
+        tp[j] += kJacobianStep_K;
+        const std::vector<double> moved = thermalMap(c, demand, tp);
+        for (std::size_t i = 0; i < m; ++i)
+            jac(static_cast<Eigen::Index>(i), static_cast<Eigen::Index>(j)) = (moved[i] - base[i]) / kJacobianStep_K;
+    }
+    if (!jac.allFinite())
+        return s;
+    Eigen::EigenSolver<Eigen::MatrixXd> eig(jac);
+    if (eig.info() != Eigen::Success)
+        return s;
+    Eigen::Index dominant = 0;
+    for (Eigen::Index i = 1; i < eig.eigenvalues().size(); ++i)
+        if (std::abs(eig.eigenvalues()(i)) > std::abs(eig.eigenvalues()(dominant)))
+            dominant = i;
+    const double gain = std::abs(eig.eigenvalues()(dominant));
+    b.loopGain = gain;
+    b.stable = gain < 1.0;
+    // Common mode when every device moves the same way in the dominant eigenvector.
+    const auto vec = eig.eigenvectors().col(dominant);
+    double largest = 0.0;
+    for (std::size_t k = 0; k < n; ++k)
+        largest = std::max(largest, std::abs(vec(static_cast<Eigen::Index>(k)).real()));
+    bool positive = false, negative = false;
+    for (std::size_t k = 0; k < n; ++k) {
+        const double v = vec(static_cast<Eigen::Index>(k)).real();
+        if (v > 1e-6 * largest)
+            positive = true;
+        if (v < -1e-6 * largest)
+            negative = true;
+    }
+    b.dominantMode = (positive && negative) ? "differential" : "common";
+    if (!b.stable)
+        b.firstToFail = hottest();
+    return s;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Checks
+
+Check makeCheck(std::string id, Severity severity, double value, double limit, std::string unit, std::string source,
+                std::string message, std::string fix, std::string field, std::string point) {
+    Check c;
+    c.id = std::move(id);
+    c.severity = severity;
+    c.value = value;
+    c.limit = limit;
+    c.unit = std::move(unit);
+    c.source = std::move(source);
+    c.message = std::move(message);
+    c.fix = std::move(fix);
+    c.field = std::move(field);
+    c.operatingPoint = std::move(point);
+    return c;
+}
+
+void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t index, std::vector<Check>& out) {
+    const std::string& name = op.name;
+    const auto& part = d.bank.device;
+    const auto& diode = d.bank.freewheelDiode;
+
+    if (!op.valid) {
+        out.push_back(makeCheck("motor.operating-point", Severity::Fail, op.motorCurrent_A, op.motorCurrent_A, "A",
+                                "operating-point solve",
+                                fmt::format("{} cannot be reached: {}", name, op.notes.empty() ? "" : op.notes.back()),
+                                "Lower the requested torque or speed of this segment, or raise the supply voltage",
+                                fmt::format("dutyProfile[{}]", index), name));
+    }
+
+    // Switch junction against the part's rating, with a margin.
+    double tjMax = -1e300;
+    int hottest = 0;
+    for (std::size_t k = 0; k < op.devices.size(); ++k)
+        if (op.devices[k].tj_C > tjMax) {
+            tjMax = op.devices[k].tj_C;
+            hottest = static_cast<int>(k);
+        }
+    if (!op.devices.empty()) {
+        const double limit = part.tjMax_C;
+        const Severity sev = tjMax > limit ? Severity::Fail
+                             : tjMax > limit - kJunctionMargin_K ? Severity::Warning
+                                                                 : Severity::Pass;
+        out.push_back(makeCheck(
+            "thermal.switch-junction", sev, tjMax, limit, "°C",
+            "part rating bank.device.tjMax_C; a 15 K margin below it is common practice",
+            fmt::format("{}: hottest switch (device {}) at {} °C against T_j,max {} °C ({} K margin; {} K wanted)", name,
+                        hottest, num(tjMax, 4), num(limit, 4), num(limit - tjMax, 3), num(kJunctionMargin_K)),
+            "Spread or remove heat: more devices in parallel (bank.count), a heatsink with a lower R_th,sa "
+            "(heatsink.part.rthSa_KperW) or a thinner interface (bank.interface.thickness_m)",
+            "bank.count", name));
+    }
+
+    // Freewheel diode junction.
+    {
+        const double tj = op.freewheelDiode.tj_C;
+        const double limit = diode.tjMax_C;
+        const Severity sev = tj > limit ? Severity::Fail
+                             : tj > limit - kJunctionMargin_K ? Severity::Warning
+                                                              : Severity::Pass;
+        out.push_back(makeCheck(
+            "thermal.diode-junction", sev, tj, limit, "°C",
+            "part rating bank.freewheelDiode.tjMax_C; a 15 K margin below it is common practice",
+            fmt::format("{}: freewheel diode at {} °C against T_j,max {} °C; the diodes carry {} A on average and "
+                        "dissipate {} W together",
+                        name, num(tj, 4), num(limit, 4), num(op.freewheelDiode.averageCurrent_A), num(op.freewheelDiode.loss_W)),
+            "More freewheel diodes in parallel (bank.diodeCount), a diode with a lower drop, or a better heatsink "
+            "(heatsink.part.rthSa_KperW)",
+            "bank.diodeCount", name));
+    }
+
+    // On-state current per device against the derated rating.
+    if (!op.devices.empty()) {
+        double worst = 0.0;
+        for (const auto& dv : op.devices)
+            worst = std::max(worst, dv.current_A);
+        const double derated = d.bank.derating * part.currentRating_A;
+        const Severity sev = worst > part.currentRating_A ? Severity::Fail
+                             : worst > derated             ? Severity::Warning
+                                                           : Severity::Pass;
+        out.push_back(makeCheck(
+            "bank.current-derating", sev, worst, derated, "A",
+            "common practice: run each device at one third to one half of its rated current (bank.derating)",
+            fmt::format("{}: the most loaded device carries {} A while on, against {} A ({} × the {} A rating)", name,
+                        num(worst), num(derated), num(d.bank.derating), num(part.currentRating_A)),
+            "More devices in parallel (bank.count) or a part with a higher current rating (bank.device)", "bank.count",
+            name));
+    }
+
+    // Package lead limit against the RMS current each device's leads carry.
+    if (!op.devices.empty() && part.leadLimit_A > 0.0) {
+        double worst = 0.0;
+        for (const auto& dv : op.devices)
+            worst = std::max(worst, dv.rmsCurrent_A);
+        const Severity sev = worst > part.leadLimit_A ? Severity::Fail : Severity::Pass;
+        out.push_back(makeCheck(
+            "bank.lead-limit", sev, worst, part.leadLimit_A, "A",
+            "part's package lead limit (bank.device.leadLimit_A); TO-220-class leads carry about 75–100 A: common "
+            "practice",
+            fmt::format("{}: the most loaded device's leads carry {} A RMS against the package limit of {} A", name,
+                        num(worst), num(part.leadLimit_A)),
+            "More devices in parallel (bank.count) or a package with heavier leads (bank.device)", "bank.count", name));
+    }
+
+    // Discontinuous conduction: advice, the waveform is computed as it is.
+    {
+        const bool dcm = op.conductionMode == "discontinuous" && op.motorCurrent_A > 0.0;
+        out.push_back(makeCheck(
+            "chopper.discontinuous", dcm ? Severity::Advice : Severity::Pass, op.motorMinCurrent_A, 0.0, "A",
+            "exact chopper waveform: conduction is discontinuous when the current reaches zero within a period",
+            dcm ? fmt::format("{}: the armature current falls to zero every period (average {} A, peak {} A): the "
+                              "results use the discontinuous waveform; torque ripple and brush wear rise",
+                              name, num(op.motorCurrent_A), num(op.motorPeakCurrent_A))
+                : fmt::format("{}: continuous conduction, lowest current {} A", name, num(op.motorMinCurrent_A)),
+            "Raise the PWM frequency (pwm.frequency_Hz) or add series inductance to keep the current continuous",
+            "pwm.frequency_Hz", name));
+    }
+
+    // Demagnetisation of the magnets by the peak armature current.
+    if (d.motor.demagCurrent_A > 0.0) {
+        const double peak = op.motorPeakCurrent_A;
+        out.push_back(makeCheck(
+            "motor.demagnetisation", peak > d.motor.demagCurrent_A ? Severity::Fail : Severity::Pass, peak,
+            d.motor.demagCurrent_A, "A", "motor.demagCurrent_A (the highest current the magnets tolerate, as stated)",
+            fmt::format("{}: peak armature current {} A against the magnets' limit of {} A", name, num(peak, 4),
+                        num(d.motor.demagCurrent_A, 4)),
+            "Lower the controller's current limit (pwm.currentLimit_A)", "pwm.currentLimit_A", name));
+    }
+
+    // Thermal runaway of the bank.
+    {
+        const auto& b = op.bank;
+        Severity sev = Severity::Pass;
+        std::string message;
+        if (!b.converged) {
+            sev = Severity::Fail;
+            message = fmt::format("{}: {}", name, b.failure);
+        } else if (b.loopGain) {
+            sev = b.stable ? Severity::Pass : Severity::Fail;
+            message = fmt::format("{}: electrothermal loop gain {} ({} mode){}", name, num(*b.loopGain),
+                                  b.dominantMode, b.stable ? "" : ": the bank runs away");
+        } else {
+            sev = Severity::Advice;
+            message = part.kind == "mosfet"
+                          ? fmt::format("{}: the loop gain is not computed for a bank of {} devices", name,
+                                        op.devices.size())
+                          : fmt::format("{}: runaway is not assessed for a {} bank by the simple saturated model",
+                                        name, part.kind);
+        }
+        out.push_back(makeCheck(
+            "bank.thermal-runaway", sev, b.loopGain.value_or(0.0), 1.0, "",
+            "electrothermal fixed point; loop gain = spectral radius of (∂P/∂T)·Z_th with the motor current held",
+            std::move(message),
+            "Lower the thermal resistance (heatsink.part.rthSa_KperW), add devices (bank.count) or ballast "
+            "(bank.ballast_ohm)",
+            "bank.ballast_ohm", name));
+    }
+
+    // Current sharing between the devices.
+    if (op.devices.size() > 1) {
+        const double ratio = op.bank.maxMinCurrentRatio;
+        out.push_back(makeCheck(
+            "bank.sharing", ratio > d.bank.sharingTarget ? Severity::Warning : Severity::Pass, ratio,
+            d.bank.sharingTarget, "", "bank.sharingTarget (accepted max/min device current ratio)",
+            fmt::format("{}: the most and least loaded devices carry currents in the ratio {}", name, num(ratio, 4)),
+            "Match the devices or add source ballast (bank.ballast_ohm)", "bank.ballast_ohm", name));
+    }
+}
+
+// ---------------------------------------------------------------------------------------------
+// One duty-profile segment.
+
+OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::size_t index) {
+    const Design& d = *c.design;
+    OperatingPointResult op;
+    op.name = seg.name.empty() ? fmt::format("Segment {}", index + 1) : seg.name;
+    op.mode = seg.mode;
+
+    if (const auto problems = segmentProblems(seg, index); !problems.empty()) {
+        op.valid = false;
+        for (const auto& p : problems)
+            op.notes.push_back(p.message);
+        return op;
+    }
+
+    const double limit = d.pwm.currentLimit_A;
+    double speed_radps = 0.0;
+    Demand demand;
+    auto clampToLimit = [&](double requested) {
+        if (limit > 0.0 && requested > limit) {
+            op.currentLimited = true;
+            op.notes.push_back(fmt::format("the current limit ({} A) holds the current below the {} A asked for",
+                                           num(limit), num(requested)));
+            return limit;
+        }
+        return requested;
+    };
+
+    if (seg.mode == "torqueSpeed" || seg.mode == "currentSpeed") {
+        speed_radps = seg.speed_rpm * kRadPerSecPerRpm;
+        const double requested =
+            seg.mode == "torqueSpeed" ? currentForTorque(c.motor, seg.torque_Nm) : seg.motorCurrent_A;
+        demand.hold = Hold::CurrentAtEmf;
+        demand.current_A = clampToLimit(requested);
+        demand.emf_V = backEmf(c.motor, demand.current_A, speed_radps);
+    } else if (seg.mode == "currentDuty") {
+        demand.hold = Hold::CurrentAtDuty;
+        demand.current_A = clampToLimit(seg.motorCurrent_A);
+        demand.duty = seg.duty;
+        if (demand.duty > d.pwm.maxDuty) {
+            op.notes.push_back(fmt::format("the duty {} is above pwm.maxDuty {}: the controller holds {}", num(seg.duty),
+                                           num(d.pwm.maxDuty), num(d.pwm.maxDuty)));
+            demand.duty = d.pwm.maxDuty;
+        }
+    } else { // stall
+        if (limit > 0.0) {
+            demand.hold = Hold::CurrentAtEmf;
+            demand.current_A = limit;
+            op.currentLimited = true;
+            op.notes.push_back(fmt::format("stall: the current limit holds {} A by reducing the duty", num(limit)));
+        } else {
+            demand.hold = Hold::DutyAtEmf;
+            demand.duty = d.pwm.maxDuty;
+            op.notes.push_back("stall without a current limit: the circuit resistance alone sets the current (V/R)");
+        }
+    }
+
+    BankSolve s = solveBank(c, demand);
+    const Electrical& e = s.electrical;
+    const ChopperSolution& ch = e.chopper;
+    const ChopperWaveform& w = ch.waveform;
+    if (!w.valid) {
+        op.valid = false;
+        op.notes.push_back(w.problem + " (motor.armatureResistance20_ohm)");
+        return op;
+    }
+    if (!ch.reached) {
+        if (seg.mode == "stall") {
+            op.currentLimited = false;
+            op.notes.push_back(fmt::format("the battery cannot drive the {} A limit into the stalled motor; it "
+                                           "takes {} A at the highest duty",
+                                           num(demand.current_A), num(w.motorAverage_A)));
+        } else {
+            op.valid = false;
+            op.notes.push_back(
+                seg.mode == "currentDuty"
+                    ? fmt::format("duty {} drives only {} A even into a stalled motor, not the {} A asked for",
+                                  num(demand.duty), num(w.motorAverage_A), num(demand.current_A))
+                    : fmt::format("{} A at {} rpm needs more than the supply gives: at the highest duty {} the "
+                                  "motor takes {} A (back-EMF {} V, bus {} V)",
+                                  num(demand.current_A), num(seg.speed_rpm), num(w.duty), num(w.motorAverage_A),
+                                  num(ch.backEmf_V), num(ch.busVoltage_V)));
+        }
+    }
+    if (seg.mode == "currentDuty")
+        speed_radps = speedForBackEmf(c.motor, w.motorAverage_A, ch.backEmf_V);
+    if (w.mode == ConductionMode::NoCurrent)
+        op.notes.push_back("no current flows: the back-EMF is at or above the bus voltage, or the duty is zero");
+    if (!c.mosfet)
+        op.notes.push_back(fmt::format("{} bank: simple saturated model V_CE = V_CE(sat) + (r_C + r_E)·I, no temperature "
+                                       "dependence; the full bipolar network solve comes with the bank solver",
+                                       d.bank.device.kind));
+
+    const double iAvg = w.motorAverage_A;
+    const double iRms = w.motorRms_A;
+    op.motorCurrent_A = iAvg;
+    op.batteryCurrent_A = ch.batteryCurrent_A;
+    op.duty = w.duty;
+    op.speed_rpm = speed_radps / kRadPerSecPerRpm;
+    op.backEmf_V = ch.backEmf_V;
+    op.busVoltage_V = ch.busVoltage_V;
+    op.ripplePeakToPeak_A = w.ripplePeakToPeak_A;
+    op.motorPeakCurrent_A = w.iMax_A;
+    op.motorMinCurrent_A = w.iMin_A;
+    op.rippleLinear_A = w.rippleLinear_A;
+    op.conductionMode = w.mode == ConductionMode::Continuous ? "continuous" : "discontinuous";
+    op.motorRmsCurrent_A = iRms;
+    op.switchAverageCurrent_A = w.switchAverage_A;
+    op.switchRmsCurrent_A = w.switchRms_A;
+    op.diodeAverageCurrent_A = w.diodeAverage_A;
+    op.diodeRmsCurrent_A = w.diodeRms_A;
+    op.capacitorRmsCurrent_A = w.capacitorRms_A;
+    op.inputPower_W = ch.busVoltage_V * ch.batteryCurrent_A;
+    op.batteryLoss_W = ch.batteryCurrent_A * ch.batteryCurrent_A * c.supply.resistance_ohm;
+
+    const MotorPower mp = motorPower(c.motor, iAvg, iRms, speed_radps);
+    op.torque_Nm = mp.torque_Nm;
+    op.mechanicalPower_W = mp.mechanical_W;
+    op.motorMechanicalLoss_W = mp.noLoadLoss_W;
+    op.motorCopperLoss_W = mp.copperLoss_W;
+    op.motorCableLoss_W = iRms * iRms * c.motorCable_ohm;
+    op.contactorLoss_W = iRms * iRms * c.contactor_ohm;
+    // E·I_avg + I_rms²·R_m: what leaves the controller's motor output (L·di/dt·i averages to zero).
+    op.motorInputPower_W = ch.backEmf_V * iAvg + iRms * iRms * c.motorBranch_ohm;
+
+    const std::size_t n = d.bank.devices.size();
+    const double duty = w.duty;
+    op.devices.resize(n);
+    for (std::size_t k = 0; k < n; ++k) {
+        DeviceResult& dv = op.devices[k];
+        const double share = e.sharing.share[k];
+        dv.share = share;
+        dv.averageCurrent_A = share * w.switchAverage_A;
+        dv.rmsCurrent_A = share * w.switchRms_A;
+        dv.current_A = duty > 0.0 ? dv.averageCurrent_A / duty : 0.0;
+        dv.ratingShare = d.bank.device.currentRating_A > 0.0 ? dv.current_A / d.bank.device.currentRating_A : 0.0;
+        dv.voltage_V = dv.current_A > 0.0 ? e.switchDrop_V + e.device_ohm[k] * dv.current_A : 0.0;
+        dv.conduction_W = e.conduction_W[k];
+        dv.ballast_W = c.ballast_ohm[k] * dv.rmsCurrent_A * dv.rmsCurrent_A;
+        dv.leg_W = c.leg_ohm[k] * dv.rmsCurrent_A * dv.rmsCurrent_A;
+        dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
+        dv.tj_C = s.thermal.junction_C[k];
+        dv.tcase_C = s.thermal.case_C[k];
+        op.bankLoss_W += dv.loss_W + dv.ballast_W + dv.leg_W;
+    }
+    op.freewheelDiode.averageCurrent_A = w.diodeAverage_A;
+    op.freewheelDiode.rmsCurrent_A = w.diodeRms_A;
+    op.freewheelDiode.loss_W = e.diodeLoss_W;
+    op.freewheelDiode.tj_C = s.thermal.junction_C.back();
+    op.totalLoss_W = op.bankLoss_W + op.freewheelDiode.loss_W;
+    if (op.inputPower_W > 1e-9)
+        op.efficiency = op.motorInputPower_W / op.inputPower_W;
+    op.heatsinkTemperature_C = s.thermal.heatsink_C;
+    op.bank = s.bank;
+    spdlog::debug("evaluate: {} settled in {} iterations", op.name, s.iterations);
+    return op;
+}
+
+} // namespace
+
+Results evaluate(const Design& input) {
+    Results r;
+    r.design = input.meta.title;
+    r.topology = input.pwm.topology;
+
+    Design d = input;
+    normalizeBank(d.bank);
+
+    if (const auto problems = designProblems(d); !problems.empty()) {
+        for (const auto& p : problems)
+            r.checks.push_back(makeCheck("design.input", Severity::Fail, 0.0, 0.0, "", "field ranges", p.message,
+                                         "Correct the field", p.field, ""));
+        r.warnings.push_back("the design has invalid fields; no operating point was computed");
+        return r;
+    }
+    if (d.pwm.topology != "lowSideChopper") {
+        r.warnings.push_back(fmt::format("topology \"{}\" is computed as a low-side chopper until its own model lands",
+                                         d.pwm.topology));
+        r.checks.push_back(makeCheck("model.topology", Severity::Warning, 0.0, 0.0, "", "engine coverage",
+                                     fmt::format("the {} topology is not modelled yet; the results are those of a "
+                                                 "low-side chopper with the same bank",
+                                                 d.pwm.topology),
+                                     "Set pwm.topology to lowSideChopper or wait for the topology's model",
+                                     "pwm.topology", ""));
+    }
+    r.warnings.push_back("device losses are conduction losses only: switching, gate-drive and recovery losses are "
+                         "not computed yet");
+    if (d.bank.device.kind == "mosfet")
+        r.warnings.push_back("the MOSFETs are taken as fully enhanced by the gate drive");
+    if (d.dutyProfile.empty())
+        r.warnings.push_back("the duty profile is empty: no operating point to evaluate");
+
+    const Context context = makeContext(d);
+    bool any = false;
+    for (std::size_t i = 0; i < d.dutyProfile.size(); ++i) {
+        OperatingPointResult op = evaluateSegment(context, d.dutyProfile[i], i);
+        if (!op.notes.empty() && op.devices.empty()) {
+            // The segment could not be set up: its reasons are input problems.
+            for (const auto& note : op.notes)
+                r.checks.push_back(makeCheck("design.input", Severity::Fail, 0.0, 0.0, "", "field ranges", note,
+                                             "Correct the segment", fmt::format("dutyProfile[{}]", i), op.name));
+        } else {
+            pointChecks(d, op, i, r.checks);
+            for (const auto& dv : op.devices)
+                if (!any || dv.tj_C > r.maxJunction_C) {
+                    r.maxJunction_C = dv.tj_C;
+                    any = true;
+                }
+            r.maxTotalLoss_W = std::max(r.maxTotalLoss_W, op.totalLoss_W);
+        }
+        r.operatingPoints.push_back(std::move(op));
+    }
+    addProtection(d, r);
+    return r;
+}
+
+} // namespace amp
