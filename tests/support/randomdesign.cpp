@@ -123,14 +123,19 @@ Segment randomSegment(std::mt19937_64& rng, const Design& d, bool wide, int inde
     s.direction = pick(rng, spec("dutyProfile[].direction").choices);
     s.duration_s = wide ? wideValue(rng, spec("dutyProfile[].duration_s"))
                         : std::exp(uniform(rng, std::log(1.0), std::log(3600.0)));
-    // Typical currents up to twice the limit (or 400 A without one); torque from k·I.
-    const double iTop = d.pwm.currentLimit_A > 0.0 ? 2.0 * d.pwm.currentLimit_A : 400.0;
+    // Typical requests mostly within reach, some beyond it (the engine reports those): currents
+    // up to 1.2 × the limit (or 400 A without one), torque from k·I, speeds up to the no-load
+    // speed at the nominal voltage, n0 = V/k (in rad/s).
+    const double iTop = d.pwm.currentLimit_A > 0.0 ? 1.2 * d.pwm.currentLimit_A : 400.0;
     const double k = d.motor.kind == "seriesWound" && !d.motor.magnetisation.empty()
                          ? d.motor.magnetisation.back().torqueConstant_NmPerA
                          : d.motor.torqueConstant_NmPerA;
+    const double n0_rpm = d.supply.nominal_V / k * 60.0 / (2.0 * 3.141592653589793);
     s.motorCurrent_A = draw(rng, "dutyProfile[].motorCurrent_A", wide, 0.0, iTop);
-    s.torque_Nm = draw(rng, "dutyProfile[].torque_Nm", wide, -0.1 * k * iTop, k * iTop);
-    s.speed_rpm = draw(rng, "dutyProfile[].speed_rpm", wide, 0.0, 6000.0);
+    // The table allows a braking (negative) torque, but evaluate() refuses it until a topology
+    // that returns energy is modelled: draw driving torques only (see randomdesign.h).
+    s.torque_Nm = std::abs(draw(rng, "dutyProfile[].torque_Nm", wide, 0.0, k * iTop));
+    s.speed_rpm = draw(rng, "dutyProfile[].speed_rpm", wide, 0.0, n0_rpm);
     s.duty = draw(rng, "dutyProfile[].duty", wide, 0.0, 1.0);
     return s;
 }
@@ -222,7 +227,9 @@ RandomDesign randomDesign(std::mt19937_64& rng, const PartsLibrary& parts) {
     d = j.get<Design>();
 
     d.bank.count = wide ? integer(rng, 1, 64) : integer(rng, 1, 16);
-    d.bank.diodeCount = wide ? integer(rng, 0, 64) : integer(rng, 1, 6);
+    // At least one freewheel diode: evaluate() computes every topology as a low-side chopper for
+    // now and refuses a bank without one, which the table allows for synchronous topologies.
+    d.bank.diodeCount = wide ? integer(rng, 1, 64) : integer(rng, 1, 6);
     // Monte Carlo work grows with the samples; the range's top (1e6) is a speed question for the
     // benchmark, not a property of one evaluation.
     d.bank.spread.samples = integer(rng, 1, 2000);

@@ -7,6 +7,10 @@
 // the shipped library. About a third of the designs are "wide": each number anywhere in its
 // allowed range (log-uniform across decades); the rest are "typical": the library part and the
 // defaults scaled by up to ×3 either way, temperatures moved by up to ±30 K.
+// Two corners the table allows are left out because evaluate() refuses them as bad input for now
+// (it computes every topology as a low-side chopper): a braking (negative) segment torque, and a
+// synchronous bank without freewheel diodes. The property test found both; lift these limits
+// when the topologies land.
 
 #include "core/io/partslibrary.h"
 #include "core/model/design.h"
