@@ -191,9 +191,17 @@ SaveResult writeFileAtomically(const std::filesystem::path& file, std::string_vi
         std::error_code ec;
         if (options.keepBackup && fs::exists(file, ec)) {
             stage("backup");
-            fs::copy_file(file, backup, fs::copy_options::overwrite_existing, ec);
-            if (ec)
+            // Copy, then rename: a crash during the copy leaves the previous backup whole (the
+            // crash-safety test found an empty FILE.bak after a kill inside a plain copy).
+            const fs::path backupTmp = backup.string() + ".tmp";
+            fs::copy_file(file, backupTmp, fs::copy_options::overwrite_existing, ec);
+            if (!ec)
+                fs::rename(backupTmp, backup, ec);
+            if (ec) {
+                std::error_code ignored;
+                fs::remove(backupTmp, ignored);
                 throw std::runtime_error("cannot keep a backup " + backup.string() + ": " + ec.message());
+            }
         }
         stage("rename");
         fs::rename(tmp, file, ec);
