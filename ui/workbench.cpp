@@ -1,8 +1,10 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "ui/workbench.h"
 
+#include "ui/designdocument.h"
 #include "ui/mainwindow.h"
 #include "ui/recentfiles.h"
+#include "ui/recovery.h"
 
 #include <QApplication>
 #include <QDir>
@@ -43,7 +45,14 @@ int runWorkbench(QApplication& app, const QString& fileToOpen) {
     } else if (const QString demo = demoProjectPath(); !demo.isEmpty()) {
         window.openExample(demo);
     }
-    return app.exec();
+    // Unsaved work from a session that did not close is offered back; from here on it is kept
+    // in the recovery file every minute (ui/recovery.h).
+    const RecoveryFile recovery(defaultRecoveryFolder());
+    offerRecovery(*window.document(), recovery, &window);
+    Autosaver autosaver(window.document(), recovery);
+    const int code = app.exec();
+    recovery.remove(); // a normal end: the user saved or chose to discard
+    return code;
 }
 
 } // namespace amp::ui

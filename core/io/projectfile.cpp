@@ -222,6 +222,14 @@ LoadResult parseProject(std::string_view text, const MigrationChain& chain) {
         if (cut != std::string::npos)
             what = what.substr(cut + 2);
         return failure("", "not valid JSON (" + position(text, e.byte == 0 ? 0 : e.byte - 1) + "): " + what);
+    } catch (const json::exception& e) {
+        // Not a syntax error but still no JSON we can hold, e.g. a number beyond a double (1e999),
+        // which nlohmann reports as out_of_range.
+        std::string what = e.what();
+        const auto cut = what.find("] ");
+        if (cut != std::string::npos)
+            what = what.substr(cut + 2);
+        return failure("", "not valid JSON: " + what);
     }
     if (!project.is_object())
         return failure("", "the file must hold a JSON object with a formatVersion");
@@ -323,9 +331,17 @@ SaveResult writeFileAtomically(const std::filesystem::path& file, std::string_vi
         std::error_code ec;
         if (options.keepBackup && fs::exists(file, ec)) {
             stage("backup");
-            fs::copy_file(file, backup, fs::copy_options::overwrite_existing, ec);
-            if (ec)
+            // Copy, then rename: a crash during the copy leaves the previous backup whole (the
+            // crash-safety test found an empty FILE.bak after a kill inside a plain copy).
+            const fs::path backupTmp = backup.string() + ".tmp";
+            fs::copy_file(file, backupTmp, fs::copy_options::overwrite_existing, ec);
+            if (!ec)
+                fs::rename(backupTmp, backup, ec);
+            if (ec) {
+                std::error_code ignored;
+                fs::remove(backupTmp, ignored);
                 throw std::runtime_error("cannot keep a backup " + backup.string() + ": " + ec.message());
+            }
         }
         stage("rename");
         fs::rename(tmp, file, ec);
@@ -457,7 +473,8 @@ std::vector<Problem> applyOverride(json& project, std::string_view assignment) {
     try {
         value = json::parse(text);
         parsedJson = true;
-    } catch (const json::parse_error&) {
+    } catch (const json::exception&) {
+        // Not JSON (or a number beyond a double, out_of_range): read it as a value with a unit.
     }
     const auto unit = last.index ? std::nullopt : units::unitFromKey(last.key);
     if (unit && (!parsedJson || value.is_string())) {
