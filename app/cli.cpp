@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "app/cli.h"
 
+#include "core/checks/catalogue.h"
 #include "core/engine/evaluate.h"
 #include "core/engine/results_json.h"
 #include "core/io/datapaths.h"
@@ -155,6 +156,11 @@ int fieldsCommand(const QStringList&) {
     return 0;
 }
 
+int checksCommand(const QStringList&) {
+    out(QString::fromStdString(checksMarkdown()));
+    return 0;
+}
+
 int partsCommand(const QStringList& args) {
     QCommandLineParser p;
     p.setApplicationDescription("List the parts library (shipped parts, then the user parts folder).");
@@ -198,7 +204,7 @@ QString demoProject() {
 }
 
 bool isCommand(const QString& word) {
-    return word == "evaluate" || word == "fields" || word == "parts";
+    return word == "evaluate" || word == "fields" || word == "parts" || word == "checks";
 }
 
 QString helpText() {
@@ -221,6 +227,9 @@ QString helpText() {
         "        --set bank.device.mosfet.rdsOn25_ohm=\"3.5 mΩ\"   (JSON, or a number with a unit)\n"
         "  fields\n"
         "        Print every design field with its unit, range and meaning (Markdown).\n"
+        "  checks\n"
+        "        Print the catalogue of design checks: id, what it compares, where the limit comes\n"
+        "        from and the field to change (Markdown).\n"
         "  parts [--user FOLDER]\n"
         "        List the parts library and any part file that was skipped, with the reason.\n"
         "\n"
@@ -257,6 +266,8 @@ int runCommand(const QStringList& args) {
         return fieldsCommand(args);
     if (verb == "parts")
         return partsCommand(args);
+    if (verb == "checks")
+        return checksCommand(args);
     err("unknown command '" + verb + "' (see ampwright --help)");
     return 2;
 }

@@ -1,0 +1,182 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+// The check catalogue is complete and every check in it can fire: for each id a design built from
+// the demo trips it to the highest outcome the catalogue states, every id that evaluate() emits on
+// those designs is catalogued, and the ids constructed in core/ sources match the catalogue.
+//
+// Adding a check: give it a catalogue entry (core/checks/catalogue.cpp) and a row in tripDesigns()
+// below that makes it fire.
+#include "core/checks/catalogue.h"
+#include "core/engine/evaluate.h"
+#include "core/io/projectfile.h"
+#include "support/testsupport.h"
+
+#include <QtTest>
+
+#include <filesystem>
+#include <functional>
+#include <map>
+#include <regex>
+#include <set>
+
+using namespace amp;
+
+namespace {
+
+struct Trip {
+    std::string why;                     ///< what the change does, in words
+    std::function<void(Design&)> change; ///< applied to the demo
+};
+
+// One design per catalogued check. The changes are plain engineering faults, chosen so that the
+// check's outcome follows from a hand estimate written beside each one.
+std::map<std::string, Trip> tripDesigns() {
+    return {
+        {"design.input",
+         {"a negative battery voltage", [](Design& d) { d.supply.nominal_V = -48.0; }}},
+        {"model.topology",
+         {"a full bridge, not computed by its own model yet", [](Design& d) { d.pwm.topology = "fullBridge"; }}},
+        {"motor.operating-point",
+         // E = k·ω = 0.13 V·s/rad × 9000 rpm × 2π/60 ≈ 123 V, far above the 48 V bus.
+         {"a cruise at 9000 rpm, whose back-EMF exceeds the bus",
+          [](Design& d) { d.dutyProfile[1].speed_rpm = 9000.0; }}},
+        {"thermal.switch-junction",
+         // One device at the 200 A limit: R_ds(on) ≈ 5.6 mΩ × 1.5 hot, I_rms² ≈ 200²·0.2 → tens of W
+         // through 0.5 K/W + the interface and a 5 K/W sink: far above 175 °C.
+         {"one device on a small heatsink",
+          [](Design& d) {
+              d.bank.count = 1;
+              d.heatsink.part.rthSa_KperW = 5.0;
+          }}},
+        {"thermal.diode-junction",
+         // One diode with 10 K/W to its case carries ≈ 160 A at 80 % off-time in the start point:
+         // ≈ 0.9 V × 160 A ≈ 140 W → over 1000 K above the sink.
+         {"a single freewheel diode with a poor thermal path",
+          [](Design& d) {
+              d.bank.diodeCount = 1;
+              d.bank.freewheelDiode.rthJc_KperW = 10.0;
+          }}},
+        {"bank.current-derating",
+         // 200 A in one 120 A device is above the rating itself.
+         {"one device carries the whole start current", [](Design& d) { d.bank.count = 1; }}},
+        {"bank.lead-limit",
+         // 200 A at duty ≈ 0.2 is ≈ 90 A RMS in one device, above the 75 A lead limit.
+         {"one device's leads carry the whole bank current", [](Design& d) { d.bank.count = 1; }}},
+        {"bank.thermal-runaway",
+         // R_ds(on) rises ≈ 0.8 %/K; with 30 K/W to ambient the loop gain P·α·R_th passes 1.
+         {"a bank on a heatsink of 30 K/W", [](Design& d) { d.heatsink.part.rthSa_KperW = 30.0; }}},
+        {"bank.sharing",
+         // One device with R_ds(on) 50 % above the others: currents in a ratio near 1.5 > 1.10.
+         {"one device with a much higher on-resistance",
+          [](Design& d) {
+              normalizeBank(d.bank);
+              d.bank.devices[0].rdsOnDeviation = 0.5;
+          }}},
+        {"chopper.discontinuous",
+         // Light load: 10 A average with L = 2 µH, f = 16 kHz: ripple V·D(1−D)/(L·f) ≈ 180 A ≫ 2·10 A.
+         {"a motor with almost no inductance", [](Design& d) { d.motor.inductance_H = 2e-6; }}},
+        {"motor.demagnetisation",
+         // The 200 A start limit is above a 150 A magnet limit.
+         {"magnets that tolerate only 150 A", [](Design& d) { d.motor.demagCurrent_A = 150.0; }}},
+    };
+}
+
+Design demo() {
+    const LoadResult loaded = loadProject(test::demoDir() / "garden-cart.ampw");
+    if (!loaded)
+        qFatal("the demo does not load");
+    return *loaded.design;
+}
+
+QString q(const std::string& s) { return QString::fromStdString(s); }
+
+} // namespace
+
+class TestChecksCatalogue : public QObject {
+    Q_OBJECT
+  private slots:
+    void initTestCase() { test::installLogGuard(); }
+    void cleanupTestCase() { QCOMPARE(test::unexpectedErrorLogs(), 0); }
+
+    void entriesAreWellFormed() {
+        std::set<std::string> seen;
+        const std::regex idForm(R"([a-z]+(\.[a-z][a-z0-9-]*)+)");
+        for (const auto& c : checkCatalogue()) {
+            QVERIFY2(seen.insert(c.id).second, c.id.c_str());
+            QVERIFY2(std::regex_match(c.id, idForm), c.id.c_str());
+            QVERIFY2(!c.title.empty() && !c.compares.empty() && !c.limitSource.empty() && !c.field.empty(),
+                     c.id.c_str());
+            QVERIFY2(c.highest != Severity::Pass, c.id.c_str());
+            QCOMPARE(findCheckInfo(c.id), &c);
+        }
+        QVERIFY(findCheckInfo("no.such-check") == nullptr);
+        const std::string md = checksMarkdown();
+        for (const auto& c : checkCatalogue())
+            QVERIFY2(md.find("`" + c.id + "`") != std::string::npos, c.id.c_str());
+    }
+
+    void everyCheckCanFire_data() {
+        QTest::addColumn<QString>("id");
+        for (const auto& c : checkCatalogue())
+            QTest::newRow(c.id.c_str()) << q(c.id);
+    }
+
+    void everyCheckCanFire() {
+        QFETCH(QString, id);
+        const CheckInfo* info = findCheckInfo(id.toStdString());
+        QVERIFY(info);
+        const auto trips = tripDesigns();
+        const auto it = trips.find(info->id);
+        QVERIFY2(it != trips.end(), qPrintable("no design trips " + id + ": add one to tripDesigns()"));
+        Design d = demo();
+        it->second.change(d);
+        const Results r = evaluate(d);
+        Severity worst = Severity::Pass;
+        QString messages;
+        for (const auto& c : r.checks)
+            if (c.id == info->id) {
+                worst = static_cast<int>(c.severity) > static_cast<int>(worst) ? c.severity : worst;
+                messages += q(c.message) + "\n";
+            }
+        QVERIFY2(worst == info->highest,
+                 qPrintable(QString("%1 (%2) gave %3, expected %4:\n%5")
+                                .arg(id, q(it->second.why), toString(worst), toString(info->highest), messages)));
+    }
+
+    void everyEmittedIdIsCatalogued() {
+        std::vector<Design> designs{demo()};
+        for (const auto& [id, trip] : tripDesigns()) {
+            Design d = demo();
+            trip.change(d);
+            designs.push_back(d);
+        }
+        for (const auto& d : designs)
+            for (const auto& c : evaluate(d).checks)
+                QVERIFY2(findCheckInfo(c.id), qPrintable("not in the catalogue: " + q(c.id)));
+        // Every trip design belongs to a catalogued id (a stale row would hide a removed check).
+        for (const auto& [id, trip] : tripDesigns())
+            QVERIFY2(findCheckInfo(id), id.c_str());
+    }
+
+    void sourcesAndCatalogueAgree() {
+        // Ids are constructed as makeCheck("area.name", ...) or assigned as `.id = "area.name"`
+        // anywhere under core/. Both directions: nothing emitted is missing from the catalogue, and
+        // no catalogue entry is left without a construction site.
+        const std::regex site(R"re((?:makeCheck\(\s*|\.id\s*=\s*)"([a-z]+(?:\.[a-z][a-z0-9-]*)+)")re");
+        std::set<std::string> inSources;
+        for (const auto& e : std::filesystem::recursive_directory_iterator(test::sourceDir() / "core")) {
+            if (e.path().extension() != ".cpp" || e.path().filename() == "catalogue.cpp")
+                continue;
+            const std::string text = test::readText(e.path());
+            for (auto m = std::sregex_iterator(text.begin(), text.end(), site); m != std::sregex_iterator(); ++m)
+                inSources.insert((*m)[1].str());
+        }
+        QVERIFY(!inSources.empty());
+        for (const auto& id : inSources)
+            QVERIFY2(findCheckInfo(id), qPrintable("emitted in core/ but not catalogued: " + q(id)));
+        for (const auto& c : checkCatalogue())
+            QVERIFY2(inSources.count(c.id), qPrintable("catalogued but never constructed in core/: " + q(c.id)));
+    }
+};
+
+QTEST_GUILESS_MAIN(TestChecksCatalogue)
+#include "test_checks_catalogue.moc"
