@@ -1,0 +1,1313 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "ui/designsheet.h"
+
+#include "core/checks/catalogue.h"
+#include "core/checks/cautions.h"
+#include "core/engine/results.h"
+#include "core/model/design.h"
+#include "core/model/design_json.h"
+#include "core/model/fields.h"
+#include "core/units/units.h"
+
+#include <QAbstractTextDocumentLayout>
+#include <QDateTime>
+#include <QDir>
+#include <QFileInfo>
+#include <QFontMetricsF>
+#include <QGuiApplication>
+#include <QPainter>
+#include <QPainterPath>
+#include <QPdfWriter>
+#include <QTextBlock>
+#include <QTextCursor>
+#include <QTextDocument>
+#include <QTextObjectInterface>
+
+#include <nlohmann/json.hpp>
+
+#include <algorithm>
+#include <cmath>
+#include <functional>
+#include <map>
+#include <memory>
+#include <optional>
+#include <vector>
+
+namespace amp::ui {
+
+namespace {
+
+using units::Unit;
+
+// ---- Section headings (the test reads them through designSheetSections) -------------------------
+
+const QString kJob = QStringLiteral("What this sheet is");
+const QString kGlance = QStringLiteral("At a glance");
+const QString kInputs = QStringLiteral("Inputs");
+const QString kPoints = QStringLiteral("Results by operating point");
+const QString kDevices = QStringLiteral("Devices of the bank");
+const QString kSharingChart = QStringLiteral("Current and temperature per device");
+const QString kLossChart = QStringLiteral("Where the losses go");
+const QString kChecks = QStringLiteral("Checks");
+const QString kCautions = QStringLiteral("Safety cautions");
+const QString kLimits = QStringLiteral("Limits of this record");
+
+// ---- Page geometry (millimetres and points; converted to device pixels when drawn) ------------
+
+constexpr double kMarginSide_mm = 16.0;
+constexpr double kMarginTop_mm = 12.0;
+constexpr double kMarginBottom_mm = 12.0;
+constexpr double kBodyFont_pt = 8.5;
+constexpr double kHeaderGap_mm = 5.0; // between the header rule and the body, and body and footer
+constexpr int kPdfResolution_dpi = 600;
+constexpr int kPointsPerTable = 4;    // operating points side by side in the results table
+
+QString fmt(double v, Unit u) { return QString::fromStdString(units::format(v, u, kSheetDigits)); }
+QString esc(const std::string& s) { return QString::fromStdString(s).toHtmlEscaped(); }
+QString esc(const QString& s) { return s.toHtmlEscaped(); }
+QString dash() { return QStringLiteral("—"); }
+
+bool hasDevices(const Results& r) {
+    return std::any_of(r.operatingPoints.begin(), r.operatingPoints.end(),
+                       [](const OperatingPointResult& op) { return !op.devices.empty(); });
+}
+
+double hottestDevice(const OperatingPointResult& op, int* index = nullptr) {
+    double t = -1e300;
+    for (std::size_t k = 0; k < op.devices.size(); ++k)
+        if (op.devices[k].tj_C > t) {
+            t = op.devices[k].tj_C;
+            if (index)
+                *index = static_cast<int>(k);
+        }
+    return t;
+}
+
+// The SI symbol a Check carries, back to its unit (for formatting with a prefix).
+std::optional<Unit> unitOfSymbol(const std::string& symbol) {
+    static const std::map<std::string, Unit> known = {
+        {"V", Unit::Volt},     {"A", Unit::Ampere},  {"Ω", Unit::Ohm},          {"W", Unit::Watt},
+        {"J", Unit::Joule},    {"°C", Unit::Celsius}, {"K", Unit::Kelvin},       {"K/W", Unit::KelvinPerWatt},
+        {"s", Unit::Second},   {"Hz", Unit::Hertz},  {"H", Unit::Henry},         {"F", Unit::Farad},
+        {"m", Unit::Metre},    {"mm²", Unit::SquareMillimetre}, {"N·m", Unit::NewtonMetre},
+        {"rpm", Unit::Rpm},    {"%", Unit::Percent}, {"V/m", Unit::VoltPerMetre}, {"", Unit::None},
+    };
+    const auto it = known.find(symbol);
+    if (it == known.end())
+        return std::nullopt;
+    return it->second;
+}
+
+QString checkNumber(double v, const std::string& unit) {
+    if (const auto u = unitOfSymbol(unit))
+        return fmt(v, *u);
+    return fmt(v, Unit::None) + " " + esc(unit);
+}
+
+QString severityWord(Severity s) { return QString::fromLatin1(toString(s)).toUpper(); }
+
+QString severityColour(Severity s) {
+    switch (s) {
+    case Severity::Fail: return QStringLiteral("#f4c7c3");
+    case Severity::Warning: return QStringLiteral("#fbe3b0");
+    case Severity::Advice: return QStringLiteral("#d4e4f4");
+    case Severity::Pass: return QStringLiteral("#dcedd5");
+    }
+    return QStringLiteral("#ffffff");
+}
+
+QString topologyWords(const std::string& t) {
+    if (t == "lowSideChopper")
+        return QStringLiteral("low-side chopper");
+    if (t == "synchronousHalfBridge")
+        return QStringLiteral("synchronous half-bridge");
+    if (t == "fullBridge")
+        return QStringLiteral("full bridge");
+    return QString::fromStdString(t);
+}
+
+QString deviceWords(const std::string& kind, int count) {
+    const QString noun = kind == "mosfet" ? QStringLiteral("MOSFET") : kind == "bipolar" ? QStringLiteral("bipolar transistor")
+                                                                                         : QStringLiteral("Darlington");
+    return count == 1 ? noun : noun + "s";
+}
+
+QString numberWord(int n) {
+    static const char* words[] = {"no", "one", "two", "three", "four", "five", "six", "seven", "eight", "nine",
+                                  "ten", "eleven", "twelve"};
+    return n >= 0 && n <= 12 ? QString::fromLatin1(words[n]) : QString::number(n);
+}
+
+// ---- Charts: vector drawings inside the document ----------------------------------------------
+
+constexpr int kChartObject = QTextFormat::UserObject + 17;
+constexpr int kChartIdProperty = QTextFormat::UserProperty + 17;
+
+/// Draws the sheet's charts where the document holds an object character of type kChartObject.
+class ChartObjects : public QObject, public QTextObjectInterface {
+    Q_OBJECT
+    Q_INTERFACES(QTextObjectInterface)
+  public:
+    using Draw = std::function<void(QPainter&, const QRectF&, double pt)>;
+    explicit ChartObjects(QObject* parent) : QObject(parent) {}
+
+    int add(Draw draw, double height_mm) {
+        m_charts.push_back({std::move(draw), height_mm});
+        return static_cast<int>(m_charts.size()) - 1;
+    }
+
+    QSizeF intrinsicSize(QTextDocument* doc, int, const QTextFormat& format) override {
+        const int id = format.property(kChartIdProperty).toInt();
+        const QPaintDevice* device = doc->documentLayout()->paintDevice();
+        const double dpi = device ? device->logicalDpiY() : 96.0;
+        const double width = doc->pageSize().width() > 0 ? doc->pageSize().width() : doc->textWidth();
+        const double height = id >= 0 && id < static_cast<int>(m_charts.size()) ? m_charts[id].height_mm : 50.0;
+        return {width * 0.995, height / 25.4 * dpi};
+    }
+
+    void drawObject(QPainter* painter, const QRectF& rect, QTextDocument*, int, const QTextFormat& format) override {
+        const int id = format.property(kChartIdProperty).toInt();
+        if (id < 0 || id >= static_cast<int>(m_charts.size()))
+            return;
+        const double pt = painter->device()->logicalDpiY() / 72.0;
+        painter->save();
+        painter->setRenderHint(QPainter::Antialiasing);
+        m_charts[id].draw(*painter, rect, pt);
+        painter->restore();
+    }
+
+  private:
+    struct Chart {
+        Draw draw;
+        double height_mm;
+    };
+    std::vector<Chart> m_charts;
+};
+
+const QColor kSeries[] = {QColor("#1f5f8b"), QColor("#d1782c"), QColor("#4a8f3c"), QColor("#8c3f7a"),
+                          QColor("#b8a02a"), QColor("#3f8f8f"), QColor("#7a5230"), QColor("#5a5a9e")};
+QColor seriesColour(std::size_t i) { return kSeries[i % (sizeof(kSeries) / sizeof(kSeries[0]))]; }
+
+/// A tick step of 1, 2 or 5 × 10^k giving at most `maxTicks` intervals over `span`.
+double niceStep(double span, int maxTicks) {
+    if (!(span > 0.0))
+        return 1.0;
+    const double raw = span / maxTicks;
+    const double mag = std::pow(10.0, std::floor(std::log10(raw)));
+    for (double m : {1.0, 2.0, 5.0, 10.0})
+        if (m * mag >= raw)
+            return m * mag;
+    return 10.0 * mag;
+}
+
+QFont chartFont(double size_pt, bool bold = false) {
+    QFont f(QStringLiteral("DejaVu Sans"));
+    f.setStyleHint(QFont::SansSerif);
+    f.setPointSizeF(size_pt);
+    f.setBold(bold);
+    return f;
+}
+
+/// A vertical value axis with grid lines over `plot`, from 0 (or `lo`) to a nice top above `hi`.
+struct Axis {
+    double lo = 0.0, hi = 1.0, step = 1.0;
+    double y(const QRectF& plot, double v) const { return plot.bottom() - (v - lo) / (hi - lo) * plot.height(); }
+    double x(const QRectF& plot, double v) const { return plot.left() + (v - lo) / (hi - lo) * plot.width(); }
+};
+
+Axis makeAxis(double lo, double hi, int ticks) {
+    Axis a;
+    if (!(hi > lo))
+        hi = lo + 1.0;
+    a.step = niceStep(hi - lo, ticks);
+    a.lo = std::floor(lo / a.step) * a.step;
+    a.hi = std::ceil(hi / a.step) * a.step;
+    if (a.hi <= a.lo)
+        a.hi = a.lo + a.step;
+    return a;
+}
+
+QString tickText(double v) { return QString::number(std::abs(v) < 1e-12 ? 0.0 : v, 'g', 6); }
+
+void drawValueAxis(QPainter& p, const QRectF& plot, const Axis& a, const QString& unit, double pt) {
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fm(p.font(), p.device());
+    for (double v = a.lo; v <= a.hi + a.step * 1e-6; v += a.step) {
+        const double y = a.y(plot, v);
+        p.setPen(QPen(QColor("#d8d8d8"), 0.4 * pt));
+        p.drawLine(QPointF(plot.left(), y), QPointF(plot.right(), y));
+        p.setPen(QColor("#333333"));
+        const QString t = tickText(v);
+        p.drawText(QPointF(plot.left() - 2.5 * pt - fm.horizontalAdvance(t), y + fm.ascent() / 2.8), t);
+    }
+    (void)unit;
+    p.setPen(QPen(QColor("#555555"), 0.6 * pt));
+    p.drawLine(plot.bottomLeft(), plot.bottomRight());
+    p.drawLine(plot.bottomLeft(), plot.topLeft());
+}
+
+/// Legend in a row: coloured squares with names, from `at`; returns the height used.
+double drawLegend(QPainter& p, QPointF at, double width, const QStringList& names, const std::vector<QColor>& colours,
+                  double pt) {
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fm(p.font(), p.device());
+    const double box = 5.0 * pt;
+    double x = at.x(), y = at.y();
+    for (int i = 0; i < names.size(); ++i) {
+        const double w = box + 2.5 * pt + fm.horizontalAdvance(names[i]) + 8.0 * pt;
+        if (x + w > at.x() + width && x > at.x()) {
+            x = at.x();
+            y += fm.height() + 1.5 * pt;
+        }
+        p.fillRect(QRectF(x, y + (fm.height() - box) / 2, box, box), colours[static_cast<std::size_t>(i)]);
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(x + box + 2.5 * pt, y + fm.ascent()), names[i]);
+        x += w;
+    }
+    return y + fm.height() - at.y();
+}
+
+struct SharingSeries {
+    QString name;
+    std::vector<double> current_A; // on-state current per device
+    std::vector<double> tj_C;
+};
+
+/// Left: on-state current of every device, one bar per operating point. Right: junction
+/// temperatures per device with the part's T_j,max.
+void drawSharingChart(QPainter& p, const QRectF& r, double pt, const std::vector<SharingSeries>& series,
+                      double tjMax_C) {
+    QStringList names;
+    std::vector<QColor> colours;
+    std::size_t devices = 0;
+    double iMax = 0.0, tMax = tjMax_C, tMin = tjMax_C;
+    for (std::size_t s = 0; s < series.size(); ++s) {
+        names << series[s].name;
+        colours.push_back(seriesColour(s));
+        devices = std::max(devices, series[s].current_A.size());
+        for (double v : series[s].current_A)
+            iMax = std::max(iMax, v);
+        for (double v : series[s].tj_C) {
+            tMax = std::max(tMax, v);
+            tMin = std::min(tMin, v);
+        }
+    }
+    const double legend = drawLegend(p, r.topLeft() + QPointF(14.0 * pt, 0.0), r.width() - 14.0 * pt, names, colours, pt);
+    const double gap = 22.0 * pt;
+    const double top = r.top() + legend + 16.0 * pt;
+    const double bottom = r.bottom() - 16.0 * pt;
+    const double half = (r.width() - gap) / 2.0;
+    const QRectF left(r.left() + 26.0 * pt, top, half - 26.0 * pt, bottom - top);
+    const QRectF right(r.left() + half + gap + 26.0 * pt, top, half - 26.0 * pt, bottom - top);
+
+    p.setFont(chartFont(7.0, true));
+    p.setPen(QColor("#222222"));
+    p.drawText(QPointF(left.left(), top - 7.0 * pt), QStringLiteral("On-state current, A"));
+    p.drawText(QPointF(right.left(), top - 7.0 * pt), QStringLiteral("Junction temperature, °C"));
+
+    // Currents.
+    const Axis ia = makeAxis(0.0, iMax > 0.0 ? iMax * 1.05 : 1.0, 5);
+    drawValueAxis(p, left, ia, QStringLiteral("A"), pt);
+    const double slot = devices > 0 ? left.width() / static_cast<double>(devices) : left.width();
+    const double barW = slot * 0.8 / std::max<std::size_t>(1, series.size());
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fm(p.font(), p.device());
+    const int labelEvery = devices > 16 ? static_cast<int>(std::ceil(devices / 16.0)) : 1;
+    for (std::size_t k = 0; k < devices; ++k) {
+        const double x0 = left.left() + slot * static_cast<double>(k) + slot * 0.1;
+        for (std::size_t s = 0; s < series.size(); ++s) {
+            if (k >= series[s].current_A.size())
+                continue;
+            const double y = ia.y(left, series[s].current_A[k]);
+            p.fillRect(QRectF(x0 + barW * static_cast<double>(s), y, barW * 0.92, left.bottom() - y), seriesColour(s));
+        }
+        if (k % static_cast<std::size_t>(labelEvery) == 0) {
+            const QString t = QString::number(k);
+            p.setPen(QColor("#333333"));
+            p.drawText(QPointF(left.left() + slot * (static_cast<double>(k) + 0.5) - fm.horizontalAdvance(t) / 2,
+                               left.bottom() + fm.ascent() + 2.0 * pt),
+                       t);
+        }
+    }
+    const QString devLabel = QStringLiteral("device");
+    p.drawText(QPointF(left.center().x() - fm.horizontalAdvance(devLabel) / 2, r.bottom() - 1.0 * pt), devLabel);
+
+    // Temperatures.
+    const Axis ta = makeAxis(std::min(0.0, tMin), tMax * 1.04, 5);
+    drawValueAxis(p, right, ta, QStringLiteral("°C"), pt);
+    const double tslot = devices > 0 ? right.width() / static_cast<double>(devices) : right.width();
+    const double yLimit = ta.y(right, tjMax_C);
+    p.setPen(QPen(QColor("#b03a2e"), 0.9 * pt, Qt::DashLine));
+    p.drawLine(QPointF(right.left(), yLimit), QPointF(right.right(), yLimit));
+    p.setFont(chartFont(6.5));
+    p.setPen(QColor("#b03a2e"));
+    const QString limitText = QStringLiteral("T_j,max ") + fmt(tjMax_C, Unit::Celsius);
+    p.drawText(QPointF(right.right() - fm.horizontalAdvance(limitText), yLimit - 2.0 * pt), limitText);
+    for (std::size_t s = 0; s < series.size(); ++s) {
+        QPainterPath path;
+        for (std::size_t k = 0; k < series[s].tj_C.size(); ++k) {
+            const QPointF pnt(right.left() + tslot * (static_cast<double>(k) + 0.5), ta.y(right, series[s].tj_C[k]));
+            if (k == 0)
+                path.moveTo(pnt);
+            else
+                path.lineTo(pnt);
+        }
+        p.setPen(QPen(seriesColour(s), 0.9 * pt));
+        p.setBrush(Qt::NoBrush);
+        p.drawPath(path);
+        p.setBrush(seriesColour(s));
+        for (std::size_t k = 0; k < series[s].tj_C.size(); ++k)
+            p.drawEllipse(QPointF(right.left() + tslot * (static_cast<double>(k) + 0.5), ta.y(right, series[s].tj_C[k])),
+                          1.6 * pt, 1.6 * pt);
+    }
+    p.setPen(QColor("#333333"));
+    for (std::size_t k = 0; k < devices; ++k)
+        if (k % static_cast<std::size_t>(labelEvery) == 0) {
+            const QString t = QString::number(k);
+            p.drawText(QPointF(right.left() + tslot * (static_cast<double>(k) + 0.5) - fm.horizontalAdvance(t) / 2,
+                               right.bottom() + fm.ascent() + 2.0 * pt),
+                       t);
+        }
+    p.drawText(QPointF(right.center().x() - fm.horizontalAdvance(devLabel) / 2, r.bottom() - 1.0 * pt), devLabel);
+}
+
+struct LossRow {
+    QString name;
+    std::vector<double> parts_W; // one per component
+};
+
+/// Horizontal stacked bars: the stage loss of each operating point split by where it arises.
+void drawLossChart(QPainter& p, const QRectF& r, double pt, const QStringList& components,
+                   const std::vector<LossRow>& rows) {
+    std::vector<QColor> colours;
+    for (int i = 0; i < components.size(); ++i)
+        colours.push_back(seriesColour(static_cast<std::size_t>(i)));
+    const double legend = drawLegend(p, r.topLeft(), r.width(), components, colours, pt);
+    p.setFont(chartFont(7.0));
+    const QFontMetricsF fm(p.font(), p.device());
+    double labelW = 0.0, total = 0.0;
+    std::vector<double> totals;
+    for (const auto& row : rows) {
+        labelW = std::max(labelW, fm.horizontalAdvance(row.name));
+        double t = 0.0;
+        for (double v : row.parts_W)
+            t += std::max(0.0, v);
+        totals.push_back(t);
+        total = std::max(total, t);
+    }
+    const double valueW = fm.horizontalAdvance(QStringLiteral("0000.0 mW")) + 4.0 * pt;
+    const QRectF plot(r.left() + labelW + 6.0 * pt, r.top() + legend + 8.0 * pt, r.width() - labelW - 6.0 * pt - valueW,
+                      r.height() - legend - 8.0 * pt - 2.0 * fm.height() - 8.0 * pt);
+    const Axis a = makeAxis(0.0, total > 0.0 ? total : 1.0, 6);
+    // Grid and ticks along x.
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fs(p.font(), p.device());
+    for (double v = a.lo; v <= a.hi + a.step * 1e-6; v += a.step) {
+        const double x = a.x(plot, v);
+        p.setPen(QPen(QColor("#d8d8d8"), 0.4 * pt));
+        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
+        p.setPen(QColor("#333333"));
+        const QString t = tickText(v);
+        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
+    }
+    const QString axisTitle = QStringLiteral("loss, W");
+    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(axisTitle) / 2, r.bottom() - 1.0 * pt), axisTitle);
+    p.setPen(QPen(QColor("#555555"), 0.6 * pt));
+    p.drawLine(plot.bottomLeft(), plot.topLeft());
+
+    const double slot = rows.empty() ? plot.height() : plot.height() / static_cast<double>(rows.size());
+    const double barH = std::min(slot * 0.62, 14.0 * pt);
+    p.setFont(chartFont(7.0));
+    for (std::size_t i = 0; i < rows.size(); ++i) {
+        const double yc = plot.top() + slot * (static_cast<double>(i) + 0.5);
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(plot.left() - 4.0 * pt - fm.horizontalAdvance(rows[i].name), yc + fm.ascent() / 2.6),
+                   rows[i].name);
+        double x = plot.left();
+        for (std::size_t c = 0; c < rows[i].parts_W.size(); ++c) {
+            const double w = std::max(0.0, rows[i].parts_W[c]) / (a.hi - a.lo) * plot.width();
+            p.fillRect(QRectF(x, yc - barH / 2, w, barH), colours[c]);
+            x += w;
+        }
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(x + 3.0 * pt, yc + fm.ascent() / 2.6), fmt(totals[i], Unit::Watt));
+    }
+}
+
+// ---- The document ------------------------------------------------------------------------------
+
+/// Builds the HTML of the sheet; charts are recorded in `charts` and appear as placeholders.
+class SheetWriter {
+  public:
+    SheetWriter(const Design& d, const Results& r, ChartObjects* charts) : m_d(d), m_r(r), m_charts(charts) {}
+
+    QString html();
+    QStringList sections() const { return m_sections; }
+    std::vector<int> chartIds() const { return m_chartIds; }
+    static QString placeholder(int id) { return QStringLiteral("@@chart-%1@@").arg(id); }
+
+  private:
+    // Lengths in the HTML are CSS pixels at 96 per inch; the layout scales them to the device.
+    static double px(double pt) { return pt * 96.0 / 72.0; }
+    void heading(const QString& title);
+    void sub(const QString& title) { m_html += "<h3>" + esc(title) + "</h3>"; }
+    void chart(ChartObjects::Draw draw, double height_mm);
+    QString tableOpen(const QString& extra = {}) const;
+
+    void titleBlock();
+    void jobStatement();
+    void glance();
+    void inputs();
+    void pointResults();
+    void deviceTables();
+    void sharingChart();
+    void lossChart();
+    void checks();
+    void cautions();
+    void limits();
+
+    const Design& m_d;
+    const Results& m_r;
+    ChartObjects* m_charts;
+    QString m_html;
+    QStringList m_sections;
+    std::vector<int> m_chartIds;
+};
+
+void SheetWriter::heading(const QString& title) {
+    m_sections << title;
+    m_html += QStringLiteral("<h2>%1&#160;&#160;%2</h2>").arg(m_sections.size()).arg(esc(title));
+}
+
+void SheetWriter::chart(ChartObjects::Draw draw, double height_mm) {
+    const int id = m_charts ? m_charts->add(std::move(draw), height_mm) : -1;
+    m_chartIds.push_back(id);
+    m_html += "<p class=\"chart\">" + placeholder(id) + "</p>";
+}
+
+QString SheetWriter::tableOpen(const QString& extra) const {
+    return QStringLiteral("<table width=\"100%\" cellspacing=\"0\" cellpadding=\"%1\" border=\"%2\" "
+                          "style=\"border-collapse: collapse; border-color: #9a9a9a; border-style: solid;\" %3>")
+        .arg(px(2.2), 0, 'f', 1)
+        .arg(px(0.5), 0, 'f', 1)
+        .arg(extra);
+}
+
+void SheetWriter::titleBlock() {
+    const auto& m = m_d.meta;
+    const QString printed = QDateTime::currentDateTime().toString(QStringLiteral("yyyy-MM-dd HH:mm"));
+    const Severity worst = worstSeverity(m_r.checks);
+    int counts[4] = {0, 0, 0, 0};
+    for (const auto& c : m_r.checks)
+        ++counts[static_cast<int>(c.severity)];
+    m_html += "<p class=\"kicker\">Ampwright design sheet</p>";
+    m_html += "<h1>" + esc(m.title) + "</h1>";
+    m_html += tableOpen();
+    auto row = [&](const QString& a, const QString& av, const QString& b, const QString& bv) {
+        m_html += "<tr><td class=\"key\" width=\"16%\">" + a + "</td><td width=\"34%\">" + av +
+                  "</td><td class=\"key\" width=\"16%\">" + b + "</td><td width=\"34%\">" + bv + "</td></tr>";
+    };
+    row("Project", esc(m.title), "Revision", m.revision.empty() ? dash() : esc(m.revision));
+    row("Author", m.author.empty() ? dash() : esc(m.author), "Date", m.date.empty() ? "not stated" : esc(m.date));
+    row("Printed", esc(printed), "Computed by", QStringLiteral("Ampwright %1").arg(AMPWRIGHT_VERSION));
+    row("Variant", m_r.variant.empty() ? QStringLiteral("as designed") : esc(m_r.variant), "Checks",
+        QStringLiteral("<span style=\"background-color:%1\">&#160;%2&#160;</span>&#160; %3 fail, %4 warning, %5 advice, "
+                       "%6 pass")
+            .arg(severityColour(worst), severityWord(worst))
+            .arg(counts[3])
+            .arg(counts[2])
+            .arg(counts[1])
+            .arg(counts[0]));
+    if (!m.notes.empty())
+        m_html += "<tr><td class=\"key\">Notes</td><td colspan=\"3\">" + esc(m.notes).replace('\n', "<br/>") +
+                  "</td></tr>";
+    m_html += "</table>";
+}
+
+void SheetWriter::jobStatement() {
+    heading(kJob);
+    const auto& d = m_d;
+    const QString motor = d.motor.kind == "seriesWound" ? QStringLiteral("a series-wound") : QStringLiteral("a permanent-magnet");
+    const int points = static_cast<int>(d.dutyProfile.size());
+    QString text = QStringLiteral(
+                       "This sheet records the power stage of a brushed DC motor drive as designed and computed in "
+                       "Ampwright: a %1 with %2 %3 in parallel (%4) switching at %5, fed from a %6 %7 battery "
+                       "(highest %8, lowest %9) and driving %10 motor over a duty profile of %11 operating %12. ")
+                       .arg(topologyWords(d.pwm.topology), numberWord(d.bank.count), deviceWords(d.bank.device.kind, d.bank.count),
+                            esc(d.bank.device.name), fmt(d.pwm.frequency_Hz, Unit::Hertz), fmt(d.supply.nominal_V, Unit::Volt),
+                            esc(d.supply.chemistry), fmt(d.supply.max_V, Unit::Volt), fmt(d.supply.min_V, Unit::Volt))
+                       .arg(motor, numberWord(points), points == 1 ? QStringLiteral("point") : QStringLiteral("points"));
+    text += QStringLiteral(
+        "It lists every input with its unit, the currents, losses and temperatures computed for each operating "
+        "point and each device, every design check with its number, its limit and where the limit comes from, "
+        "and the safety cautions that apply. It is a calculation record for a build log, to be read and checked "
+        "by the person who builds the drive; it certifies nothing.");
+    m_html += "<p>" + text + "</p>";
+}
+
+void SheetWriter::glance() {
+    heading(kGlance);
+    m_html += tableOpen();
+    auto row = [&](const QString& what, const QString& value, const QString& note) {
+        m_html += "<tr><td class=\"key\" width=\"34%\">" + what + "</td><td class=\"num\" width=\"18%\">" + value +
+                  "</td><td width=\"48%\">" + note + "</td></tr>";
+    };
+    const OperatingPointResult* hottest = nullptr;
+    const OperatingPointResult* lossiest = nullptr;
+    const OperatingPointResult* sinkHot = nullptr;
+    for (const auto& op : m_r.operatingPoints) {
+        if (op.devices.empty())
+            continue;
+        if (!hottest || hottestDevice(op) > hottestDevice(*hottest))
+            hottest = &op;
+        if (!lossiest || op.totalLoss_W > lossiest->totalLoss_W)
+            lossiest = &op;
+        if (!sinkHot || op.heatsinkTemperature_C > sinkHot->heatsinkTemperature_C)
+            sinkHot = &op;
+    }
+    if (hottest) {
+        int k = 0;
+        hottestDevice(*hottest, &k);
+        row("Hottest switch junction", fmt(m_r.maxJunction_C, Unit::Celsius),
+            QStringLiteral("device %1 in “%2”; T_j,max of the part %3")
+                .arg(k)
+                .arg(esc(hottest->name), fmt(m_d.bank.device.tjMax_C, Unit::Celsius)));
+        row("Highest power-stage loss", fmt(m_r.maxTotalLoss_W, Unit::Watt),
+            QStringLiteral("in “%1” (bank, ballast and freewheel diodes)").arg(esc(lossiest->name)));
+        row("Hottest heatsink", fmt(sinkHot->heatsinkTemperature_C, Unit::Celsius),
+            QStringLiteral("in “%1”, ambient %2").arg(esc(sinkHot->name), fmt(m_d.heatsink.ambient_C, Unit::Celsius)));
+        double diode = -1e300;
+        const OperatingPointResult* dOp = nullptr;
+        for (const auto& op : m_r.operatingPoints)
+            if (!op.devices.empty() && op.freewheelDiode.tj_C > diode) {
+                diode = op.freewheelDiode.tj_C;
+                dOp = &op;
+            }
+        if (dOp)
+            row("Hottest freewheel diode", fmt(diode, Unit::Celsius),
+                QStringLiteral("in “%1”; T_j,max of the part %2")
+                    .arg(esc(dOp->name), fmt(m_d.bank.freewheelDiode.tjMax_C, Unit::Celsius)));
+        double peak = 0.0;
+        for (const auto& op : m_r.operatingPoints)
+            peak = std::max(peak, op.motorPeakCurrent_A);
+        row("Highest armature current", fmt(peak, Unit::Ampere), QStringLiteral("peak of the ripple, any point"));
+    } else {
+        row("Results", dash(), QStringLiteral("no operating point was computed: see the checks"));
+    }
+    // Non-passing checks in one line each.
+    QStringList raised;
+    for (const auto& c : m_r.checks)
+        if (c.severity == Severity::Fail || c.severity == Severity::Warning)
+            raised << QStringLiteral("%1 %2%3")
+                          .arg(severityWord(c.severity), esc(c.id),
+                               c.operatingPoint.empty() ? QString() : QStringLiteral(" (%1)").arg(esc(c.operatingPoint)));
+    raised.removeDuplicates();
+    row("Failed and warning checks", QString::number(raised.size()),
+        raised.isEmpty() ? QStringLiteral("none") : raised.join(QStringLiteral("<br/>")));
+    m_html += "</table>";
+}
+
+// The value of a design field as printed: a number with its unit, a word, or yes/no.
+QString fieldValue(const FieldSpec& f, const nlohmann::json& v) {
+    if (v.is_boolean())
+        return v.get<bool>() ? QStringLiteral("yes") : QStringLiteral("no");
+    if (v.is_number()) {
+        if (f.type == FieldSpec::Type::Integer)
+            return QString::number(v.get<long long>());
+        return fmt(v.get<double>(), f.unit);
+    }
+    if (v.is_string())
+        return esc(v.get<std::string>());
+    return dash();
+}
+
+const nlohmann::json* at(const nlohmann::json& root, const std::string& path) {
+    const nlohmann::json* node = &root;
+    std::size_t start = 0;
+    while (start <= path.size()) {
+        const std::size_t dot = path.find('.', start);
+        const std::string key = path.substr(start, dot == std::string::npos ? std::string::npos : dot - start);
+        if (!node->is_object() || !node->contains(key))
+            return nullptr;
+        node = &(*node)[key];
+        if (dot == std::string::npos)
+            break;
+        start = dot + 1;
+    }
+    return node;
+}
+
+bool startsWith(const std::string& s, const std::string& prefix) { return s.rfind(prefix, 0) == 0; }
+
+// Which fields the sheet shows for this design: the ones the chosen device, topology and options use.
+bool fieldShown(const Design& d, const FieldSpec& f) {
+    const std::string& p = f.path;
+    if (p.find("[]") != std::string::npos || startsWith(p, "meta.") || startsWith(p, "bank.spread.") ||
+        p == "bank.devices" || p == "dutyProfile")
+        return false;
+    const std::string& kind = d.bank.device.kind;
+    if (startsWith(p, "bank.device.mosfet.") && kind != "mosfet")
+        return false;
+    if (startsWith(p, "bank.device.bjt.") && kind == "mosfet")
+        return false;
+    if (startsWith(p, "bank.device.driver.") && kind != "darlington")
+        return false;
+    if ((p == "drive.baseDriveCurrent_A" || p == "drive.forcedBeta") && kind == "mosfet")
+        return false;
+    if (p == "pwm.deadTime_s" && d.pwm.topology == "lowSideChopper")
+        return false;
+    if (p == "motor.magnetisation" && d.motor.kind != "seriesWound")
+        return false;
+    if (p == "motor.torqueConstant_NmPerA" && d.motor.kind == "seriesWound")
+        return false;
+    if (startsWith(p, "reversing.") && p != "reversing.present" && !d.reversing.present)
+        return false;
+    if (p == "bank.interface.dielectricStrength_Vperm" && !d.bank.interface.insulating)
+        return false;
+    return true;
+}
+
+// A list field in one cell: "r 0.3 K/W, τ 10 ms; …".
+QString listValue(const std::string& path, const nlohmann::json& v) {
+    if (!v.is_array() || v.empty())
+        return QStringLiteral("none");
+    QStringList items;
+    for (const auto& item : v) {
+        QStringList parts;
+        if (path.ends_with("zthJc"))
+            parts << fmt(item.value("r_KperW", 0.0), Unit::KelvinPerWatt) << fmt(item.value("tau_s", 0.0), Unit::Second);
+        else if (path.ends_with("soa")) {
+            const double pulse = item.value("pulse_s", 0.0);
+            parts << fmt(item.value("voltage_V", 0.0), Unit::Volt) << fmt(item.value("current_A", 0.0), Unit::Ampere)
+                  << (pulse > 0.0 ? fmt(pulse, Unit::Second) : QStringLiteral("DC"));
+        } else if (path.ends_with("rdsOnTable"))
+            parts << fmt(item.value("tj_C", 0.0), Unit::Celsius) << QStringLiteral("× %1").arg(item.value("factor", 1.0));
+        else if (path.ends_with("magnetisation"))
+            parts << fmt(item.value("current_A", 0.0), Unit::Ampere)
+                  << fmt(item.value("torqueConstant_NmPerA", 0.0), Unit::NewtonMetrePerAmpere);
+        else
+            parts << esc(item.dump());
+        items << parts.join(QStringLiteral(" "));
+    }
+    return items.join(QStringLiteral("; "));
+}
+
+void SheetWriter::inputs() {
+    heading(kInputs);
+    m_html += "<p class=\"small\">Values as entered, in SI with engineering prefixes; temperatures in °C. Fields the "
+              "chosen device type, topology and options do not use are left out.</p>";
+    const nlohmann::json j = m_d;
+    struct Group {
+        std::string prefix;
+        QString title;
+        std::vector<std::string> exclude;
+    };
+    const std::vector<Group> groups = {
+        {"supply.", "Battery", {}},
+        {"motor.", "Motor", {}},
+        {"pwm.", "Modulation and control", {}},
+        {"drive.", "Gate or base drive", {}},
+        {"bank.", "Bank", {"bank.device.", "bank.freewheelDiode.", "bank.interface."}},
+        {"bank.device.", "Switch part", {}},
+        {"bank.freewheelDiode.", "Freewheel diode", {}},
+        {"bank.interface.", "Thermal interface", {}},
+        {"heatsink.", "Heatsink", {}},
+        {"reversing.", "Reversing contactor", {}},
+        {"wiring.", "Wiring and bus capacitors", {}},
+    };
+    for (const auto& g : groups) {
+        std::vector<std::pair<QString, QString>> cells;
+        for (const auto& f : designFields()) {
+            if (!startsWith(f.path, g.prefix) || !fieldShown(m_d, f))
+                continue;
+            if (std::any_of(g.exclude.begin(), g.exclude.end(), [&](const std::string& e) { return startsWith(f.path, e); }))
+                continue;
+            const nlohmann::json* v = at(j, f.path);
+            if (!v)
+                continue;
+            if (f.path.ends_with(".cost") && v->is_number() && v->get<double>() == 0.0)
+                continue;
+            if (v->is_string() && v->get<std::string>().empty())
+                continue;
+            const QString value = f.type == FieldSpec::Type::List ? listValue(f.path, *v) : fieldValue(f, *v);
+            cells.emplace_back(esc(f.label), value);
+        }
+        if (g.prefix == "bank.") {
+            QStringList dev;
+            for (std::size_t k = 0; k < m_d.bank.devices.size(); ++k) {
+                const auto& b = m_d.bank.devices[k];
+                QStringList parts;
+                if (b.rdsOnDeviation != 0.0)
+                    parts << QStringLiteral("R_ds(on) %1%2").arg(b.rdsOnDeviation > 0 ? "+" : "").arg(fmt(b.rdsOnDeviation, Unit::Percent));
+                if (b.vthDeviation_V != 0.0)
+                    parts << QStringLiteral("V_th %1").arg(fmt(b.vthDeviation_V, Unit::Volt));
+                if (b.vbeDeviation_V != 0.0)
+                    parts << QStringLiteral("V_BE %1").arg(fmt(b.vbeDeviation_V, Unit::Volt));
+                if (b.betaDeviation != 0.0)
+                    parts << QStringLiteral("β %1").arg(fmt(b.betaDeviation, Unit::Percent));
+                if (b.gateResistorDeviation_ohm != 0.0)
+                    parts << QStringLiteral("gate resistor %1").arg(fmt(b.gateResistorDeviation_ohm, Unit::Ohm));
+                if (b.ballastDeviation_ohm != 0.0)
+                    parts << QStringLiteral("ballast %1").arg(fmt(b.ballastDeviation_ohm, Unit::Ohm));
+                if (b.legResistanceDeviation_ohm != 0.0)
+                    parts << QStringLiteral("leg %1").arg(fmt(b.legResistanceDeviation_ohm, Unit::Ohm));
+                if (!parts.isEmpty())
+                    dev << QStringLiteral("device %1: %2").arg(k).arg(parts.join(", "));
+            }
+            cells.emplace_back(QStringLiteral("Per-device deviations"),
+                               dev.isEmpty() ? QStringLiteral("none: every device nominal") : dev.join("<br/>"));
+        }
+        if (cells.empty())
+            continue;
+        sub(g.title);
+        m_html += tableOpen();
+        for (std::size_t i = 0; i < cells.size(); i += 2) {
+            m_html += "<tr><td class=\"key\" width=\"27%\">" + cells[i].first + "</td><td width=\"23%\">" +
+                      cells[i].second + "</td>";
+            if (i + 1 < cells.size())
+                m_html += "<td class=\"key\" width=\"27%\">" + cells[i + 1].first + "</td><td width=\"23%\">" +
+                          cells[i + 1].second + "</td>";
+            else
+                m_html += "<td width=\"27%\"></td><td width=\"23%\"></td>";
+            m_html += "</tr>";
+        }
+        m_html += "</table>";
+    }
+
+    sub(QStringLiteral("Duty profile"));
+    if (m_d.dutyProfile.empty()) {
+        m_html += "<p>No operating point is given.</p>";
+        return;
+    }
+    m_html += tableOpen();
+    m_html += "<thead><tr class=\"head\"><td>Segment</td><td>Held for</td><td>Given as</td><td>Torque</td><td>Speed</td>"
+              "<td>Motor current</td><td>Duty</td><td>Direction</td></tr></thead>";
+    for (const auto& s : m_d.dutyProfile) {
+        const bool ts = s.mode == "torqueSpeed";
+        const bool cs = s.mode == "currentSpeed";
+        const bool cd = s.mode == "currentDuty";
+        const QString given = ts ? "torque and speed" : cs ? "current and speed" : cd ? "current and duty" : s.mode == "stall" ? "stall at the limit" : esc(s.mode);
+        m_html += "<tr><td>" + esc(s.name) + "</td><td class=\"num\">" + fmt(s.duration_s, Unit::Second) + "</td><td>" +
+                  given + "</td><td class=\"num\">" + (ts ? fmt(s.torque_Nm, Unit::NewtonMetre) : dash()) +
+                  "</td><td class=\"num\">" + (ts || cs ? fmt(s.speed_rpm, Unit::Rpm) : dash()) + "</td><td class=\"num\">" +
+                  (cs || cd ? fmt(s.motorCurrent_A, Unit::Ampere) : dash()) + "</td><td class=\"num\">" +
+                  (cd ? fmt(s.duty, Unit::Percent) : dash()) + "</td><td>" + esc(s.direction) + "</td></tr>";
+    }
+    m_html += "</table>";
+}
+
+void SheetWriter::pointResults() {
+    heading(kPoints);
+    const auto& ops = m_r.operatingPoints;
+    if (ops.empty()) {
+        m_html += "<p>No operating point was computed.</p>";
+        return;
+    }
+    struct Row {
+        QString label;
+        std::function<QString(const OperatingPointResult&)> value;
+    };
+    const std::vector<Row> rows = {
+        {"Motor current (average)", [](const auto& o) { return fmt(o.motorCurrent_A, Unit::Ampere); }},
+        {"Motor current (peak)", [](const auto& o) { return fmt(o.motorPeakCurrent_A, Unit::Ampere); }},
+        {"Ripple, peak to peak", [](const auto& o) { return fmt(o.ripplePeakToPeak_A, Unit::Ampere); }},
+        {"Conduction", [](const auto& o) { return QString::fromStdString(o.conductionMode); }},
+        {"Duty", [](const auto& o) { return fmt(o.duty, Unit::Percent); }},
+        {"Held by the current limit", [](const auto& o) { return o.currentLimited ? QStringLiteral("yes") : QStringLiteral("no"); }},
+        {"Speed", [](const auto& o) { return fmt(o.speed_rpm, Unit::Rpm); }},
+        {"Shaft torque", [](const auto& o) { return fmt(o.torque_Nm, Unit::NewtonMetre); }},
+        {"Back-EMF", [](const auto& o) { return fmt(o.backEmf_V, Unit::Volt); }},
+        {"Bus voltage", [](const auto& o) { return fmt(o.busVoltage_V, Unit::Volt); }},
+        {"Battery current", [](const auto& o) { return fmt(o.batteryCurrent_A, Unit::Ampere); }},
+        {"Bank RMS current", [](const auto& o) { return fmt(o.switchRmsCurrent_A, Unit::Ampere); }},
+        {"Freewheel diode average current", [](const auto& o) { return fmt(o.diodeAverageCurrent_A, Unit::Ampere); }},
+        {"Bus capacitor RMS current", [](const auto& o) { return fmt(o.capacitorRmsCurrent_A, Unit::Ampere); }},
+        {"Power from the bus", [](const auto& o) { return fmt(o.inputPower_W, Unit::Watt); }},
+        {"Shaft power", [](const auto& o) { return fmt(o.mechanicalPower_W, Unit::Watt); }},
+        {"Bank loss (with ballast and legs)", [](const auto& o) { return fmt(o.bankLoss_W, Unit::Watt); }},
+        {"Freewheel diode loss", [](const auto& o) { return fmt(o.freewheelDiode.loss_W, Unit::Watt); }},
+        {"Power-stage loss", [](const auto& o) { return "<b>" + fmt(o.totalLoss_W, Unit::Watt) + "</b>"; }},
+        {"Stage efficiency to the motor",
+         [](const auto& o) { return o.efficiency ? fmt(*o.efficiency, Unit::Percent) : dash(); }},
+        {"Heatsink temperature", [](const auto& o) { return fmt(o.heatsinkTemperature_C, Unit::Celsius); }},
+        {"Hottest switch junction", [](const auto& o) { return "<b>" + fmt(hottestDevice(o), Unit::Celsius) + "</b>"; }},
+        {"Freewheel diode junction", [](const auto& o) { return fmt(o.freewheelDiode.tj_C, Unit::Celsius); }},
+        {"Electrothermal loop gain",
+         [](const auto& o) {
+             if (!o.bank.converged)
+                 return QStringLiteral("runaway");
+             return o.bank.loopGain ? fmt(*o.bank.loopGain, Unit::None) : dash();
+         }},
+        {"Highest / lowest device current", [](const auto& o) { return fmt(o.bank.maxMinCurrentRatio, Unit::None); }},
+    };
+    for (std::size_t start = 0; start < ops.size(); start += kPointsPerTable) {
+        const std::size_t end = std::min(ops.size(), start + kPointsPerTable);
+        const double labelW = 34.0;
+        const double colW = (100.0 - labelW) / kPointsPerTable;
+        m_html += tableOpen();
+        m_html += QStringLiteral("<thead><tr class=\"head\"><td width=\"%1%\">Operating point</td>").arg(labelW);
+        for (std::size_t i = start; i < end; ++i)
+            m_html += QStringLiteral("<td width=\"%1%\" class=\"num\">%2</td>").arg(colW).arg(esc(ops[i].name));
+        for (std::size_t i = end; i < start + kPointsPerTable; ++i)
+            m_html += QStringLiteral("<td width=\"%1%\"></td>").arg(colW);
+        m_html += "</tr></thead>";
+        for (const auto& row : rows) {
+            m_html += "<tr><td class=\"key\">" + esc(row.label) + "</td>";
+            for (std::size_t i = start; i < end; ++i)
+                m_html += "<td class=\"num\">" + (ops[i].devices.empty() ? dash() : row.value(ops[i])) + "</td>";
+            for (std::size_t i = end; i < start + kPointsPerTable; ++i)
+                m_html += "<td></td>";
+            m_html += "</tr>";
+        }
+        m_html += "</table><p class=\"gap\"></p>";
+    }
+    QStringList notes;
+    for (const auto& op : ops)
+        for (const auto& n : op.notes)
+            notes << "<b>" + esc(op.name) + "</b>: " + esc(n);
+    if (!ops.empty() && !notes.isEmpty())
+        m_html += "<p class=\"small\">" + notes.join("<br/>") + "</p>";
+}
+
+void SheetWriter::deviceTables() {
+    heading(kDevices);
+    m_html += QStringLiteral("<p class=\"small\">Per device, in bank order, numbered from 0 as in the check messages and the results JSON. On-state current: the device's share of the "
+                             "motor current while the bank conducts; of rating: against its %1 rating; T_case at the "
+                             "device's case.</p>")
+                  .arg(fmt(m_d.bank.device.currentRating_A, Unit::Ampere));
+    for (const auto& op : m_r.operatingPoints) {
+        if (op.devices.empty())
+            continue;
+        sub(QString::fromStdString(op.name));
+        m_html += tableOpen();
+        m_html += "<thead><tr class=\"head\"><td width=\"16%\">Device</td><td class=\"num\" width=\"12%\">On-state "
+                  "current</td><td class=\"num\" width=\"11%\">RMS current</td><td class=\"num\" width=\"10%\">Share</td>"
+                  "<td class=\"num\" width=\"10%\">Of rating</td><td class=\"num\" width=\"10%\">Drop</td>"
+                  "<td class=\"num\" width=\"10%\">Loss</td><td class=\"num\" width=\"10%\">T_j</td><td class=\"num\" "
+                  "width=\"11%\">T_case</td></tr></thead>";
+        int hot = -1;
+        hottestDevice(op, &hot);
+        for (std::size_t k = 0; k < op.devices.size(); ++k) {
+            const auto& dv = op.devices[k];
+            const QString tj = fmt(dv.tj_C, Unit::Celsius);
+            m_html += QStringLiteral("<tr><td>%1</td>").arg(k) + "<td class=\"num\">" + fmt(dv.current_A, Unit::Ampere) +
+                      "</td><td class=\"num\">" + fmt(dv.rmsCurrent_A, Unit::Ampere) + "</td><td class=\"num\">" +
+                      fmt(dv.share, Unit::Percent) + "</td><td class=\"num\">" + fmt(dv.ratingShare, Unit::Percent) +
+                      "</td><td class=\"num\">" + fmt(dv.voltage_V, Unit::Volt) + "</td><td class=\"num\">" +
+                      fmt(dv.loss_W, Unit::Watt) + "</td><td class=\"num\">" +
+                      (static_cast<int>(k) == hot ? "<b>" + tj + "</b>" : tj) + "</td><td class=\"num\">" +
+                      fmt(dv.tcase_C, Unit::Celsius) + "</td></tr>";
+        }
+        const auto& fd = op.freewheelDiode;
+        m_html += QStringLiteral("<tr class=\"diode\"><td>Freewheel diodes (%1)</td>").arg(m_d.bank.diodeCount) +
+                  "<td class=\"num\">" + fmt(fd.averageCurrent_A, Unit::Ampere) + " avg</td><td class=\"num\">" +
+                  fmt(fd.rmsCurrent_A, Unit::Ampere) + "</td><td class=\"num\">" + dash() + "</td><td class=\"num\">" +
+                  dash() + "</td><td class=\"num\">" + dash() + "</td><td class=\"num\">" + fmt(fd.loss_W, Unit::Watt) +
+                  "</td><td class=\"num\">" + fmt(fd.tj_C, Unit::Celsius) + "</td><td class=\"num\">" + dash() + "</td></tr>";
+        m_html += "</table>";
+    }
+}
+
+void SheetWriter::sharingChart() {
+    heading(kSharingChart);
+    std::vector<SharingSeries> series;
+    for (const auto& op : m_r.operatingPoints) {
+        if (op.devices.empty())
+            continue;
+        SharingSeries s;
+        s.name = QString::fromStdString(op.name);
+        for (const auto& dv : op.devices) {
+            s.current_A.push_back(dv.current_A);
+            s.tj_C.push_back(dv.tj_C);
+        }
+        series.push_back(std::move(s));
+    }
+    const double tjMax = m_d.bank.device.tjMax_C;
+    chart([series, tjMax](QPainter& p, const QRectF& r, double pt) { drawSharingChart(p, r, pt, series, tjMax); },
+          66.0);
+    m_html += "<p class=\"small\">Each device's on-state current and junction temperature in every computed operating "
+              "point. Equal bars mean the bank shares; a device that stands out takes more than its share.</p>";
+}
+
+void SheetWriter::lossChart() {
+    heading(kLossChart);
+    struct Component {
+        QString name;
+        std::function<double(const OperatingPointResult&)> sum;
+    };
+    auto perDevice = [](double DeviceResult::*member) {
+        return [member](const OperatingPointResult& op) {
+            double s = 0.0;
+            for (const auto& dv : op.devices)
+                s += dv.*member;
+            return s;
+        };
+    };
+    const std::vector<Component> all = {
+        {"switch conduction", perDevice(&DeviceResult::conduction_W)},
+        {"switching", perDevice(&DeviceResult::switching_W)},
+        {"body diode", perDevice(&DeviceResult::diode_W)},
+        {"gate or base drive", perDevice(&DeviceResult::drive_W)},
+        {"ballast resistors", perDevice(&DeviceResult::ballast_W)},
+        {"device legs", perDevice(&DeviceResult::leg_W)},
+        {"freewheel diodes", [](const OperatingPointResult& op) { return op.freewheelDiode.loss_W; }},
+    };
+    std::vector<const Component*> used;
+    for (const auto& c : all)
+        for (const auto& op : m_r.operatingPoints)
+            if (!op.devices.empty() && c.sum(op) > 0.0) {
+                used.push_back(&c);
+                break;
+            }
+    QStringList names;
+    for (const auto* c : used)
+        names << c->name;
+    std::vector<LossRow> rows;
+    for (const auto& op : m_r.operatingPoints) {
+        if (op.devices.empty())
+            continue;
+        LossRow row{QString::fromStdString(op.name), {}};
+        for (const auto* c : used)
+            row.parts_W.push_back(c->sum(op));
+        rows.push_back(std::move(row));
+    }
+    const double height = 26.0 + 9.0 * static_cast<double>(rows.size());
+    chart([names, rows](QPainter& p, const QRectF& r, double pt) { drawLossChart(p, r, pt, names, rows); },
+          std::min(height, 120.0));
+    m_html += "<p class=\"small\">The power-stage loss of each operating point, split by where it arises. The total "
+              "stands at the end of each bar.</p>";
+}
+
+void SheetWriter::checks() {
+    heading(kChecks);
+    m_html += "<p class=\"small\">Every check of every operating point, grouped by check, the most severe first. Value "
+              "and limit are the numbers compared; the reading says what they mean. The group's heading says where the "
+              "limit comes from and what to change.</p>";
+    if (m_r.checks.empty()) {
+        m_html += "<p>No check was run.</p>";
+        return;
+    }
+    // Group by id in order of first appearance, then order the groups by their worst outcome.
+    std::vector<std::string> ids;
+    std::map<std::string, std::vector<const Check*>> byId;
+    for (const auto& c : m_r.checks) {
+        if (!byId.count(c.id))
+            ids.push_back(c.id);
+        byId[c.id].push_back(&c);
+    }
+    auto worstOf = [&](const std::string& id) {
+        int w = 0;
+        for (const Check* c : byId[id])
+            w = std::max(w, static_cast<int>(c->severity));
+        return w;
+    };
+    std::stable_sort(ids.begin(), ids.end(), [&](const std::string& a, const std::string& b) { return worstOf(a) > worstOf(b); });
+
+    m_html += tableOpen();
+    m_html += "<thead><tr class=\"head\"><td width=\"10%\">Outcome</td><td width=\"17%\">Operating point</td>"
+              "<td class=\"num\" width=\"12%\">Value</td><td class=\"num\" width=\"12%\">Limit</td><td width=\"49%\">"
+              "Reading</td></tr></thead>";
+    for (const auto& id : ids) {
+        auto& group = byId[id];
+        std::stable_sort(group.begin(), group.end(), [](const Check* a, const Check* b) {
+            return static_cast<int>(a->severity) > static_cast<int>(b->severity);
+        });
+        const Check& first = *group.front();
+        const CheckInfo* info = findCheckInfo(id);
+        QString head = "<span class=\"id\">" + esc(id) + "</span>" + (info ? " — " + esc(info->title) : QString());
+        if (!first.source.empty())
+            head += "<br/><i>Limit from:</i> " + esc(first.source);
+        if (!first.fix.empty())
+            head += "<br/><i>To change it:</i> " + esc(first.fix) +
+                    (first.field.empty() ? QString() : " — field <span class=\"id\">" + esc(first.field) + "</span>");
+        m_html += "<tr class=\"group\"><td colspan=\"5\">" + head + "</td></tr>";
+        for (const Check* c : group) {
+            const bool numbers = !(c->value == 0.0 && c->limit == 0.0 && c->unit.empty());
+            m_html += QStringLiteral("<tr><td style=\"background-color:%1\"><b>%2</b></td>")
+                          .arg(severityColour(c->severity), severityWord(c->severity)) +
+                      "<td>" + (c->operatingPoint.empty() ? QStringLiteral("whole design") : esc(c->operatingPoint)) +
+                      "</td><td class=\"num\">" + (numbers ? checkNumber(c->value, c->unit) : dash()) +
+                      "</td><td class=\"num\">" + (numbers ? checkNumber(c->limit, c->unit) : dash()) +
+                      "</td><td class=\"detail\">" + esc(c->message);
+            // A check whose source or fix differs from its group's heading says so in its own row.
+            if (c->source != first.source && !c->source.empty())
+                m_html += "<br/><i>Limit from:</i> " + esc(c->source);
+            if (c->fix != first.fix && !c->fix.empty())
+                m_html += "<br/><i>To change it:</i> " + esc(c->fix);
+            m_html += "</td></tr>";
+        }
+    }
+    m_html += "</table>";
+}
+
+void SheetWriter::cautions() {
+    heading(kCautions);
+    const auto list = cautionsFor(m_d, m_r);
+    m_html += tableOpen();
+    int n = 0;
+    for (const auto& c : list) {
+        ++n;
+        m_html += QStringLiteral("<tr><td width=\"4%\" class=\"caution\"><b>%1</b></td><td width=\"96%\"><b>%2</b><br/>%3"
+                                 "<br/><span class=\"small\"><i>Shown because: %4</i></span></td></tr>")
+                      .arg(n)
+                      .arg(esc(c.title), esc(c.text), esc(c.reason));
+    }
+    m_html += "</table>";
+}
+
+void SheetWriter::limits() {
+    heading(kLimits);
+    m_html += "<p>The numbers on this sheet come from models with stated assumptions: an averaged PWM chopper in "
+              "steady state at each operating point, part values as entered (the shipped parts are invented "
+              "archetypes, not real components), and the thermal path as described. A model that is not yet in the "
+              "engine is named below; what it would add is not in these numbers. Check the result against "
+              "measurements on the bench: currents with a clamp meter, temperatures with a thermocouple on the case, "
+              "before the drive carries a person or a load.</p>";
+    if (!m_r.warnings.empty()) {
+        m_html += "<p><b>Model notes for this design</b></p><ul>";
+        for (const auto& w : m_r.warnings)
+            m_html += "<li>" + esc(w) + "</li>";
+        m_html += "</ul>";
+    }
+    m_html += "<p><b>Ampwright assists a competent person with calculations. It does not certify a design, a part or an "
+              "installation. Local codes, the machine's or vehicle's regulations and licensed practice decide.</b></p>";
+}
+
+QString SheetWriter::html() {
+    m_html.clear();
+    m_sections.clear();
+    titleBlock();
+    jobStatement();
+    glance();
+    inputs();
+    pointResults();
+    if (hasDevices(m_r)) {
+        deviceTables();
+        sharingChart();
+        lossChart();
+    }
+    checks();
+    cautions();
+    limits();
+    return m_html;
+}
+
+QString styleSheet() {
+    auto px = [](double pt) { return QString::number(pt * 96.0 / 72.0, 'f', 1); };
+    return QStringLiteral(
+               "h1 { font-size: 17pt; font-weight: bold; color: #1b2d3f; margin-top: 0px; margin-bottom: %1px; }"
+               "h2 { font-size: 12pt; font-weight: bold; color: #1b2d3f; margin-top: %2px; margin-bottom: %3px; }"
+               "h3 { font-size: 9.5pt; font-weight: bold; color: #2b3d4f; margin-top: %4px; margin-bottom: %5px; }"
+               "p { margin-top: 0px; margin-bottom: %5px; }"
+               "p.kicker { font-size: 8pt; color: #6a6a6a; margin-bottom: 0px; }"
+               "p.small, span.small { font-size: 7.5pt; color: #444444; }"
+               "p.gap { margin-bottom: %5px; font-size: 2pt; }"
+               "p.chart { margin-top: %4px; margin-bottom: %4px; }"
+               "td { font-size: 8pt; vertical-align: top; }"
+               "td.key { color: #333333; background-color: #f2f4f6; }"
+               "td.num { text-align: right; white-space: nowrap; }"
+               "td.detail { font-size: 7.5pt; color: #333333; }"
+               "td.caution { background-color: #fbe3b0; text-align: center; }"
+               "tr.head td { font-weight: bold; background-color: #dfe6ec; }"
+               "tr.diode td { background-color: #f6f6f0; }"
+               "span.id { font-weight: bold; white-space: nowrap; }"
+               "tr.group td { background-color: #eef1f4; font-size: 7.5pt; }"
+               "td { border-width: %7px; border-style: solid; border-color: #b9c1c9; }"
+               "li { margin-bottom: %6px; }")
+        .arg(px(4), px(12), px(5), px(7), px(3), px(1.5), px(0.4));
+}
+
+// ---- Paging ------------------------------------------------------------------------------------
+
+struct PageFrame {
+    double width = 0.0;   // device pixels
+    double height = 0.0;
+    double header = 0.0;  // height of the header band, gap included
+    double footer = 0.0;
+    double body() const { return height - header - footer; }
+};
+
+void drawHeaderFooter(QPainter& p, const PageFrame& f, double dpi, const Design& d, int page, int pages,
+                      const QString& printed) {
+    const double pt = dpi / 72.0;
+    QFont font(QStringLiteral("DejaVu Sans"));
+    font.setStyleHint(QFont::SansSerif);
+    font.setPointSizeF(7.5);
+    p.setFont(font);
+    const QFontMetricsF fm(font, p.device());
+    p.setPen(QColor("#333333"));
+    const QString left = QString::fromStdString(d.meta.title) + QStringLiteral(" — design sheet");
+    const QString right = QStringLiteral("revision %1").arg(QString::fromStdString(d.meta.revision.empty() ? "—" : d.meta.revision));
+    const double base = fm.ascent();
+    p.drawText(QPointF(0, base), fm.elidedText(left, Qt::ElideRight, f.width * 0.7));
+    p.drawText(QPointF(f.width - fm.horizontalAdvance(right), base), right);
+    p.setPen(QPen(QColor("#7a8a99"), 0.6 * pt));
+    p.drawLine(QPointF(0, fm.height() + 1.5 * pt), QPointF(f.width, fm.height() + 1.5 * pt));
+
+    const double top = f.height - fm.height();
+    p.drawLine(QPointF(0, top - 2.0 * pt), QPointF(f.width, top - 2.0 * pt));
+    p.setPen(QColor("#333333"));
+    const QString fl = QStringLiteral("Ampwright %1 · printed %2 · a calculation record, not a certificate")
+                           .arg(AMPWRIGHT_VERSION, printed);
+    const QString fr = QStringLiteral("page %1 of %2").arg(page).arg(pages);
+    p.drawText(QPointF(0, top + base), fl);
+    p.drawText(QPointF(f.width - fm.horizontalAdvance(fr), top + base), fr);
+}
+
+/// Move a heading (or a run of headings) to the next page when what follows it starts there.
+void keepHeadingsWithNext(QTextDocument& doc, double pageHeight) {
+    QAbstractTextDocumentLayout* layout = doc.documentLayout();
+    // The page of a block's first line: pagination moves lines inside their block, so the block's
+    // own top can still lie on the page before.
+    auto pageOf = [&](const QTextBlock& b) {
+        double y = layout->blockBoundingRect(b).top();
+        if (b.layout() && b.layout()->lineCount() > 0)
+            y += b.layout()->lineAt(0).y();
+        return static_cast<int>((y + 1.0) / pageHeight);
+    };
+    for (QTextBlock b = doc.begin(); b.isValid(); b = b.next()) {
+        if (b.blockFormat().headingLevel() == 0)
+            continue;
+        QTextBlock next = b.next();
+        while (next.isValid() && next.blockFormat().headingLevel() != 0)
+            next = next.next();
+        if (!next.isValid())
+            break;
+        if (pageOf(next) > pageOf(b)) {
+            QTextCursor c(b);
+            QTextBlockFormat f = b.blockFormat();
+            f.setPageBreakPolicy(QTextFormat::PageBreak_AlwaysBefore);
+            c.setBlockFormat(f);
+        }
+        b = next;
+    }
+}
+
+} // namespace
+
+QStringList designSheetSections(const Design& design, const Results& results) {
+    SheetWriter w(design, results, nullptr);
+    w.html();
+    return w.sections();
+}
+
+int renderDesignSheet(QPagedPaintDevice* device, const Design& design, const Results& results, QString* error) {
+    if (!qGuiApp) {
+        if (error)
+            *error = QStringLiteral("the design sheet needs a QGuiApplication");
+        return 0;
+    }
+    if (!device) {
+        if (error)
+            *error = QStringLiteral("no device to print on");
+        return 0;
+    }
+    QPainter painter;
+    if (!painter.begin(device)) {
+        if (error)
+            *error = QStringLiteral("cannot paint on the output (is the file writable?)");
+        return 0;
+    }
+    const double dpi = device->logicalDpiY();
+    const double pt = dpi / 72.0;
+
+    QFont base(QStringLiteral("DejaVu Sans"));
+    base.setStyleHint(QFont::SansSerif);
+    base.setPointSizeF(kBodyFont_pt);
+
+    QFont small = base;
+    small.setPointSizeF(7.5);
+    const QFontMetricsF fm(small, device);
+    PageFrame frame;
+    frame.width = device->width();
+    frame.height = device->height();
+    frame.header = fm.height() + 1.5 * pt + kHeaderGap_mm / 25.4 * dpi;
+    frame.footer = fm.height() + 2.0 * pt + kHeaderGap_mm / 25.4 * dpi;
+
+    QTextDocument doc;
+    doc.documentLayout()->setPaintDevice(device);
+    doc.setDefaultFont(base);
+    doc.setDocumentMargin(0);
+    doc.setPageSize(QSizeF(frame.width, frame.body()));
+    auto* charts = new ChartObjects(&doc);
+    doc.documentLayout()->registerHandler(kChartObject, charts);
+    doc.setDefaultStyleSheet(styleSheet());
+
+    SheetWriter writer(design, results, charts);
+    doc.setHtml(writer.html());
+    for (int id : writer.chartIds()) {
+        QTextCursor c = doc.find(SheetWriter::placeholder(id));
+        if (c.isNull())
+            continue;
+        QTextCharFormat f;
+        f.setObjectType(kChartObject);
+        f.setProperty(kChartIdProperty, id);
+        c.insertText(QString(QChar::ObjectReplacementCharacter), f);
+    }
+    doc.setPageSize(QSizeF(frame.width, frame.body()));
+    keepHeadingsWithNext(doc, frame.body());
+
+    const int pages = doc.pageCount();
+    const QString printed = QDateTime::currentDateTime().toString(QStringLiteral("yyyy-MM-dd HH:mm"));
+    for (int i = 0; i < pages; ++i) {
+        if (i > 0)
+            device->newPage();
+        drawHeaderFooter(painter, frame, dpi, design, i + 1, pages, printed);
+        painter.save();
+        const QRectF clip(0, i * frame.body(), frame.width, frame.body());
+        painter.translate(0, frame.header - i * frame.body());
+        painter.setClipRect(clip);
+        QAbstractTextDocumentLayout::PaintContext ctx;
+        ctx.clip = clip;
+        ctx.palette.setColor(QPalette::Text, Qt::black);
+        doc.documentLayout()->draw(&painter, ctx);
+        painter.restore();
+    }
+    painter.end();
+    return pages;
+}
+
+bool paperFromName(const QString& name, QPageSize::PageSizeId* paper) {
+    const QString n = name.trimmed().toLower();
+    if (n == "a4") {
+        *paper = QPageSize::A4;
+        return true;
+    }
+    if (n == "letter") {
+        *paper = QPageSize::Letter;
+        return true;
+    }
+    return false;
+}
+
+bool writeDesignSheetPdf(const Design& design, const Results& results, const QString& file, QPageSize::PageSizeId paper,
+                         QString* error) {
+    const QFileInfo info(file);
+    if (!info.absoluteDir().exists()) {
+        if (error)
+            *error = QStringLiteral("%1: the folder %2 does not exist").arg(file, info.absolutePath());
+        return false;
+    }
+    QString reason;
+    int pages = 0;
+    {
+        QPdfWriter writer(file);
+        writer.setPageSize(QPageSize(paper));
+        writer.setPageMargins(QMarginsF(kMarginSide_mm, kMarginTop_mm, kMarginSide_mm, kMarginBottom_mm),
+                              QPageLayout::Millimeter);
+        writer.setResolution(kPdfResolution_dpi);
+        writer.setTitle(QString::fromStdString(design.meta.title) + QStringLiteral(" — design sheet"));
+        writer.setCreator(QStringLiteral("Ampwright %1").arg(AMPWRIGHT_VERSION));
+        pages = renderDesignSheet(&writer, design, results, &reason);
+    }
+    if (pages <= 0 || QFileInfo(file).size() == 0) {
+        if (error)
+            *error = QStringLiteral("%1: %2").arg(file, reason.isEmpty() ? QStringLiteral("nothing was written") : reason);
+        return false;
+    }
+    return true;
+}
+
+} // namespace amp::ui
+
+#include "designsheet.moc"
