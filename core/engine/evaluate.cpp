@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/evaluate.h"
+#include "core/engine/stage_protection.h"
 
 #include "core/physics/bank_sharing.h"
 #include "core/physics/bipolar_on_state.h"
@@ -819,6 +820,7 @@ Results evaluate(const Design& input) {
         }
         r.operatingPoints.push_back(std::move(op));
     }
+    addProtection(d, r);
     return r;
 }
 

@@ -3,6 +3,8 @@
 // What the engine returns: plain data, SI units (°C in _C names). The results JSON is written
 // from these structs by engine/results_json.h and documented in the README.
 
+#include "core/engine/protection_results.h"
+
 #include <optional>
 #include <string>
 #include <vector>
@@ -120,6 +122,7 @@ struct Results {
     double maxJunction_C = 0.0;     ///< hottest switch junction over all points
     double maxTotalLoss_W = 0.0;
     std::vector<std::string> warnings; ///< solver notes that are not checks
+    ProtectionResults protection;   ///< contactors, reversal, pre-charge, cables, fuse (engine/stage_protection.h)
 };
 
 /// The worst severity among the checks (Pass when there are none).

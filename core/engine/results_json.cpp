@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/results_json.h"
+#include "core/engine/protection_results_json.h"
 
 #include <nlohmann/json.hpp>
 #include <spdlog/spdlog.h>
@@ -148,6 +149,7 @@ nlohmann::json resultsToJson(const Results& results) {
     j["maxJunction_C"] = number(results.maxJunction_C, "maxJunction_C");
     j["maxTotalLoss_W"] = number(results.maxTotalLoss_W, "maxTotalLoss_W");
     j["warnings"] = results.warnings;
+    addProtectionJson(results.protection, j);
     return j;
 }
 

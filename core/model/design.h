@@ -136,6 +136,18 @@ struct Reversing {
     std::string suppression = "diodeZener"; ///< coil suppression: "none", "diode", "diodeZener", "tvs"
     double reversalsPerDay = 50.0;
     double stopSpeed_rpm = 30.0;        ///< speed below which a change-over is allowed
+    std::string category;               ///< DC utilisation category of the contactor: "", "DC-1", "DC-3", "DC-5"
+    double coilSupplyMin_V = 0.0;       ///< lowest voltage the coil gets (0 = its rated voltage)
+    double coilSupplyMax_V = 0.0;       ///< highest voltage the coil gets (0 = its rated voltage)
+    double coilTimeConstant_s = 0.02;   ///< coil L/R with the armature closed (estimate when unknown)
+    double coilReleaseFraction = 0.2;   ///< release current / holding current
+    double zener_V = 0.0;               ///< diodeZener: Zener voltage (0 = the coil voltage)
+    double tvs_V = 0.0;                 ///< tvs: clamp voltage (0 = 1.5 × the coil voltage)
+    bool waitForStop = true;            ///< the sequence waits for the stop speed before changing over
+    double stopTime_s = 0.0;            ///< stated slow-down time (0 = from inertia and retarding torque)
+    double retardingTorque_Nm = 0.0;    ///< friction and load torque beyond the motor's own k·I0
+    double changeoverMargin_s = 0.05;   ///< wait between drop-out and pick-up
+    double softStartRamp_s = 0.5;       ///< restart ramp after the change-over
     bool operator==(const Reversing&) const = default;
 };
 
@@ -160,6 +172,18 @@ struct Wiring {
     double motorCable_mm2 = 35.0;
     double cableTemperature_C = 60.0;   ///< conductor temperature used for its resistance
     double busCapacitance_F = 2.0e-3;
+    ContactorPart mainContactor;        ///< main contactor or disconnect (dcBreaking_A 0 = not stated)
+    bool prechargePresent = true;       ///< a pre-charge resistor charges the bus before the main closes
+    double prechargeResistor_ohm = 0.0; ///< 0 = size it for prechargeTime_s
+    double prechargeTime_s = 1.0;       ///< target pre-charge time
+    double prechargeFraction = 0.99;    ///< bus fraction reached before the main closes (5·R·C ≈ 99.3 %)
+    double fuseRating_A = 0.0;          ///< battery fuse rated current (0 = no fuse stated)
+    double fuseVoltage_V = 0.0;         ///< its DC voltage rating
+    double fuseBreaking_A = 0.0;        ///< its DC breaking capacity (0 = not stated)
+    double fuseI2t_A2s = 0.0;           ///< its total clearing I²t (0 = not stated)
+    double bankWithstandI2t_A2s = 0.0;  ///< the bank's short-circuit I²t withstand (0 = not stated)
+    double allowedCableDrop = 0.03;     ///< allowed drop per cable, fraction of the nominal voltage
+    std::string cableInsulation = "pvc"; ///< "pvc" (70 °C, k 115) or "xlpe" (90 °C, k 143)
     bool operator==(const Wiring&) const = default;
 };
 

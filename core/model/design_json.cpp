@@ -74,12 +74,18 @@ AMP_JSON(Bank, device, count, devices, gateResistor_ohm, ballast_ohm,
 AMP_JSON(Heatsink, part, ambient_C, insulatedFromTabs, wetLocation,
                                                 exposed)
 AMP_JSON(Reversing, present, contactor, suppression, reversalsPerDay,
-                                                stopSpeed_rpm)
+                                                stopSpeed_rpm, category, coilSupplyMin_V, coilSupplyMax_V,
+                                                coilTimeConstant_s, coilReleaseFraction, zener_V, tvs_V,
+                                                waitForStop, stopTime_s, retardingTorque_Nm,
+                                                changeoverMargin_s, softStartRamp_s)
 AMP_JSON(Segment, name, duration_s, mode, torque_Nm, speed_rpm,
                                                 motorCurrent_A, duty, direction)
 AMP_JSON(Wiring, batteryCableLength_m, batteryCable_mm2,
                                                 motorCableLength_m, motorCable_mm2, cableTemperature_C,
-                                                busCapacitance_F)
+                                                busCapacitance_F, mainContactor, prechargePresent,
+                                                prechargeResistor_ohm, prechargeTime_s, prechargeFraction,
+                                                fuseRating_A, fuseVoltage_V, fuseBreaking_A, fuseI2t_A2s,
+                                                bankWithstandI2t_A2s, allowedCableDrop, cableInsulation)
 AMP_JSON(Design, meta, supply, motor, pwm, drive, bank, heatsink,
                                                 reversing, dutyProfile, wiring)
 

@@ -115,7 +115,11 @@ double interfaceR(const Design& d) {
 // Every number in the results JSON finite; null only where the contract allows it.
 void requireFiniteJson(const json& j, const std::string& path, std::vector<std::string>& bad) {
     static const std::set<std::string> nullable{"efficiency", "loopGain", "runawayLoad_A", "firstToFail",
-                                                "minimumBallast_ohm"};
+                                                "minimumBallast_ohm",
+                                                // protection stage: sections not computed, values not stated
+                                                "reversal", "contactor", "mainDisconnect", "precharge", "cable",
+                                                "motorCable", "fuse", "continuousMargin", "electricalLife_years",
+                                                "requiredCrossSection_mm2"};
     if (j.is_object()) {
         for (auto it = j.begin(); it != j.end(); ++it) {
             if (it.value().is_null() && !nullable.count(it.key()))
