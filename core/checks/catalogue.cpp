@@ -52,6 +52,90 @@ std::vector<CheckInfo> buildCatalogue() {
         {"motor.demagnetisation", "Magnet demagnetisation",
          "peak armature current against the current the magnets tolerate",
          "motor.demagCurrent_A as stated for the motor", "pwm.currentLimit_A", Severity::Fail},
+
+        // Reversing contactor and its sequence
+        {"contactor.reversal-at-speed", "Change-over while the motor turns",
+         "current (E − V_f)/R driven through the freewheel diode and contacts if the contactor changes over at "
+         "the speed the sequence allows, PWM off",
+         "circuit of the freewheel path with the armature swapped", "reversing.stopSpeed_rpm", Severity::Fail},
+        {"contactor.plugging", "Restart into a turning motor",
+         "restart current (D·V + E)/R when the sequence lets the motor restart before it has stopped, against "
+         "the current limit",
+         "circuit at restart; the controller's current limit", "reversing.waitForStop", Severity::Fail},
+        {"contactor.slow-down", "Long coast-down before a reversal",
+         "time for the motor and load to coast to the change-over speed on the motor's no-load torque alone",
+         "J·Δω/T (rotation); 5 s taken as long", "reversing.retardingTorque_Nm", Severity::Advice},
+        {"contactor.continuous", "Contactor thermal current",
+         "contactor thermal current against the motor's RMS current over the repeating duty profile (warning "
+         "below 1.25×, fail below 1×)",
+         "common practice: 25 % above the continuous current", "reversing.contactor.continuousCurrent_A",
+         Severity::Fail},
+        {"contactor.coil-voltage", "Contactor coil voltage",
+         "lowest and highest coil voltage against the coil's operating band",
+         "IEC 60947-4-1 operating band, 85–110 % of rated (from memory)", "reversing.contactor.coilVoltage_V",
+         Severity::Warning},
+        {"contactor.break-load", "Contactor must not break load",
+         "armature L/R against the test-circuit L/R of the contactor's DC utilisation category",
+         "IEC 60947-4-1 DC utilisation categories", "reversing.category", Severity::Advice},
+        {"contactor.life", "Contactor electrical life",
+         "electrical life in years at the stated reversals per day against one year",
+         "part's electrical life / (reversals per day × 365)", "reversing.contactor.electricalLife_ops",
+         Severity::Advice},
+
+        // Main disconnect and pre-charge
+        {"disconnect.voltage", "Main disconnect voltage rating",
+         "main contactor DC voltage rating against the highest bus voltage", "highest bus voltage (supply.max_V)",
+         "wiring.mainContactor.ratedVoltage_V", Severity::Fail},
+        {"disconnect.breaking", "Main disconnect breaking capacity",
+         "main contactor DC breaking capacity against the stall current with the bank failed short and the "
+         "prospective short-circuit current (warning when not stated)",
+         "Ohm's law over the battery, cable and motor resistances at the highest voltage",
+         "wiring.mainContactor.dcBreaking_A", Severity::Fail},
+        {"precharge.inrush", "Bus capacitor inrush",
+         "current when the main contactor closes onto the bus capacitors (uncharged without pre-charge, or the "
+         "remaining step after it) against the contactor's rating",
+         "RC charge through the battery and wiring; contacts weld on large inrush (common practice)",
+         "wiring.prechargePresent", Severity::Fail},
+
+        // Cables
+        {"cable.drop", "Cable voltage drop",
+         "drop along the battery or motor cable at the highest current against the allowed drop",
+         "IEC 60228 class 5 resistance at the conductor temperature; allowed drop as stated",
+         "wiring.batteryCable_mm2", Severity::Warning},
+        {"cable.temperature", "Cable conductor temperature",
+         "conductor temperature over the repeating duty profile against the insulation's limit",
+         "IEC 60364-5-52 Table 52.1 conductor limits; still-air heat balance (estimate)",
+         "wiring.batteryCable_mm2", Severity::Fail},
+
+        // Battery fuse
+        {"fuse.present", "Battery fuse stated",
+         "whether a battery fuse is stated, against the prospective short-circuit current",
+         "battery short circuit V_max/(R_bat + R_cable)", "wiring.fuseRating_A", Severity::Warning},
+        {"fuse.voltage", "Fuse DC voltage rating",
+         "fuse DC voltage rating against the highest bus voltage", "highest bus voltage; a DC arc has no current zero",
+         "wiring.fuseVoltage_V", Severity::Fail},
+        {"fuse.continuous", "Fuse continuous rating",
+         "fuse rating against the battery's RMS current over the repeating duty profile (warning below 1.25×, "
+         "fail below 1×)",
+         "common practice: 25 % above the continuous current", "wiring.fuseRating_A", Severity::Fail},
+        {"fuse.segment-current", "Segment above the fuse rating",
+         "highest battery current of a segment against the fuse rating",
+         "the fuse's time–current curve (maker's data)", "wiring.fuseRating_A", Severity::Advice},
+        {"fuse.cable", "Fuse protects the cable",
+         "fuse rating against the battery cable's ampacity", "IEC 60364-4-43 §433.1: I_B ≤ I_n ≤ I_z",
+         "wiring.batteryCable_mm2", Severity::Fail},
+        {"fuse.breaking", "Fuse breaking capacity",
+         "fuse DC breaking capacity against the prospective short-circuit current (warning when not stated)",
+         "V_max/(R_bat + R_cable), cable at 20 °C", "wiring.fuseBreaking_A", Severity::Fail},
+        {"fuse.i2t-cable", "Fuse I²t against the cable",
+         "fuse clearing I²t against the battery cable's adiabatic withstand k²S²",
+         "IEC 60364-4-43 §434.5.2", "wiring.fuseI2t_A2s", Severity::Fail},
+        {"fuse.i2t-bank", "Fuse I²t against the bank",
+         "fuse clearing I²t against the bank's stated short-circuit withstand",
+         "the bank's stated withstand (wiring.bankWithstandI2t_A2s)", "wiring.fuseI2t_A2s", Severity::Fail},
+        {"protection.input", "Protection input out of range",
+         "inputs of the contactor, reversal, disconnect, pre-charge, cable and fuse models against their ranges",
+         "the models' input ranges", "the field named in the message", Severity::Fail},
     };
 }
 
