@@ -48,6 +48,8 @@ const QString kPoints = QStringLiteral("Results by operating point");
 const QString kDevices = QStringLiteral("Devices of the bank");
 const QString kSharingChart = QStringLiteral("Current and temperature per device");
 const QString kLossChart = QStringLiteral("Where the losses go");
+const QString kProtection = QStringLiteral("Contactors, fuse and cables");
+const QString kReversal = QStringLiteral("Reversal sequence");
 const QString kChecks = QStringLiteral("Checks");
 const QString kCautions = QStringLiteral("Safety cautions");
 const QString kLimits = QStringLiteral("Limits of this record");
@@ -63,6 +65,8 @@ constexpr int kPdfResolution_dpi = 600;
 constexpr int kPointsPerTable = 4;    // operating points side by side in the results table
 
 QString fmt(double v, Unit u) { return QString::fromStdString(units::format(v, u, kSheetDigits)); }
+// In running text a number keeps its unit on the same line.
+QString fmtProse(double v, Unit u) { return fmt(v, u).replace(QChar(' '), QChar(0x00A0)); }
 QString esc(const std::string& s) { return QString::fromStdString(s).toHtmlEscaped(); }
 QString esc(const QString& s) { return s.toHtmlEscaped(); }
 QString dash() { return QStringLiteral("—"); }
@@ -70,6 +74,12 @@ QString dash() { return QStringLiteral("—"); }
 bool hasDevices(const Results& r) {
     return std::any_of(r.operatingPoints.begin(), r.operatingPoints.end(),
                        [](const OperatingPointResult& op) { return !op.devices.empty(); });
+}
+
+bool hasProtection(const Results& r) {
+    const auto& p = r.protection;
+    return p.contactor || p.mainDisconnect || p.precharge || p.cable || p.motorCable || p.fuse ||
+           !p.bridgeComparison.empty();
 }
 
 double hottestDevice(const OperatingPointResult& op, int* index = nullptr) {
@@ -434,6 +444,75 @@ void drawLossChart(QPainter& p, const QRectF& r, double pt, const QStringList& c
     }
 }
 
+struct TimelineStep {
+    QString name;
+    double duration_s = 0.0;
+};
+
+/// The reversal as a row per step on one time axis; each bar starts where the previous ends and
+/// carries its duration, so a step too short to see still reads.
+void drawTimeline(QPainter& p, const QRectF& r, double pt, const std::vector<TimelineStep>& steps) {
+    p.setFont(chartFont(7.0));
+    const QFontMetricsF fm(p.font(), p.device());
+    double labelW = 0.0, total = 0.0;
+    for (const auto& s : steps) {
+        labelW = std::max(labelW, fm.horizontalAdvance(s.name));
+        total += std::max(0.0, s.duration_s);
+    }
+    const double valueW = fm.horizontalAdvance(QStringLiteral("000.0 ms")) + 6.0 * pt;
+    const QRectF plot(r.left() + labelW + 6.0 * pt, r.top() + 2.0 * pt, r.width() - labelW - 6.0 * pt - valueW,
+                      r.height() - 2.0 * fm.height() - 8.0 * pt);
+    const Axis a = makeAxis(0.0, total > 0.0 ? total : 1.0, 6);
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fs(p.font(), p.device());
+    for (double v = a.lo; v <= a.hi + a.step * 1e-6; v += a.step) {
+        const double x = a.x(plot, v);
+        p.setPen(QPen(QColor("#d8d8d8"), 0.4 * pt));
+        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
+        p.setPen(QColor("#333333"));
+        const QString t = tickText(v);
+        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
+    }
+    const QString axisTitle = QStringLiteral("time from PWM off, s");
+    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(axisTitle) / 2, r.bottom() - 1.0 * pt), axisTitle);
+    p.setPen(QPen(QColor("#555555"), 0.6 * pt));
+    p.drawLine(plot.bottomLeft(), plot.topLeft());
+
+    const double slot = steps.empty() ? plot.height() : plot.height() / static_cast<double>(steps.size());
+    const double barH = std::min(slot * 0.6, 10.0 * pt);
+    double t0 = 0.0;
+    p.setFont(chartFont(7.0));
+    for (std::size_t i = 0; i < steps.size(); ++i) {
+        const double yc = plot.top() + slot * (static_cast<double>(i) + 0.5);
+        const double d = std::max(0.0, steps[i].duration_s);
+        const double x0 = a.x(plot, t0);
+        const double w = std::max(1.2 * pt, a.x(plot, t0 + d) - x0);
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(plot.left() - 4.0 * pt - fm.horizontalAdvance(steps[i].name), yc + fm.ascent() / 2.6),
+                   steps[i].name);
+        p.fillRect(QRectF(x0, yc - barH / 2, w, barH), seriesColour(i));
+        const QString t = fmt(d, Unit::Second);
+        const double tx = x0 + w + 3.0 * pt + fm.horizontalAdvance(t) < r.right() ? x0 + w + 3.0 * pt
+                                                                                  : x0 - 3.0 * pt - fm.horizontalAdvance(t);
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(tx, yc + fm.ascent() / 2.6), t);
+        t0 += d;
+    }
+}
+
+QString stepWords(const std::string& id) {
+    static const std::map<std::string, QString> words = {
+        {"pwmOffCurrentDecay", "PWM off, armature current decays"},
+        {"slowToStopSpeed", "motor slows to the change-over speed"},
+        {"coilDropout", "contactor coil drops out"},
+        {"changeoverMargin", "wait before the change-over"},
+        {"pickupAndBounce", "other coil picks up, contacts bounce"},
+        {"softRestartRamp", "PWM restarts on a soft ramp"},
+    };
+    const auto it = words.find(id);
+    return it == words.end() ? QString::fromStdString(id) : it->second;
+}
+
 // ---- The document ------------------------------------------------------------------------------
 
 /// Builds the HTML of the sheet; charts are recorded in `charts` and appear as placeholders.
@@ -462,6 +541,8 @@ class SheetWriter {
     void deviceTables();
     void sharingChart();
     void lossChart();
+    void protection();
+    void reversal();
     void checks();
     void cautions();
     void limits();
@@ -534,8 +615,8 @@ void SheetWriter::jobStatement() {
                        "Ampwright: a %1 with %2 %3 in parallel (%4) switching at %5, fed from a %6 %7 battery "
                        "(highest %8, lowest %9) and driving %10 motor over a duty profile of %11 operating %12. ")
                        .arg(topologyWords(d.pwm.topology), numberWord(d.bank.count), deviceWords(d.bank.device.kind, d.bank.count),
-                            esc(d.bank.device.name), fmt(d.pwm.frequency_Hz, Unit::Hertz), fmt(d.supply.nominal_V, Unit::Volt),
-                            esc(d.supply.chemistry), fmt(d.supply.max_V, Unit::Volt), fmt(d.supply.min_V, Unit::Volt))
+                            esc(d.bank.device.name), fmtProse(d.pwm.frequency_Hz, Unit::Hertz), fmtProse(d.supply.nominal_V, Unit::Volt),
+                            esc(d.supply.chemistry), fmtProse(d.supply.max_V, Unit::Volt), fmtProse(d.supply.min_V, Unit::Volt))
                        .arg(motor, numberWord(points), points == 1 ? QStringLiteral("point") : QStringLiteral("points"));
     text += QStringLiteral(
         "It lists every input with its unit, the currents, losses and temperatures computed for each operating "
@@ -978,6 +1059,108 @@ void SheetWriter::lossChart() {
               "stands at the end of each bar.</p>";
 }
 
+void SheetWriter::protection() {
+    heading(kProtection);
+    const auto& pr = m_r.protection;
+    auto table = [&](const QString& title, const std::vector<std::pair<QString, QString>>& rows) {
+        if (rows.empty())
+            return;
+        sub(title);
+        m_html += tableOpen();
+        for (const auto& [k, v] : rows)
+            m_html += "<tr><td class=\"key\" width=\"62%\">" + k + "</td><td class=\"num\" width=\"38%\">" + v +
+                      "</td></tr>";
+        m_html += "</table>";
+    };
+    auto a2s = [](double v) { return fmt(v, Unit::None) + QStringLiteral(" A²s"); };
+    if (const auto& c = pr.contactor) {
+        std::vector<std::pair<QString, QString>> rows = {
+            {"Armature circuit L/R", fmt(c->motorTimeConstant_s, Unit::Second)},
+            {"Test-circuit L/R of its utilisation category", fmt(c->categoryTimeConstant_s, Unit::Second)},
+            {"Thermal current / motor RMS current over the profile",
+             c->continuousMargin ? fmt(*c->continuousMargin, Unit::None) : dash()},
+            {"Coil current and power", fmt(c->coilCurrent_A, Unit::Ampere) + ", " + fmt(c->coilPower_W, Unit::Watt)},
+            {"Contact loss", fmt(c->contactLoss_W, Unit::Watt)},
+            {"Electrical life at the stated reversals",
+             c->electricalLife_years ? fmt(*c->electricalLife_years, Unit::None) + " years" : dash()},
+            {"Must not break load", c->mustNotBreakLoad ? QStringLiteral("yes") : QStringLiteral("no")},
+        };
+        table(QStringLiteral("Reversing contactor"), rows);
+        if (!c->reason.empty())
+            m_html += "<p class=\"small\">" + esc(c->reason) + "</p>";
+    }
+    if (const auto& m = pr.mainDisconnect)
+        table(QStringLiteral("Main disconnect"),
+              {{"Current it must break", fmt(m->requiredBreak_A, Unit::Ampere)},
+               {"Stall current with the bank failed short", fmt(m->stallCurrent_A, Unit::Ampere)},
+               {"Prospective short-circuit current", fmt(m->shortCircuitCurrent_A, Unit::Ampere)}});
+    if (const auto& p = pr.precharge)
+        table(QStringLiteral("Pre-charge of the bus capacitors"),
+              {{"Pre-charge resistor fitted", p->present ? QStringLiteral("yes") : QStringLiteral("no")},
+               {"Resistor", fmt(p->resistor_ohm, Unit::Ohm)},
+               {"Time to the closing voltage", fmt(p->time_s, Unit::Second)},
+               {"Peak current and power in the resistor",
+                fmt(p->peakCurrent_A, Unit::Ampere) + ", " + fmt(p->peakPower_W, Unit::Watt)},
+               {"Energy into the resistor", fmt(p->energy_J, Unit::Joule)},
+               {"Current step when the main contactor closes", fmt(p->closingCurrent_A, Unit::Ampere)},
+               {"Inrush closing onto uncharged capacitors", fmt(p->inrushUncharged_A, Unit::Ampere)}});
+    for (const auto* cable : {&pr.cable, &pr.motorCable}) {
+        if (!*cable)
+            continue;
+        const auto& c = **cable;
+        table(QStringLiteral("Cable: %1").arg(esc(c.name)),
+              {{"Cross-section", fmt(c.crossSection_mm2 * 1e-6, Unit::SquareMetre)},
+               {"Drop at the highest current", fmt(c.drop_V, Unit::Volt)},
+               {"Loss", fmt(c.loss_W, Unit::Watt)},
+               {"Conductor temperature over the profile", fmt(c.conductorTemperature_C, Unit::Celsius)},
+               {"Ampacity", fmt(c.ampacity_A, Unit::Ampere)},
+               {"Smallest standard size that meets drop and temperature",
+                c.requiredCrossSection_mm2 ? fmt(*c.requiredCrossSection_mm2 * 1e-6, Unit::SquareMetre) : dash()}});
+    }
+    if (const auto& f = pr.fuse)
+        table(QStringLiteral("Battery fuse"),
+              {{"Prospective short-circuit current", fmt(f->prospectiveShortCircuit_A, Unit::Ampere)},
+               {"Fuse rating / battery RMS current", f->continuousMargin ? fmt(*f->continuousMargin, Unit::None) : dash()},
+               {"Battery cable adiabatic withstand", a2s(f->cableWithstand_A2s)}});
+    if (!pr.bridgeComparison.empty()) {
+        sub(QStringLiteral("Bank and contactor against a full bridge"));
+        m_html += tableOpen();
+        m_html += "<thead><tr class=\"head\"><td width=\"30%\">Arrangement</td><td class=\"num\" width=\"10%\">Switches</td>"
+                  "<td class=\"num\" width=\"10%\">Diodes</td><td class=\"num\" width=\"10%\">Contactors</td>"
+                  "<td class=\"num\" width=\"14%\">Conduction loss</td><td class=\"num\" width=\"13%\">Reversal</td>"
+                  "<td class=\"num\" width=\"13%\">Parts cost</td></tr></thead>";
+        for (const auto& o : pr.bridgeComparison)
+            m_html += "<tr><td><b>" + esc(o.name) + QStringLiteral("</b></td><td class=\"num\">%1</td><td class=\"num\">%2</td>"
+                                                                   "<td class=\"num\">%3</td>")
+                                                        .arg(o.switchCount)
+                                                        .arg(o.diodeCount)
+                                                        .arg(o.contactorCount) +
+                      "<td class=\"num\">" + fmt(o.conductionLoss_W, Unit::Watt) + "</td><td class=\"num\">" +
+                      fmt(o.reversal_s, Unit::Second) + "</td><td class=\"num\">" +
+                      (o.cost > 0.0 ? fmt(o.cost, Unit::None) + (o.costComplete ? QString() : QStringLiteral(" +"))
+                                    : dash()) +
+                      "</td></tr><tr><td colspan=\"7\" class=\"detail\"><i>Braking:</i> " + esc(o.braking) +
+                      "</td></tr>";
+        m_html += "</table><p class=\"small\">Conduction loss averaged over the duty profile; cost from the parts' "
+                  "unit prices (+ where a price is missing).</p>";
+    }
+}
+
+void SheetWriter::reversal() {
+    heading(kReversal);
+    const auto& rv = *m_r.protection.reversal;
+    std::vector<TimelineStep> steps;
+    for (const auto& st : rv.steps)
+        steps.push_back({stepWords(st.name), st.duration_s});
+    chart([steps](QPainter& p, const QRectF& r, double pt) { drawTimeline(p, r, pt, steps); },
+          16.0 + 6.5 * static_cast<double>(steps.size()));
+    m_html += QStringLiteral("<p class=\"small\">The longest reversal of the duty profile, starting from “%1”: %2 in "
+                             "all. The contactor changes over at or below %3, where (E − V_f)/R through the freewheel "
+                             "path would be %4; restarting at that speed draws %5 before the current limit acts.</p>")
+                  .arg(esc(rv.fromPoint), fmt(rv.total_s, Unit::Second), fmt(rv.changeoverSpeed_rpm, Unit::Rpm),
+                       fmt(rv.changeoverAtSpeedCurrent_A, Unit::Ampere), fmt(rv.pluggingCurrent_A, Unit::Ampere));
+}
+
 void SheetWriter::checks() {
     heading(kChecks);
     m_html += "<p class=\"small\">Every check of every operating point, grouped by check, the most severe first. Value "
@@ -1086,6 +1269,10 @@ QString SheetWriter::html() {
         sharingChart();
         lossChart();
     }
+    if (hasProtection(m_r))
+        protection();
+    if (m_r.protection.reversal)
+        reversal();
     checks();
     cautions();
     limits();
@@ -1178,6 +1365,9 @@ void keepHeadingsWithNext(QTextDocument& doc, double pageHeight) {
             QTextBlockFormat f = b.blockFormat();
             f.setPageBreakPolicy(QTextFormat::PageBreak_AlwaysBefore);
             c.setBlockFormat(f);
+            // The incremental relayout after a format change leaves some later blocks without
+            // their lines; lay the whole document out again.
+            doc.markContentsDirty(0, doc.characterCount());
         }
         b = next;
     }
