@@ -794,9 +794,11 @@ void SheetWriter::inputs() {
         {"bank.interface.", "Thermal interface", {}},
         {"heatsink.", "Heatsink", {}},
         {"reversing.", "Reversing contactor", {}},
-        {"wiring.", "Wiring and bus capacitors", {}},
+        {"wiring.", "Wiring, bus capacitors and fuse", {"wiring.mainContactor."}},
+        {"wiring.mainContactor.", "Main contactor", {}},
     };
     for (const auto& g : groups) {
+        std::vector<std::pair<QString, QString>> wide; // a row of their own (part names)
         std::vector<std::pair<QString, QString>> cells;
         for (const auto& f : designFields()) {
             if (!startsWith(f.path, g.prefix) || !fieldShown(m_d, f))
@@ -810,8 +812,13 @@ void SheetWriter::inputs() {
                 continue;
             if (v->is_string() && v->get<std::string>().empty())
                 continue;
-            const QString value = f.type == FieldSpec::Type::List ? listValue(f.path, *v) : fieldValue(f, *v);
-            cells.emplace_back(esc(f.label), value);
+            QString value = f.type == FieldSpec::Type::List ? listValue(f.path, *v) : fieldValue(f, *v);
+            if (f.path.ends_with("_A2s") && v->is_number())
+                value += QStringLiteral(" A²s"); // no prefix form for A²s in units::Unit
+            if (f.path.ends_with(".name"))
+                wide.emplace_back(esc(f.label), value);
+            else
+                cells.emplace_back(esc(f.label), value);
         }
         if (g.prefix == "bank.") {
             QStringList dev;
@@ -838,10 +845,12 @@ void SheetWriter::inputs() {
             cells.emplace_back(QStringLiteral("Per-device deviations"),
                                dev.isEmpty() ? QStringLiteral("none: every device nominal") : dev.join("<br/>"));
         }
-        if (cells.empty())
+        if (cells.empty() && wide.empty())
             continue;
         sub(g.title);
         m_html += tableOpen();
+        for (const auto& [label, value] : wide)
+            m_html += "<tr><td class=\"key\" width=\"27%\">" + label + "</td><td colspan=\"3\">" + value + "</td></tr>";
         for (std::size_t i = 0; i < cells.size(); i += 2) {
             m_html += "<tr><td class=\"key\" width=\"27%\">" + cells[i].first + "</td><td width=\"23%\">" +
                       cells[i].second + "</td>";
