@@ -1,0 +1,27 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#pragma once
+// The design checks as a list, worst first, each with its severity chip, the message and the
+// point it concerns; the tooltip carries the numbers, the limit's source and the fix. Activating a
+// finding asks for its field (the main window then shows that field's editor).
+
+#include "core/engine/results.h"
+
+#include <QTableWidget>
+
+namespace amp::ui {
+
+class FindingsList : public QTableWidget {
+    Q_OBJECT
+  public:
+    enum Column { SeverityColumn, MessageColumn, PointColumn, ColumnCount };
+    enum Role { FieldRole = Qt::UserRole + 1, SeverityRole };
+    explicit FindingsList(QWidget* parent = nullptr);
+    void setChecks(const std::vector<Check>& checks);
+    /// Counts per severity, worst first ("2 fail · 1 warning · 14 pass").
+    static QString tally(const std::vector<Check>& checks);
+
+  signals:
+    void fieldRequested(const QString& path);
+};
+
+} // namespace amp::ui
