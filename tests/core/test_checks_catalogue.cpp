@@ -243,6 +243,18 @@ class TestChecksCatalogue : public QObject {
             QVERIFY2(findCheckInfo(id), id.c_str());
     }
 
+    void commandAndReadmeShowTheCatalogue() {
+        // `ampwright checks` prints the catalogue, and the README carries that same table.
+        QProcess p;
+        p.start(AMPWRIGHT_CLI, {"checks"});
+        QVERIFY(p.waitForFinished(60000));
+        QCOMPARE(p.exitCode(), 0);
+        const QString printed = QString::fromUtf8(p.readAllStandardOutput()).trimmed();
+        QCOMPARE(printed, q(checksMarkdown()).trimmed());
+        const QString readme = q(test::readText(test::sourceDir() / "README.md"));
+        QVERIFY2(readme.contains(printed), "README.md: paste the output of `ampwright checks` into its Checks section");
+    }
+
     void sourcesAndCatalogueAgree() {
         // Ids are constructed as makeCheck("area.name", ...) or check("area.name", ...), or assigned
         // as `.id = "area.name"`, anywhere under core/. Both directions: nothing emitted is missing

@@ -283,6 +283,10 @@ class TestDesignSheet : public QObject {
         env.remove("QT_QPA_PLATFORM");
         const QString demoFile = QString::fromStdString((test::demoDir() / "garden-cart.ampw").string());
         int code = -1;
+        const QString help = capture(AMPWRIGHT_CLI, {"--help"}, &code, env);
+        QCOMPARE(code, 0);
+        for (const char* word : {"sheet", "--pdf", "--paper", "checks", "-sheet.pdf"})
+            QVERIFY2(help.contains(word), word);
         const QString pdf = out("cli-letter.pdf");
         const QString text = capture(AMPWRIGHT_CLI,
                                      {"sheet", demoFile, "--pdf", pdf, "--paper", "letter", "--set", "bank.count=4"},
