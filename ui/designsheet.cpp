@@ -531,7 +531,7 @@ class SheetWriter {
     void heading(const QString& title);
     void sub(const QString& title) { m_html += "<h3>" + esc(title) + "</h3>"; }
     void chart(ChartObjects::Draw draw, double height_mm);
-    QString tableOpen(const QString& extra = {}) const;
+    QString tableOpen(double widthPercent = 100.0) const;
 
     void titleBlock();
     void jobStatement();
@@ -566,12 +566,12 @@ void SheetWriter::chart(ChartObjects::Draw draw, double height_mm) {
     m_html += "<p class=\"chart\">" + placeholder(id) + "</p>";
 }
 
-QString SheetWriter::tableOpen(const QString& extra) const {
-    return QStringLiteral("<table width=\"100%\" cellspacing=\"0\" cellpadding=\"%1\" border=\"%2\" "
-                          "style=\"border-collapse: collapse; border-color: #9a9a9a; border-style: solid;\" %3>")
+QString SheetWriter::tableOpen(double widthPercent) const {
+    return QStringLiteral("<table width=\"%1%\" cellspacing=\"0\" cellpadding=\"%2\" border=\"%3\" "
+                          "style=\"border-collapse: collapse; border-color: #9a9a9a; border-style: solid;\">")
+        .arg(widthPercent, 0, 'f', 1)
         .arg(px(2.2), 0, 'f', 1)
-        .arg(px(0.5), 0, 'f', 1)
-        .arg(extra);
+        .arg(px(0.5), 0, 'f', 1);
 }
 
 void SheetWriter::titleBlock() {
@@ -932,21 +932,22 @@ void SheetWriter::pointResults() {
     };
     for (std::size_t start = 0; start < ops.size(); start += kPointsPerTable) {
         const std::size_t end = std::min(ops.size(), start + kPointsPerTable);
+        // A last table with fewer points keeps the columns of the full ones, and is narrower.
         const double labelW = 34.0;
         const double colW = (100.0 - labelW) / kPointsPerTable;
-        m_html += tableOpen();
-        m_html += QStringLiteral("<thead><tr class=\"head\"><td width=\"%1%\">Operating point</td>").arg(labelW);
+        const double tableW = labelW + colW * static_cast<double>(end - start);
+        m_html += tableOpen(tableW);
+        m_html += QStringLiteral("<thead><tr class=\"head\"><td width=\"%1%\">Operating point</td>")
+                      .arg(100.0 * labelW / tableW, 0, 'f', 1);
         for (std::size_t i = start; i < end; ++i)
-            m_html += QStringLiteral("<td width=\"%1%\" class=\"num\">%2</td>").arg(colW).arg(esc(ops[i].name));
-        for (std::size_t i = end; i < start + kPointsPerTable; ++i)
-            m_html += QStringLiteral("<td width=\"%1%\"></td>").arg(colW);
+            m_html += QStringLiteral("<td width=\"%1%\" class=\"right\">%2</td>")
+                          .arg(100.0 * colW / tableW, 0, 'f', 1)
+                          .arg(esc(ops[i].name));
         m_html += "</tr></thead>";
         for (const auto& row : rows) {
             m_html += "<tr><td class=\"key\">" + esc(row.label) + "</td>";
             for (std::size_t i = start; i < end; ++i)
                 m_html += "<td class=\"num\">" + (ops[i].devices.empty() ? dash() : row.value(ops[i])) + "</td>";
-            for (std::size_t i = end; i < start + kPointsPerTable; ++i)
-                m_html += "<td></td>";
             m_html += "</tr>";
         }
         m_html += "</table><p class=\"gap\"></p>";
@@ -1302,6 +1303,7 @@ QString styleSheet() {
                "td { font-size: 8pt; vertical-align: top; }"
                "td.key { color: #333333; background-color: #f2f4f6; }"
                "td.num { text-align: right; white-space: nowrap; }"
+               "td.right { text-align: right; }"
                "td.detail { font-size: 7.5pt; color: #333333; }"
                "td.caution { background-color: #fbe3b0; text-align: center; }"
                "tr.head td { font-weight: bold; background-color: #dfe6ec; }"
