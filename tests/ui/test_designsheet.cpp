@@ -240,6 +240,25 @@ class TestDesignSheet : public QObject {
         QVERIFY(demos >= 1);
     }
 
+    void designWithoutResultsStillPrints() {
+        // A design the engine refuses: the sheet records the inputs and the failed input check and
+        // leaves out the sections that need results.
+        Design d = demo();
+        d.supply.nominal_V = -48.0;
+        const Results r = evaluate(d);
+        QVERIFY(r.operatingPoints.empty());
+        const QStringList sections = ui::designSheetSections(d, r);
+        QVERIFY(!sections.contains("Devices of the bank"));
+        QVERIFY(!sections.contains("Where the losses go"));
+        const Pdf pdf = render(d, "refused.pdf");
+        QVERIFY(pdf.pages >= 1);
+        QVERIFY(pdf.text.contains("design.input"));
+        QVERIFY(pdf.text.contains("supply.nominal_V"));
+        QVERIFY(!pdf.text.contains("Devices of the bank"));
+        for (const QString& s : sections)
+            QVERIFY2(pdf.text.contains(s), qPrintable(s));
+    }
+
     void unwritableFileIsReported() {
         QString error;
         const Design d = demo();
