@@ -133,6 +133,54 @@ std::vector<CheckInfo> buildCatalogue() {
         {"fuse.i2t-bank", "Fuse I²t against the bank",
          "fuse clearing I²t against the bank's stated short-circuit withstand",
          "the bank's stated withstand (wiring.bankWithstandI2t_A2s)", "wiring.fuseI2t_A2s", Severity::Fail},
+        // Heatsink, insulation and touch
+        {"heatsink.geometry", "Heatsink geometry",
+         "the plate-fin heatsink's dimensions against each other (fins that fit on the base, …)",
+         "the plate-fin model's geometry", "heatsink.geometry", Severity::Fail},
+        {"heatsink.fin-spacing", "Fin spacing",
+         "the gap between fins against the optimum for natural convection",
+         "Bar-Cohen & Rohsenow optimum spacing S_opt = 2.714·L/Ra_L^¼", "heatsink.geometry.finCount",
+         Severity::Advice},
+        {"interface.dielectric", "Insulating pad strength",
+         "breakdown voltage of the insulating layer (strength × thickness) against the highest bus voltage "
+         "(fail) and 2·V_max + 1000 V (warning)",
+         "dielectric test voltage of basic insulation (common practice, from memory)",
+         "bank.interface.dielectricStrength_Vperm", Severity::Fail},
+        {"interface.creepage", "Creepage along the insulator",
+         "the surface distance a live tab needs to the heatsink at the highest bus voltage (stated for the "
+         "builder to keep)",
+         "IEC 60664-1 Table F.4, pollution degree 2, material group III", "bank.interface", Severity::Advice,
+         true},
+        {"heatsink.tab-short", "Tabs shorted by the heatsink",
+         "whether live tabs of different circuit nodes sit bare on one heatsink",
+         "the circuit: drain/collector and cathode are different nodes", "bank.interface.insulating",
+         Severity::Fail},
+        {"heatsink.live-touch-voltage", "Live heatsink",
+         "voltage of a heatsink tied to a live tab against the touch limit (60 V DC dry, 30 V DC wet)",
+         "IEC 60364-4-41 §414.4.5 (from memory)", "bank.interface.insulating", Severity::Fail},
+        {"heatsink.touch-temperature", "Heatsink touch temperature",
+         "hottest heatsink temperature against the burn thresholds of bare metal",
+         "ISO 13732-1 (from memory): 65 °C for 1 s … 48 °C for 10 min", "heatsink.exposed", Severity::Fail},
+
+        // Transients and life
+        {"thermal.stall-time", "Time to the junction limit at stall",
+         "time a stall at the current limit takes to bring a junction to its T_j,max, against the longest "
+         "stall of the duty profile",
+         "transient of the Foster networks and the heatsink's heat capacity", "pwm.currentLimit_A",
+         Severity::Fail},
+        {"thermal.transient-junction", "Switch junction over the duty profile",
+         "highest switch junction temperature of the duty-profile transient against T_j,max (warning inside "
+         "15 K)",
+         "part rating; the 15 K margin is common practice", "bank.count", Severity::Fail},
+        {"thermal.transient-diode-junction", "Diode junction over the duty profile",
+         "highest freewheel diode junction of the duty-profile transient against its T_j,max (warning "
+         "inside 15 K)",
+         "part rating; the 15 K margin is common practice", "bank.diodeCount", Severity::Fail},
+        {"thermal.cycling-life", "Power-cycling life",
+         "hours of this duty until the most stressed junction wears out by temperature cycling",
+         "Held et al. (PEDS 1997) with Miner's rule; uncertain by an order of magnitude", "bank.count",
+         Severity::Advice, true},
+
         {"protection.input", "Protection input out of range",
          "inputs of the contactor, reversal, disconnect, pre-charge, cable and fuse models against their ranges",
          "the models' input ranges", "the field named in the message", Severity::Fail},
@@ -172,7 +220,7 @@ std::string checksMarkdown() {
     for (const auto& c : checkCatalogue())
         out += "| `" + c.id + "` | " + cell(c.title) + " | " + cell(c.compares) + " | " + cell(c.limitSource) +
                " | " + (c.field.find(' ') == std::string::npos ? "`" + cell(c.field) + "`" : cell(c.field)) + " | " +
-               toString(c.highest) + " |\n";
+               toString(c.highest) + (c.informational ? " (always, when it applies)" : "") + " |\n";
     return out;
 }
 

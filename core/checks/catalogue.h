@@ -22,6 +22,7 @@ struct CheckInfo {
     std::string limitSource; ///< where the limit comes from
     std::string field;       ///< the design field (path) a user changes first
     Severity highest = Severity::Fail; ///< the most severe outcome the check can give
+    bool informational = false;       ///< advice whenever it applies: it never passes
 };
 
 /// Every check, grouped by area, in a stable order.
