@@ -212,7 +212,7 @@ int sheetCommand(const QStringList& args) {
     const auto design = loadWithOverrides(pos[1], p.values(set));
     if (!design)
         return 1;
-    const Results results = evaluate(*design);
+    const Results results = evaluate(*design, EvaluateOptions{.thermalTransient = true});
     if (!writeSheet(*design, results, p.value(pdf), paperName))
         return 1;
     if (!p.isSet(quiet))

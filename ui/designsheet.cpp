@@ -48,6 +48,8 @@ const QString kPoints = QStringLiteral("Results by operating point");
 const QString kDevices = QStringLiteral("Devices of the bank");
 const QString kSharingChart = QStringLiteral("Current and temperature per device");
 const QString kLossChart = QStringLiteral("Where the losses go");
+const QString kTransient = QStringLiteral("Junction temperatures over the duty profile");
+const QString kHeatsink = QStringLiteral("Heatsink and power cycling");
 const QString kProtection = QStringLiteral("Contactors, fuse and cables");
 const QString kReversal = QStringLiteral("Reversal sequence");
 const QString kChecks = QStringLiteral("Checks");
@@ -444,6 +446,86 @@ void drawLossChart(QPainter& p, const QRectF& r, double pt, const QStringList& c
     }
 }
 
+struct TimeSeries {
+    QString name;
+    std::vector<double> values;
+    bool dashed = false;
+};
+
+/// Lines over a shared time axis (seconds), with an optional limit line.
+void drawTimeSeries(QPainter& p, const QRectF& r, double pt, const std::vector<double>& time_s,
+                    const std::vector<TimeSeries>& series, const QString& unitTitle, std::optional<double> limit,
+                    const QString& limitText) {
+    QStringList names;
+    std::vector<QColor> colours;
+    double lo = limit.value_or(1e300), hi = limit.value_or(-1e300);
+    for (std::size_t s = 0; s < series.size(); ++s) {
+        names << series[s].name;
+        colours.push_back(seriesColour(s));
+        for (double v : series[s].values)
+            if (std::isfinite(v)) {
+                lo = std::min(lo, v);
+                hi = std::max(hi, v);
+            }
+    }
+    if (!(hi >= lo)) {
+        lo = 0.0;
+        hi = 1.0;
+    }
+    const double legend = drawLegend(p, r.topLeft() + QPointF(26.0 * pt, 0.0), r.width() - 26.0 * pt, names, colours, pt);
+    const QRectF plot(r.left() + 26.0 * pt, r.top() + legend + 14.0 * pt, r.width() - 30.0 * pt,
+                      r.height() - legend - 14.0 * pt - 20.0 * pt);
+    p.setFont(chartFont(7.0, true));
+    p.setPen(QColor("#222222"));
+    p.drawText(QPointF(plot.left(), plot.top() - 5.0 * pt), unitTitle);
+    const Axis ya = makeAxis(std::min(0.0, lo), hi + 0.04 * (hi - std::min(0.0, lo)), 5);
+    drawValueAxis(p, plot, ya, QString(), pt);
+    const double t0 = time_s.empty() ? 0.0 : time_s.front();
+    const double t1 = time_s.empty() ? 1.0 : time_s.back();
+    const Axis xa = makeAxis(t0, t1 > t0 ? t1 : t0 + 1.0, 8);
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fs(p.font(), p.device());
+    for (double v = xa.lo; v <= xa.hi + xa.step * 1e-6; v += xa.step) {
+        const double x = xa.x(plot, v);
+        p.setPen(QPen(QColor("#e4e4e4"), 0.4 * pt));
+        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
+        p.setPen(QColor("#333333"));
+        const QString t = tickText(v);
+        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
+    }
+    const QString axisTitle = QStringLiteral("time, s");
+    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(axisTitle) / 2, r.bottom() - 1.0 * pt), axisTitle);
+    if (limit) {
+        const double y = ya.y(plot, *limit);
+        p.setPen(QPen(QColor("#b03a2e"), 0.9 * pt, Qt::DashLine));
+        p.drawLine(QPointF(plot.left(), y), QPointF(plot.right(), y));
+        p.setPen(QColor("#b03a2e"));
+        p.drawText(QPointF(plot.right() - fs.horizontalAdvance(limitText), y - 2.0 * pt), limitText);
+    }
+    p.save();
+    p.setClipRect(plot.adjusted(0, -2.0 * pt, 0, 0));
+    for (std::size_t s = 0; s < series.size(); ++s) {
+        QPainterPath path;
+        bool started = false;
+        const std::size_t n = std::min(time_s.size(), series[s].values.size());
+        for (std::size_t k = 0; k < n; ++k) {
+            if (!std::isfinite(series[s].values[k]))
+                continue;
+            const QPointF pnt(xa.x(plot, time_s[k]), ya.y(plot, series[s].values[k]));
+            if (!started) {
+                path.moveTo(pnt);
+                started = true;
+            } else {
+                path.lineTo(pnt);
+            }
+        }
+        p.setPen(QPen(seriesColour(s), 0.9 * pt, series[s].dashed ? Qt::DashLine : Qt::SolidLine));
+        p.setBrush(Qt::NoBrush);
+        p.drawPath(path);
+    }
+    p.restore();
+}
+
 struct TimelineStep {
     QString name;
     double duration_s = 0.0;
@@ -541,6 +623,8 @@ class SheetWriter {
     void deviceTables();
     void sharingChart();
     void lossChart();
+    void transient();
+    void heatsinkAndLife();
     void protection();
     void reversal();
     void checks();
@@ -672,6 +756,13 @@ void SheetWriter::glance() {
         for (const auto& op : m_r.operatingPoints)
             peak = std::max(peak, op.motorPeakCurrent_A);
         row("Highest armature current", fmt(peak, Unit::Ampere), QStringLiteral("peak of the ripple, any point"));
+        if (m_r.transient)
+            row("Hottest junction over the duty profile", fmt(m_r.transient->tjMax_C, Unit::Celsius),
+                QStringLiteral("%1, %2 into the profile (transient)")
+                    .arg(esc(m_r.transient->tjMaxSource), fmt(m_r.transient->tjMaxTime_s, Unit::Second)));
+        if (m_r.stallTimeToLimit_s)
+            row("Stall at the current limit", fmt(*m_r.stallTimeToLimit_s, Unit::Second),
+                QStringLiteral("until the first junction reaches its T_j,max"));
     } else {
         row("Results", dash(), QStringLiteral("no operating point was computed: see the checks"));
     }
@@ -1069,6 +1160,112 @@ void SheetWriter::lossChart() {
               "stands at the end of each bar.</p>";
 }
 
+void SheetWriter::transient() {
+    heading(kTransient);
+    const auto& t = *m_r.transient;
+    // Every junction when they are few; otherwise the hottest and the coolest switch and the diode.
+    const std::size_t sources = std::min(t.sources.size(), t.tj_C.size());
+    auto peak = [&](std::size_t k) {
+        double m = -1e300;
+        for (double v : t.tj_C[k])
+            m = std::max(m, v);
+        return m;
+    };
+    std::vector<std::size_t> shown;
+    const std::size_t switches = sources > 0 ? sources - 1 : 0; // the last source is the diode
+    if (switches <= 6) {
+        for (std::size_t k = 0; k < sources; ++k)
+            shown.push_back(k);
+    } else {
+        std::size_t hot = 0, cool = 0;
+        for (std::size_t k = 1; k < switches; ++k) {
+            if (peak(k) > peak(hot))
+                hot = k;
+            if (peak(k) < peak(cool))
+                cool = k;
+        }
+        shown = {hot, cool, sources - 1};
+    }
+    std::vector<TimeSeries> series;
+    for (std::size_t k : shown)
+        series.push_back({QString::fromStdString(t.sources[k]), t.tj_C[k], false});
+    series.push_back({QStringLiteral("heatsink"), t.heatsink_C, true});
+    const double tjMax = m_d.bank.device.tjMax_C;
+    const std::vector<double> time = t.time_s;
+    chart(
+        [time, series, tjMax](QPainter& p, const QRectF& r, double pt) {
+            drawTimeSeries(p, r, pt, time, series, QStringLiteral("Junction temperature, °C"), tjMax,
+                           QStringLiteral("switch T_j,max ") + fmt(tjMax, Unit::Celsius));
+        },
+        70.0);
+    m_html += QStringLiteral("<p class=\"small\">The last repetition of the duty profile (%1 simulated, %2). Q1 … Qn "
+                             "are the switches in bank order (devices 0 … n−1 of the tables above), D a freewheel "
+                             "diode.%3</p>")
+                  .arg(t.repetitions)
+                  .arg(t.periodic ? QStringLiteral("it repeats itself") : QStringLiteral("not yet periodic"))
+                  .arg(shown.size() < sources ? QStringLiteral(" Of the switches, the hottest and the coolest are drawn.")
+                                              : QString());
+    m_html += tableOpen();
+    auto row = [&](const QString& k, const QString& v) {
+        m_html += "<tr><td class=\"key\" width=\"62%\">" + k + "</td><td class=\"num\" width=\"38%\">" + v + "</td></tr>";
+    };
+    row(QStringLiteral("Hottest junction over the profile (%1)").arg(esc(t.tjMaxSource)),
+        fmt(t.tjMax_C, Unit::Celsius) + ", at " + fmt(t.tjMaxTime_s, Unit::Second));
+    row(QStringLiteral("Hottest heatsink over the profile"),
+        fmt(t.heatsinkMax_C, Unit::Celsius) + ", at " + fmt(t.heatsinkMaxTime_s, Unit::Second));
+    m_html += "</table>";
+}
+
+void SheetWriter::heatsinkAndLife() {
+    heading(kHeatsink);
+    m_html += tableOpen();
+    auto row = [&](const QString& k, const QString& v) {
+        m_html += "<tr><td class=\"key\" width=\"62%\">" + k + "</td><td class=\"num\" width=\"38%\">" + v + "</td></tr>";
+    };
+    if (const auto& h = m_r.heatsink) {
+        row(QStringLiteral("Heatsink given by"), h->mode == "geometry" ? QStringLiteral("its geometry") : QStringLiteral("a stated R_th,sa"));
+        row(QStringLiteral("R_th,sa at the heat of “%1”").arg(esc(h->operatingPoint)), fmt(h->rthSa_KperW, Unit::KelvinPerWatt));
+        row(QStringLiteral("Heat into the heatsink there"), fmt(h->heat_W, Unit::Watt));
+        row(QStringLiteral("Heatsink temperature there (steady)"), fmt(h->temperature_C, Unit::Celsius));
+        row(QStringLiteral("Heat capacity"), fmt(h->heatCapacity_JperK, Unit::None) + " J/K");
+        if (h->finSpacing_m)
+            row(QStringLiteral("Fin spacing"), fmt(*h->finSpacing_m, Unit::Metre));
+        if (h->optimumFinSpacing_m)
+            row(QStringLiteral("Optimum fin spacing (natural convection)"), fmt(*h->optimumFinSpacing_m, Unit::Metre));
+        if (h->optimumFinCount)
+            row(QStringLiteral("Fins at the optimum spacing"), QString::number(std::floor(*h->optimumFinCount)));
+    }
+    if (m_r.stallTimeToLimit_s)
+        row(QStringLiteral("Stall at the current limit: time to the first T_j,max"), fmt(*m_r.stallTimeToLimit_s, Unit::Second));
+    if (const auto& l = m_r.life) {
+        row(QStringLiteral("Power cycling: first to wear out"), esc(l->source));
+        row(QStringLiteral("Damage per repetition of the profile"), fmt(l->damagePerRepetition, Unit::None));
+        if (l->repetitionsToEnd)
+            row(QStringLiteral("Repetitions of the profile to the end of life"), fmt(*l->repetitionsToEnd, Unit::None));
+        if (l->hoursToEnd)
+            row(QStringLiteral("Hours of this duty to the end of life"), fmt(*l->hoursToEnd, Unit::None) + " h");
+    }
+    m_html += "</table>";
+    if (const auto& h = m_r.heatsink)
+        for (const auto& n : h->notes)
+            m_html += "<p class=\"small\">" + esc(n) + "</p>";
+    if (const auto& l = m_r.life) {
+        if (!l->cycles.empty()) {
+            sub(QStringLiteral("Junction cycles of %1 per repetition").arg(esc(l->source)));
+            m_html += tableOpen(70.0);
+            m_html += "<thead><tr class=\"head\"><td class=\"right\">Swing ΔT_j</td><td class=\"right\">Mean T_j</td>"
+                      "<td class=\"right\">Count</td><td class=\"right\">Cycles to failure</td></tr></thead>";
+            for (const auto& c : l->cycles)
+                m_html += "<tr><td class=\"num\">" + fmt(c.range_K, Unit::Kelvin) + "</td><td class=\"num\">" +
+                          fmt(c.mean_C, Unit::Celsius) + "</td><td class=\"num\">" + fmt(c.count, Unit::None) +
+                          "</td><td class=\"num\">" + fmt(c.cyclesToFailure, Unit::None) + "</td></tr>";
+            m_html += "</table>";
+        }
+        if (!l->note.empty())
+            m_html += "<p class=\"small\">" + esc(l->note) + "</p>";
+    }
+}
+
 void SheetWriter::protection() {
     heading(kProtection);
     const auto& pr = m_r.protection;
@@ -1279,6 +1476,10 @@ QString SheetWriter::html() {
         sharingChart();
         lossChart();
     }
+    if (m_r.transient && !m_r.transient->time_s.empty())
+        transient();
+    if (m_r.heatsink || m_r.life || m_r.stallTimeToLimit_s)
+        heatsinkAndLife();
     if (hasProtection(m_r))
         protection();
     if (m_r.protection.reversal)
@@ -1352,35 +1553,41 @@ void drawHeaderFooter(QPainter& p, const PageFrame& f, double dpi, const Design&
     p.drawText(QPointF(f.width - fm.horizontalAdvance(fr), top + base), fr);
 }
 
-/// Move a heading (or a run of headings) to the next page when what follows it starts there.
-void keepHeadingsWithNext(QTextDocument& doc, double pageHeight) {
+/// Page breaks the layout does not make by itself: a block whose first line was pushed to the next
+/// page starts there as a whole (otherwise its text is drawn, clipped, on both pages and a text
+/// extractor finds it twice), and a heading (or a run of headings) moves to the next page with
+/// what follows it.
+void paginate(QTextDocument& doc, double pageHeight) {
     QAbstractTextDocumentLayout* layout = doc.documentLayout();
-    // The page of a block's first line: pagination moves lines inside their block, so the block's
-    // own top can still lie on the page before.
-    auto pageOf = [&](const QTextBlock& b) {
-        double y = layout->blockBoundingRect(b).top();
+    auto page = [&](double y) { return static_cast<int>((y + 1.0) / pageHeight); };
+    auto blockTop = [&](const QTextBlock& b) { return layout->blockBoundingRect(b).top(); };
+    auto lineTop = [&](const QTextBlock& b) {
+        double y = blockTop(b);
         if (b.layout() && b.layout()->lineCount() > 0)
             y += b.layout()->lineAt(0).y();
-        return static_cast<int>((y + 1.0) / pageHeight);
+        return y;
+    };
+    auto breakBefore = [&](const QTextBlock& b) {
+        QTextCursor c(b);
+        QTextBlockFormat f = b.blockFormat();
+        f.setPageBreakPolicy(QTextFormat::PageBreak_AlwaysBefore);
+        c.setBlockFormat(f);
+        // The incremental relayout after a format change leaves some later blocks without their
+        // lines; lay the whole document out again.
+        doc.markContentsDirty(0, doc.characterCount());
     };
     for (QTextBlock b = doc.begin(); b.isValid(); b = b.next()) {
+        if (QTextCursor(b).currentTable())
+            continue; // table rows move to the next page whole
+        if (page(blockTop(b)) < page(lineTop(b)))
+            breakBefore(b);
         if (b.blockFormat().headingLevel() == 0)
             continue;
         QTextBlock next = b.next();
         while (next.isValid() && next.blockFormat().headingLevel() != 0)
             next = next.next();
-        if (!next.isValid())
-            break;
-        if (pageOf(next) > pageOf(b)) {
-            QTextCursor c(b);
-            QTextBlockFormat f = b.blockFormat();
-            f.setPageBreakPolicy(QTextFormat::PageBreak_AlwaysBefore);
-            c.setBlockFormat(f);
-            // The incremental relayout after a format change leaves some later blocks without
-            // their lines; lay the whole document out again.
-            doc.markContentsDirty(0, doc.characterCount());
-        }
-        b = next;
+        if (next.isValid() && page(lineTop(next)) > page(lineTop(b)))
+            breakBefore(b);
     }
 }
 
@@ -1446,7 +1653,7 @@ int renderDesignSheet(QPagedPaintDevice* device, const Design& design, const Res
         c.insertText(QString(QChar::ObjectReplacementCharacter), f);
     }
     doc.setPageSize(QSizeF(frame.width, frame.body()));
-    keepHeadingsWithNext(doc, frame.body());
+    paginate(doc, frame.body());
 
     const int pages = doc.pageCount();
     const QString printed = QDateTime::currentDateTime().toString(QStringLiteral("yyyy-MM-dd HH:mm"));

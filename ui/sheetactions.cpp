@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "ui/sheetactions.h"
 
+#include "core/engine/evaluate.h"
 #include "ui/designdocument.h"
 #include "ui/designsheet.h"
 
@@ -14,18 +15,21 @@
 #include <QPrinter>
 #include <QStandardPaths>
 
+#include <optional>
+
 namespace amp::ui {
 
 namespace {
 
-// The sheet is a record of computed results: without them there is nothing to print.
-const Results* resultsOrExplain(DesignDocument* document, QWidget* parent) {
-    if (const Results* r = document->results())
-        return r;
+// The sheet is a record of computed results: without them there is nothing to print. The
+// workbench's quick evaluation leaves out the duty-profile transient; the sheet asks for it.
+std::optional<Results> sheetResults(DesignDocument* document, QWidget* parent) {
+    if (document->results())
+        return evaluate(document->design(), EvaluateOptions{.thermalTransient = true});
     QMessageBox::warning(parent, QObject::tr("Design sheet"),
                          QObject::tr("The design could not be evaluated, so there is no sheet to print:\n%1")
                              .arg(document->evaluationError()));
-    return nullptr;
+    return std::nullopt;
 }
 
 } // namespace
@@ -45,23 +49,23 @@ void addDesignSheetActions(QMenu* menu, DesignDocument* document, QWidget* paren
 }
 
 void previewDesignSheet(DesignDocument* document, QWidget* parent) {
-    if (!resultsOrExplain(document, parent))
+    const std::optional<Results> results = sheetResults(document, parent);
+    if (!results)
         return;
+    const Design design = document->design();
     QPrinter printer(QPrinter::HighResolution);
     printer.setPageSize(QPageSize(localPaper()));
     printer.setPageMargins(QMarginsF(16, 12, 16, 12), QPageLayout::Millimeter);
     printer.setDocName(QString::fromStdString(document->design().meta.title));
     QPrintPreviewDialog dialog(&printer, parent);
     dialog.setWindowTitle(QObject::tr("Design sheet — %1").arg(document->displayName()));
-    QObject::connect(&dialog, &QPrintPreviewDialog::paintRequested, parent, [document](QPrinter* p) {
-        if (const Results* r = document->results())
-            renderDesignSheet(p, document->design(), *r);
-    });
+    QObject::connect(&dialog, &QPrintPreviewDialog::paintRequested, parent,
+                     [&design, &results](QPrinter* p) { renderDesignSheet(p, design, *results); });
     dialog.exec();
 }
 
 bool exportDesignSheet(DesignDocument* document, QWidget* parent, QString file, QPageSize::PageSizeId paper) {
-    const Results* results = resultsOrExplain(document, parent);
+    const std::optional<Results> results = sheetResults(document, parent);
     if (!results)
         return false;
     if (file.isEmpty()) {
