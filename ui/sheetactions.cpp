@@ -24,8 +24,12 @@ namespace {
 // The sheet is a record of computed results: without them there is nothing to print. The
 // workbench's quick evaluation leaves out the duty-profile transient; the sheet asks for it.
 std::optional<Results> sheetResults(DesignDocument* document, QWidget* parent) {
-    if (document->results())
-        return evaluate(document->design(), EvaluateOptions{.thermalTransient = true});
+    if (document->results()) {
+        Results r = evaluate(document->design(), EvaluateOptions{.thermalTransient = true});
+        if (document->variantNames().size() > 1)
+            r.variant = document->activeVariantName().toStdString();
+        return r;
+    }
     QMessageBox::warning(parent, QObject::tr("Design sheet"),
                          QObject::tr("The design could not be evaluated, so there is no sheet to print:\n%1")
                              .arg(document->evaluationError()));
