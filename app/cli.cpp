@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "app/cli.h"
 
+#include "core/checks/catalogue.h"
 #include "core/engine/evaluate.h"
 #include "core/engine/results_json.h"
 #include "core/io/datapaths.h"
@@ -9,6 +10,10 @@
 #include "core/model/design_json.h"
 #include "core/model/fields.h"
 #include "core/units/units.h"
+
+#ifdef AMPWRIGHT_WITH_UI
+#include "ui/designsheet.h"
+#endif
 
 #include <QCommandLineParser>
 #include <QCoreApplication>
@@ -177,8 +182,80 @@ int evaluateCommand(const QStringList& args) {
     return 0;
 }
 
+// Write the design sheet; false with the reason on stderr.
+bool writeSheet(const Design& design, const Results& results, const QString& pdf, const QString& paperName) {
+#ifdef AMPWRIGHT_WITH_UI
+    QPageSize::PageSizeId paper = QPageSize::A4;
+    if (!ui::paperFromName(paperName, &paper)) {
+        err("--paper must be a4 or letter, not '" + paperName + "'");
+        return false;
+    }
+    QString reason;
+    if (!ui::writeDesignSheetPdf(design, results, pdf, paper, &reason)) {
+        err("cannot write the design sheet: " + reason);
+        return false;
+    }
+    return true;
+#else
+    (void)design;
+    (void)results;
+    (void)pdf;
+    (void)paperName;
+    err("this build has no workbench library (ui/), which renders the design sheet");
+    return false;
+#endif
+}
+
+int sheetCommand(const QStringList& args) {
+    QCommandLineParser p;
+    p.setApplicationDescription("Evaluate a design and write its printable design sheet (PDF).");
+    p.addHelpOption();
+    p.addPositionalArgument("sheet", "The command.");
+    p.addPositionalArgument("design", "The design file (.ampw).");
+    QCommandLineOption pdf("pdf", "Write the design sheet to <file>.", "file");
+    QCommandLineOption paper("paper", "Paper size: a4 (default) or letter.", "size", "a4");
+    QCommandLineOption set("set", "Override a design field: path=value (as for evaluate). Repeatable.", "path=value");
+    QCommandLineOption variant("variant", "The sheet of the variant <name> instead of the active one.", "name");
+    QCommandLineOption quiet("quiet", "Print nothing but errors.");
+    QCommandLineOption verbose("verbose", "Log details to the console.");
+    p.addOptions({pdf, paper, set, variant, quiet, verbose});
+    if (!p.parse(args)) {
+        err(p.errorText());
+        return 2;
+    }
+    if (p.isSet("help")) {
+        out(p.helpText());
+        return 0;
+    }
+    const QStringList pos = p.positionalArguments();
+    if (pos.size() != 2 || !p.isSet(pdf)) {
+        err("sheet needs one design file and --pdf OUT.pdf (see ampwright sheet --help)");
+        return 2;
+    }
+    const QString paperName = p.value(paper).trimmed().toLower();
+    if (paperName != "a4" && paperName != "letter") {
+        err("--paper must be a4 or letter, not '" + p.value(paper) + "'");
+        return 2;
+    }
+    const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
+    if (!chosen)
+        return 1;
+    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true});
+    results.variant = chosen->variant;
+    if (!writeSheet(chosen->design, results, p.value(pdf), paperName))
+        return 1;
+    if (!p.isSet(quiet))
+        out("design sheet written to " + QFileInfo(p.value(pdf)).absoluteFilePath());
+    return 0;
+}
+
 int fieldsCommand(const QStringList&) {
     out(QString::fromStdString(fieldsMarkdown()));
+    return 0;
+}
+
+int checksCommand(const QStringList&) {
+    out(QString::fromStdString(checksMarkdown()));
     return 0;
 }
 
@@ -225,7 +302,7 @@ QString demoProject() {
 }
 
 bool isCommand(const QString& word) {
-    return word == "evaluate" || word == "fields" || word == "parts";
+    return word == "evaluate" || word == "sheet" || word == "fields" || word == "parts" || word == "checks";
 }
 
 QString helpText() {
@@ -238,7 +315,7 @@ QString helpText() {
         "\n"
         "Without a command, opens the workbench on DESIGN (or the demo project). With no display\n"
         "(DISPLAY and WAYLAND_DISPLAY unset) it evaluates the design headless instead, prints a summary\n"
-        "and writes <name>-results.json in the current folder.\n"
+        "and writes <name>-results.json and <name>-sheet.pdf in the current folder.\n"
         "\n"
         "Commands:\n"
         "  evaluate DESIGN [--json OUT] [--variant NAME] [--set path=value ...]\n"
@@ -247,8 +324,14 @@ QString helpText() {
         "        --set overrides a field by its dotted path, [i] for list items, e.g.\n"
         "        --set bank.count=3  --set dutyProfile[0].duration_s=20\n"
         "        --set bank.device.mosfet.rdsOn25_ohm=\"3.5 mΩ\"   (JSON, or a number with a unit)\n"
+        "  sheet DESIGN --pdf OUT.pdf [--paper a4|letter] [--variant NAME] [--set path=value ...]\n"
+        "        Evaluate a design and write its printable design sheet: inputs, results per\n"
+        "        operating point and device, charts, every check, the safety cautions.\n"
         "  fields\n"
         "        Print every design field with its unit, range and meaning (Markdown).\n"
+        "  checks\n"
+        "        Print the catalogue of design checks: id, what it compares, where the limit comes\n"
+        "        from and the field to change (Markdown).\n"
         "  parts [--user FOLDER]\n"
         "        List the parts library and any part file that was skipped, with the reason.\n"
         "\n"
@@ -264,7 +347,7 @@ QString helpText() {
         "licensed practice decide.\n");
 }
 
-int runHeadless(const QString& designFile, const QString& jsonOut) {
+int runHeadless(const QString& designFile, const QString& jsonOut, const QString& sheetOut) {
     const auto chosen = loadWithOverrides(designFile, {});
     if (!chosen)
         return 1;
@@ -275,6 +358,11 @@ int runHeadless(const QString& designFile, const QString& jsonOut) {
     if (!writeJson(results, jsonOut))
         return 1;
     out("results written to " + QFileInfo(jsonOut).absoluteFilePath());
+    if (!sheetOut.isEmpty()) {
+        if (!writeSheet(chosen->design, results, sheetOut, QStringLiteral("a4")))
+            return 1;
+        out("design sheet written to " + QFileInfo(sheetOut).absoluteFilePath());
+    }
     return 0;
 }
 
@@ -282,10 +370,14 @@ int runCommand(const QStringList& args) {
     const QString verb = args.value(1);
     if (verb == "evaluate")
         return evaluateCommand(args);
+    if (verb == "sheet")
+        return sheetCommand(args);
     if (verb == "fields")
         return fieldsCommand(args);
     if (verb == "parts")
         return partsCommand(args);
+    if (verb == "checks")
+        return checksCommand(args);
     err("unknown command '" + verb + "' (see ampwright --help)");
     return 2;
 }

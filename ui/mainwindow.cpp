@@ -14,6 +14,7 @@
 #include "ui/recentfiles.h"
 #include "ui/sectionpage.h"
 #include "ui/sections.h"
+#include "ui/sheetactions.h"
 #include "ui/variants.h"
 #include "ui/workbench.h"
 
@@ -132,6 +133,8 @@ void MainWindow::buildMenus() {
     saveAsAction->setShortcuts(QKeySequence::SaveAs);
     if (saveAsAction->shortcuts().isEmpty()) // some platforms define none
         saveAsAction->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_S));
+    file->addSeparator();
+    addDesignSheetActions(file, m_document, this);
     file->addSeparator();
     QAction* quit = file->addAction(tr("&Quit"), this, &QWidget::close);
     quit->setShortcuts(QKeySequence::Quit);
