@@ -17,6 +17,7 @@ class QMenu;
 namespace amp::ui {
 
 class BankView;
+class ChartsView;
 class DesignDocument;
 class DeviceTable;
 class FieldEditor;
@@ -52,6 +53,7 @@ class MainWindow : public QMainWindow {
     PointTable* pointTable() const { return m_pointTable; }
     DeviceTable* deviceTable() const { return m_deviceTable; }
     FindingsList* findingsList() const { return m_findings; }
+    ChartsView* charts() const { return m_charts; }
     QString evaluationStatus() const;
 
   public slots:
@@ -87,6 +89,7 @@ class MainWindow : public QMainWindow {
     DeviceTable* m_deviceTable = nullptr;
     FindingsList* m_findings = nullptr;
     QTabWidget* m_detailTabs = nullptr;
+    ChartsView* m_charts = nullptr;
     QLabel* m_pointsCaption = nullptr;
     QLabel* m_evalLabel = nullptr;
     QLabel* m_tallyLabel = nullptr;

@@ -1,0 +1,347 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "ui/chartdata.h"
+
+#include "ui/chartstyle.h"
+#include "ui/palette.h"
+
+#include <QFile>
+#include <QSaveFile>
+#include <QTextStream>
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+namespace amp::ui {
+
+namespace {
+
+constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
+
+QString csvCell(const QString& text) {
+    if (text.contains(QLatin1Char(',')) || text.contains(QLatin1Char('"')) || text.contains(QLatin1Char('\n'))) {
+        QString quoted = text;
+        quoted.replace(QLatin1Char('"'), QStringLiteral("\"\""));
+        return QLatin1Char('"') + quoted + QLatin1Char('"');
+    }
+    return text;
+}
+
+QString headerOf(const QString& name, const QString& unit) {
+    return unit.isEmpty() ? name : QStringLiteral("%1 [%2]").arg(name, unit);
+}
+
+QString pointSubtitle(const OperatingPointResult& point) {
+    return QObject::tr("%1 · motor %2 A").arg(QString::fromStdString(point.name),
+                                                QString::number(point.motorCurrent_A, 'f', 1));
+}
+
+ChartColumn column(const QString& name, const QString& unit, ColumnRole role, int view = -1) {
+    ChartColumn c;
+    c.name = name;
+    c.unit = unit;
+    c.role = role;
+    c.view = view;
+    return c;
+}
+
+std::vector<QString> deviceLabels(std::size_t n) {
+    std::vector<QString> out;
+    for (std::size_t i = 0; i < n; ++i)
+        out.push_back(QStringLiteral("#%1").arg(i)); // numbered from 0, as in the findings
+    return out;
+}
+
+} // namespace
+
+int ChartData::rowCount() const {
+    return isCategorical() ? static_cast<int>(categories.size()) : static_cast<int>(x.size());
+}
+
+bool ChartData::drawable() const {
+    if (!note.isEmpty() || rowCount() == 0)
+        return false;
+    for (const auto& c : columns)
+        for (double v : c.values)
+            if (std::isfinite(v))
+                return true;
+    return false;
+}
+
+QString ChartData::rowLabel(int row) const {
+    if (row < 0 || row >= rowCount())
+        return {};
+    if (isCategorical())
+        return categories[row];
+    const double shown = x[static_cast<std::size_t>(row)] / xScale;
+    const QString unit = xShownUnit.isEmpty() ? xUnit : xShownUnit;
+    const QString number = QString::number(shown, 'g', 4);
+    return unit.isEmpty() ? number : number + QLatin1Char(' ') + unit;
+}
+
+std::vector<int> ChartData::columnsOf(int view) const {
+    std::vector<int> out;
+    for (std::size_t i = 0; i < columns.size(); ++i)
+        if (views.isEmpty() || columns[i].view < 0 || columns[i].view == view)
+            out.push_back(static_cast<int>(i));
+    return out;
+}
+
+QString csvText(const ChartData& data) {
+    QString out;
+    QTextStream s(&out);
+    QStringList header;
+    header << csvCell(headerOf(data.xName, data.isCategorical() ? QString() : data.xUnit));
+    for (const auto& c : data.columns)
+        header << csvCell(headerOf(c.name, c.unit));
+    s << header.join(QLatin1Char(',')) << "\n";
+    for (int row = 0; row < data.rowCount(); ++row) {
+        QStringList cells;
+        cells << (data.isCategorical() ? csvCell(data.categories[row])
+                                       : QString::number(data.x[static_cast<std::size_t>(row)], 'g', 17));
+        for (const auto& c : data.columns) {
+            const double v = static_cast<std::size_t>(row) < c.values.size() ? c.values[static_cast<std::size_t>(row)] : kNaN;
+            cells << (std::isfinite(v) ? QString::number(v, 'g', 17) : QString());
+        }
+        s << cells.join(QLatin1Char(',')) << "\n";
+    }
+    s.flush();
+    return out;
+}
+
+QString writeCsv(const ChartData& data, const QString& path) {
+    QSaveFile file(path);
+    if (!file.open(QIODevice::WriteOnly | QIODevice::Text))
+        return file.errorString();
+    const QByteArray bytes = csvText(data).toUtf8();
+    if (file.write(bytes) != bytes.size())
+        return file.errorString();
+    if (!file.commit())
+        return file.errorString();
+    return {};
+}
+
+// --- per device ------------------------------------------------------------------------------
+
+ChartData deviceCurrentData(const Design& design, const OperatingPointResult& point) {
+    ChartData d;
+    d.id = QStringLiteral("device-current");
+    d.title = QObject::tr("On-state current per switch");
+    d.subtitle = pointSubtitle(point);
+    d.xName = QObject::tr("Switch");
+    const auto labels = deviceLabels(point.devices.size());
+    for (const auto& l : labels)
+        d.categories << l;
+    ChartColumn current = column(QObject::tr("Current"), QStringLiteral("A"), ColumnRole::Bar);
+    ChartColumn limit = column(QObject::tr("Derated rating"), QStringLiteral("A"), ColumnRole::Limit);
+    ChartColumn equal = column(QObject::tr("Equal share"), QStringLiteral("A"), ColumnRole::Reference);
+    double sum = 0.0;
+    for (const auto& dev : point.devices)
+        sum += dev.current_A;
+    const double mean = point.devices.empty() ? 0.0 : sum / static_cast<double>(point.devices.size());
+    const double derated = design.bank.derating * design.bank.device.currentRating_A;
+    for (const auto& dev : point.devices) {
+        current.values.push_back(dev.current_A);
+        limit.values.push_back(derated);
+        equal.values.push_back(mean);
+    }
+    double lightest = std::numeric_limits<double>::infinity();
+    for (const auto& dev : point.devices)
+        lightest = std::min(lightest, dev.current_A);
+    // A switch taking more than the accepted ratio over the lightest one stands out.
+    for (const auto& dev : point.devices) {
+        const bool hogging = lightest > 0.0 && dev.current_A / lightest > design.bank.sharingTarget;
+        current.rowColours.push_back(hogging ? chartstyle::hogging() : chartstyle::slate());
+    }
+    d.columns = {current, limit, equal};
+    d.yTitles = {QObject::tr("Current (A)")};
+    if (point.devices.empty())
+        d.note = QObject::tr("No switch results in %1.").arg(QString::fromStdString(point.name));
+    return d;
+}
+
+ChartData deviceTemperatureData(const Design& design, const OperatingPointResult& point) {
+    ChartData d;
+    d.id = QStringLiteral("device-temperature");
+    d.title = QObject::tr("Junction temperature per device");
+    d.subtitle = QObject::tr("%1 · heatsink %2 °C")
+                     .arg(QString::fromStdString(point.name), QString::number(point.heatsinkTemperature_C, 'f', 1));
+    d.xName = QObject::tr("Device");
+    ChartColumn tj = column(QStringLiteral("T_j"), QStringLiteral("°C"), ColumnRole::Bar);
+    ChartColumn limit = column(QStringLiteral("T_j,max"), QStringLiteral("°C"), ColumnRole::Limit);
+    ChartColumn sink = column(QObject::tr("Heatsink"), QStringLiteral("°C"), ColumnRole::Reference);
+    const auto labels = deviceLabels(point.devices.size());
+    for (std::size_t i = 0; i < point.devices.size(); ++i) {
+        d.categories << labels[i];
+        tj.values.push_back(point.devices[i].tj_C);
+        limit.values.push_back(design.bank.device.tjMax_C);
+        tj.rowColours.push_back(colours::forMargin(design.bank.device.tjMax_C - point.devices[i].tj_C));
+        sink.values.push_back(point.heatsinkTemperature_C);
+    }
+    if (design.bank.diodeCount > 0) {
+        d.categories << QObject::tr("D ×%1").arg(design.bank.diodeCount);
+        tj.values.push_back(point.freewheelDiode.tj_C);
+        limit.values.push_back(design.bank.freewheelDiode.tjMax_C);
+        tj.rowColours.push_back(colours::forMargin(design.bank.freewheelDiode.tjMax_C - point.freewheelDiode.tj_C));
+        sink.values.push_back(point.heatsinkTemperature_C);
+    }
+    d.columns = {tj, limit, sink};
+    d.yTitles = {QObject::tr("Temperature (°C)")};
+    if (d.categories.isEmpty())
+        d.note = QObject::tr("No device results in %1.").arg(QString::fromStdString(point.name));
+    return d;
+}
+
+ChartData lossBreakdownData(const Design& design, const OperatingPointResult& point) {
+    ChartData d;
+    d.id = QStringLiteral("loss-breakdown");
+    d.title = QObject::tr("Where the power goes, per device");
+    d.subtitle = QObject::tr("%1 · power stage %2 W")
+                     .arg(QString::fromStdString(point.name), QString::number(point.totalLoss_W, 'f', 1));
+    d.xName = QObject::tr("Device");
+    struct Part {
+        QString name;
+        double DeviceResult::*member;
+    };
+    const Part parts[] = {
+        {QObject::tr("Conduction"), &DeviceResult::conduction_W},
+        {QObject::tr("Switching"), &DeviceResult::switching_W},
+        {QObject::tr("Body diode"), &DeviceResult::diode_W},
+        {QObject::tr("Ballast"), &DeviceResult::ballast_W},
+        {QObject::tr("Drive"), &DeviceResult::drive_W},
+        {QObject::tr("Leg"), &DeviceResult::leg_W},
+    };
+    const auto labels = deviceLabels(point.devices.size());
+    for (const auto& l : labels)
+        d.categories << l;
+    const bool diodes = design.bank.diodeCount > 0;
+    if (diodes)
+        d.categories << QObject::tr("D ×%1").arg(design.bank.diodeCount);
+    int index = 0;
+    for (const auto& p : parts) {
+        ChartColumn c = column(p.name, QStringLiteral("W"), ColumnRole::Stack);
+        c.colour = chartstyle::lossColour(index++);
+        for (const auto& dev : point.devices)
+            c.values.push_back(dev.*p.member);
+        if (diodes)
+            c.values.push_back(0.0);
+        d.columns.push_back(c);
+    }
+    if (diodes) {
+        ChartColumn fw = column(QObject::tr("Freewheel diodes"), QStringLiteral("W"), ColumnRole::Stack);
+        fw.colour = chartstyle::lossColour(index);
+        fw.values.assign(point.devices.size(), 0.0);
+        fw.values.push_back(point.freewheelDiode.loss_W);
+        d.columns.push_back(fw);
+    }
+    d.yTitles = {QObject::tr("Loss (W)")};
+    if (d.categories.isEmpty())
+        d.note = QObject::tr("No device results in %1.").arg(QString::fromStdString(point.name));
+    return d;
+}
+
+// --- sweeps ----------------------------------------------------------------------------------
+
+SweepPoint sweepPointFrom(const Design& copy, const Results& results, double x) {
+    (void)copy;
+    SweepPoint p;
+    p.x = x;
+    double motorEnergy = 0.0;
+    double busEnergy = 0.0;
+    for (std::size_t i = 0; i < results.operatingPoints.size(); ++i) {
+        const auto& op = results.operatingPoints[i];
+        if (!op.valid) {
+            p.maxJunction_C = p.efficiency = p.maxTotalLoss_W = kNaN;
+            p.problem = QObject::tr("%1 cannot be reached").arg(QString::fromStdString(op.name));
+            return p;
+        }
+        const double t = i < copy.dutyProfile.size() ? copy.dutyProfile[i].duration_s : 0.0;
+        motorEnergy += op.motorInputPower_W * t;
+        busEnergy += op.inputPower_W * t;
+    }
+    if (results.operatingPoints.empty()) {
+        p.maxJunction_C = p.efficiency = p.maxTotalLoss_W = kNaN;
+        p.problem = QObject::tr("no operating points");
+        return p;
+    }
+    p.maxJunction_C = results.maxJunction_C;
+    p.maxTotalLoss_W = results.maxTotalLoss_W;
+    p.efficiency = busEnergy > 1e-9 ? motorEnergy / busEnergy : kNaN;
+    return p;
+}
+
+ChartData sweepData(SweepKind kind, const Design& design, const std::vector<SweepPoint>& points) {
+    ChartData d;
+    const bool count = kind == SweepKind::DeviceCount;
+    d.id = count ? QStringLiteral("sweep-device-count") : QStringLiteral("sweep-pwm-frequency");
+    d.title = count ? QObject::tr("Against the number of switches") : QObject::tr("Against the PWM frequency");
+    d.subtitle = count ? QObject::tr("now %1").arg(design.bank.count)
+                       : QObject::tr("now %1 kHz").arg(QString::number(design.pwm.frequency_Hz / 1000.0, 'g', 4));
+    d.xName = count ? QObject::tr("Switches in parallel") : QObject::tr("PWM frequency");
+    d.xUnit = count ? QString() : QStringLiteral("Hz");
+    if (!count) {
+        d.xScale = 1000.0;
+        d.xShownUnit = QStringLiteral("kHz");
+        d.xLogarithmic = true;
+    }
+    d.marker = count ? static_cast<double>(design.bank.count) : design.pwm.frequency_Hz;
+    d.views = {QObject::tr("Hottest T_j"), QObject::tr("Efficiency"), QObject::tr("Loss")};
+    d.yTitles = {QObject::tr("Hottest junction (°C)"), QObject::tr("Efficiency over the profile (%)"),
+                 QObject::tr("Power-stage loss, highest point (W)")};
+    ChartColumn tj = column(QObject::tr("Hottest T_j"), QStringLiteral("°C"), ColumnRole::Line, 0);
+    ChartColumn limit = column(QStringLiteral("T_j,max"), QStringLiteral("°C"), ColumnRole::Limit, 0);
+    ChartColumn eff = column(QObject::tr("Efficiency"), QStringLiteral("%"), ColumnRole::Line, 1);
+    ChartColumn loss = column(QObject::tr("Power-stage loss"), QStringLiteral("W"), ColumnRole::Line, 2);
+    tj.colour = chartstyle::slate();
+    eff.colour = chartstyle::sage();
+    loss.colour = chartstyle::ochre();
+    for (const auto& p : points) {
+        d.x.push_back(p.x);
+        tj.values.push_back(p.maxJunction_C);
+        limit.values.push_back(design.bank.device.tjMax_C);
+        eff.values.push_back(p.efficiency * 100.0); // shown and written in per cent
+        loss.values.push_back(p.maxTotalLoss_W);
+    }
+    d.columns = {tj, limit, eff, loss};
+    if (points.empty())
+        d.note = QObject::tr("Not computed yet.");
+    return d;
+}
+
+// --- over the duty profile -------------------------------------------------------------------
+
+ChartData transientData(const Design& design, const Results* full) {
+    ChartData d;
+    d.id = QStringLiteral("profile-temperatures");
+    d.title = QObject::tr("Temperatures over the duty profile");
+    d.xName = QObject::tr("Time");
+    d.xUnit = QStringLiteral("s");
+    d.yTitles = {QObject::tr("Temperature (°C)")};
+    (void)design;
+    if (!full) {
+        d.note = QObject::tr("Not computed yet: the duty-profile run is on its way.");
+        return d;
+    }
+    d.note = QObject::tr("Not computed: this build's engine gives steady temperatures only, no duty-profile "
+                         "transient.");
+    return d;
+}
+
+// --- spread ----------------------------------------------------------------------------------
+
+ChartData spreadData(const Design& design, const Results* full) {
+    ChartData d;
+    d.id = QStringLiteral("spread-hottest-junction");
+    d.title = QObject::tr("Hottest junction across the spread of parts");
+    d.xName = QObject::tr("Hottest T_j");
+    d.yTitles = {QObject::tr("Samples")};
+    (void)design;
+    if (!full) {
+        d.note = QObject::tr("Not computed yet: the spread run is on its way.");
+        return d;
+    }
+    d.note = QObject::tr("Not computed: this build's engine does not run the bank's Monte Carlo spread.");
+    return d;
+}
+
+} // namespace amp::ui

@@ -1,0 +1,600 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "ui/chartpanel.h"
+
+#include "ui/chartstyle.h"
+
+#include <QAction>
+#include <QApplication>
+#include <QBarCategoryAxis>
+#include <QBarSet>
+#include <QButtonGroup>
+#include <QChart>
+#include <QChartView>
+#include <QClipboard>
+#include <QCursor>
+#include <QDir>
+#include <QFileDialog>
+#include <QHBoxLayout>
+#include <QLabel>
+#include <QLegendMarker>
+#include <QLineSeries>
+#include <QLogValueAxis>
+#include <QMessageBox>
+#include <QScatterSeries>
+#include <QStackedBarSeries>
+#include <QStackedWidget>
+#include <QStandardPaths>
+#include <QToolButton>
+#include <QToolTip>
+#include <QVBoxLayout>
+#include <QValueAxis>
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+namespace amp::ui {
+
+namespace {
+
+QString formatValue(double v, const QString& unit) {
+    if (!std::isfinite(v))
+        return QObject::tr("not computed");
+    const double a = std::abs(v);
+    const QString number = a >= 100.0 ? QString::number(v, 'f', 1)
+                           : a >= 1.0 ? QString::number(v, 'f', 2)
+                                      : QString::number(v, 'g', 3);
+    if (unit.isEmpty())
+        return number;
+    return unit == QLatin1String("%") ? number + QStringLiteral(" %") : number + QLatin1Char(' ') + unit;
+}
+
+/// A range with some air above and below, including `alsoShow` values when finite.
+std::pair<double, double> paddedRange(double lo, double hi, bool fromZero) {
+    if (!std::isfinite(lo) || !std::isfinite(hi))
+        return {0.0, 1.0};
+    if (fromZero)
+        lo = std::min(lo, 0.0);
+    double span = hi - lo;
+    if (span <= 1e-12)
+        span = std::max(std::abs(hi), 1.0) * 0.1;
+    const double top = hi + 0.08 * span;
+    const double bottom = fromZero && lo >= 0.0 ? 0.0 : lo - 0.08 * span;
+    return {bottom, top};
+}
+
+void hideLegendFor(QChart* chart, QAbstractSeries* series) {
+    for (QLegendMarker* m : chart->legend()->markers(series))
+        m->setVisible(false);
+}
+
+QPen linePen(ColumnRole role, const QColor& colour, double width = 2.0) {
+    QPen pen(colour, width);
+    if (role == ColumnRole::Limit) {
+        pen.setStyle(Qt::DashLine);
+        pen.setWidthF(1.6);
+    } else if (role == ColumnRole::Reference) {
+        pen.setStyle(Qt::DotLine);
+        pen.setWidthF(1.4);
+    }
+    pen.setCapStyle(Qt::FlatCap);
+    return pen;
+}
+
+QColor columnColour(const ChartColumn& c, int fallbackIndex) {
+    if (c.colour.isValid())
+        return c.colour;
+    if (c.role == ColumnRole::Limit)
+        return chartstyle::limit();
+    if (c.role == ColumnRole::Reference)
+        return chartstyle::reference();
+    const QColor cycle[] = {chartstyle::slate(), chartstyle::ochre(), chartstyle::sage(), chartstyle::heatsink()};
+    return cycle[fallbackIndex % 4];
+}
+
+} // namespace
+
+ChartPanel::ChartPanel(QWidget* parent) : QWidget(parent) {
+    auto* layout = new QVBoxLayout(this);
+    layout->setContentsMargins(0, 0, 0, 0);
+    layout->setSpacing(2);
+
+    auto* header = new QWidget(this);
+    auto* row = new QHBoxLayout(header);
+    row->setContentsMargins(6, 2, 4, 0);
+    row->setSpacing(8);
+    m_title = new QLabel(header);
+    QFont tf = m_title->font();
+    tf.setBold(true);
+    m_title->setFont(tf);
+    m_subtitle = new QLabel(header);
+    QPalette sp = m_subtitle->palette();
+    sp.setColor(QPalette::WindowText, chartstyle::reference().darker(130));
+    m_subtitle->setPalette(sp);
+    m_readout = new QLabel(header);
+    m_readout->setObjectName(QStringLiteral("chartReadout"));
+    m_readout->setAlignment(Qt::AlignRight | Qt::AlignVCenter);
+    m_readout->setMinimumWidth(40);
+    m_readout->setSizePolicy(QSizePolicy::Ignored, QSizePolicy::Preferred);
+    QPalette rp = m_readout->palette();
+    rp.setColor(QPalette::WindowText, chartstyle::slate());
+    m_readout->setPalette(rp);
+    m_viewButtons = new QWidget(header);
+    auto* viewRow = new QHBoxLayout(m_viewButtons);
+    viewRow->setContentsMargins(0, 0, 0, 0);
+    viewRow->setSpacing(0);
+    m_viewGroup = new QButtonGroup(this);
+    m_viewGroup->setExclusive(true);
+    connect(m_viewGroup, &QButtonGroup::idClicked, this, &ChartPanel::setCurrentView);
+
+    auto* png = new QToolButton(header);
+    png->setObjectName(QStringLiteral("exportPng"));
+    png->setText(tr("Picture…"));
+    png->setToolTip(tr("Save this chart as a PNG picture"));
+    png->setAutoRaise(true);
+    connect(png, &QToolButton::clicked, this, &ChartPanel::choosePngFile);
+    auto* csv = new QToolButton(header);
+    csv->setObjectName(QStringLiteral("exportCsv"));
+    csv->setText(tr("Numbers…"));
+    csv->setToolTip(tr("Save the numbers behind this chart as CSV (SI units, one row per bar or sample)"));
+    csv->setAutoRaise(true);
+    connect(csv, &QToolButton::clicked, this, &ChartPanel::chooseCsvFile);
+
+    row->addWidget(m_title);
+    row->addWidget(m_subtitle);
+    row->addWidget(m_viewButtons);
+    row->addWidget(m_readout, 1);
+    row->addWidget(png);
+    row->addWidget(csv);
+    layout->addWidget(header);
+
+    m_stack = new QStackedWidget(this);
+    m_view = new QChartView(m_stack);
+    m_view->setRenderHint(QPainter::Antialiasing);
+    m_view->setFrameShape(QFrame::NoFrame);
+    m_view->setMinimumHeight(170);
+    m_view->setContextMenuPolicy(Qt::ActionsContextMenu);
+    auto* savePicture = new QAction(tr("Save picture as PNG…"), m_view);
+    connect(savePicture, &QAction::triggered, this, &ChartPanel::choosePngFile);
+    auto* saveNumbers = new QAction(tr("Save numbers as CSV…"), m_view);
+    connect(saveNumbers, &QAction::triggered, this, &ChartPanel::chooseCsvFile);
+    auto* copyNumbers = new QAction(tr("Copy numbers"), m_view);
+    connect(copyNumbers, &QAction::triggered, this, [this] { QApplication::clipboard()->setText(csvText(m_data)); });
+    m_view->addActions({savePicture, saveNumbers, copyNumbers});
+    m_note = new QLabel(m_stack);
+    m_note->setObjectName(QStringLiteral("chartNote"));
+    m_note->setWordWrap(true);
+    m_note->setAlignment(Qt::AlignCenter);
+    m_note->setMargin(16);
+    m_note->setAutoFillBackground(true);
+    QPalette np = m_note->palette();
+    np.setColor(QPalette::Window, chartstyle::paper());
+    np.setColor(QPalette::WindowText, chartstyle::reference().darker(140));
+    m_note->setPalette(np);
+    m_stack->addWidget(m_view);
+    m_stack->addWidget(m_note);
+    layout->addWidget(m_stack, 1);
+
+    m_note->setText(tr("Not computed yet."));
+    m_stack->setCurrentWidget(m_note);
+}
+
+ChartPanel::~ChartPanel() = default;
+
+void ChartPanel::setData(ChartData data) {
+    const bool sameViews = data.views == m_data.views;
+    m_data = std::move(data);
+    if (!sameViews) {
+        for (QAbstractButton* b : m_viewGroup->buttons()) {
+            m_viewGroup->removeButton(b);
+            delete b;
+        }
+        for (int i = 0; i < m_data.views.size(); ++i) {
+            auto* b = new QToolButton(m_viewButtons);
+            b->setText(m_data.views[i]);
+            b->setCheckable(true);
+            b->setAutoRaise(true);
+            m_viewGroup->addButton(b, i);
+            m_viewButtons->layout()->addWidget(b);
+        }
+        m_viewIndex = std::clamp(m_viewIndex, 0, std::max(0, static_cast<int>(m_data.views.size()) - 1));
+        if (auto* b = m_viewGroup->button(m_viewIndex))
+            b->setChecked(true);
+    }
+    m_viewButtons->setVisible(m_data.views.size() > 1);
+    updateHeader();
+    m_dirty = true;
+    if (isVisible())
+        rebuild();
+}
+
+void ChartPanel::setCurrentView(int view) {
+    if (view < 0 || (view >= m_data.views.size() && view != 0) || view == m_viewIndex)
+        return;
+    m_viewIndex = view;
+    if (auto* b = m_viewGroup->button(view))
+        b->setChecked(true);
+    updateHeader();
+    m_dirty = true;
+    if (isVisible())
+        rebuild();
+    emit viewChanged(view);
+}
+
+void ChartPanel::updateHeader() {
+    m_title->setText(m_data.title);
+    m_subtitle->setText(m_data.subtitle);
+    m_readout->clear();
+}
+
+QChart* ChartPanel::chart() {
+    if (m_dirty)
+        rebuild();
+    return m_view->chart();
+}
+
+bool ChartPanel::showsNote() const { return m_stack->currentWidget() == m_note; }
+
+QString ChartPanel::noteText() const { return showsNote() ? m_note->text() : QString(); }
+
+void ChartPanel::showEvent(QShowEvent* event) {
+    QWidget::showEvent(event);
+    if (m_dirty)
+        rebuild();
+}
+
+void ChartPanel::rebuild() {
+    m_dirty = false;
+    if (!m_data.drawable()) {
+        m_note->setText(m_data.note.isEmpty() ? tr("Nothing to draw.") : m_data.note);
+        m_stack->setCurrentWidget(m_note);
+        return;
+    }
+    auto* chart = new QChart;
+    chartstyle::styleChart(chart);
+    const std::vector<int> shown = m_data.columnsOf(m_viewIndex);
+    if (m_data.isCategorical())
+        buildCategorical(chart, shown);
+    else
+        buildNumeric(chart, shown);
+    QChart* old = m_view->chart();
+    m_view->setChart(chart);
+    delete old; // setChart() hands the previous chart back to us
+    m_stack->setCurrentWidget(m_view);
+}
+
+void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) {
+    const int rows = m_data.rowCount();
+    auto* xAxis = new QBarCategoryAxis;
+    xAxis->append(m_data.categories);
+    xAxis->setTitleText(m_data.xName);
+    auto* yAxis = new QValueAxis;
+    const int view = std::min<int>(m_viewIndex, static_cast<int>(m_data.yTitles.size()) - 1);
+    if (view >= 0)
+        yAxis->setTitleText(m_data.yTitles[static_cast<std::size_t>(view)]);
+    chart->addAxis(xAxis, Qt::AlignBottom);
+    chart->addAxis(yAxis, Qt::AlignLeft);
+    chartstyle::styleAxis(xAxis);
+    chartstyle::styleAxis(yAxis);
+    xAxis->setGridLineVisible(false);
+
+    double hi = -std::numeric_limits<double>::infinity();
+    double lo = std::numeric_limits<double>::infinity();
+    std::vector<double> stackTop(static_cast<std::size_t>(rows), 0.0);
+    auto value = [](const ChartColumn& c, int row) {
+        const double v = static_cast<std::size_t>(row) < c.values.size() ? c.values[static_cast<std::size_t>(row)]
+                                                                         : std::nan("");
+        return v;
+    };
+
+    // Stacked layers: one set per quantity, in one series. Layers that are zero everywhere are
+    // left out of the drawing (and the legend); the CSV keeps them.
+    QStackedBarSeries* stack = nullptr;
+    int colourIndex = 0;
+    for (int ci : shown) {
+        const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
+        if (c.role != ColumnRole::Stack)
+            continue;
+        bool any = false;
+        for (int r = 0; r < rows; ++r)
+            any = any || (std::isfinite(value(c, r)) && std::abs(value(c, r)) > 0.0);
+        if (!any)
+            continue;
+        if (!stack)
+            stack = new QStackedBarSeries;
+        auto* set = new QBarSet(c.name);
+        const QColor colour = columnColour(c, colourIndex++);
+        set->setColor(colour);
+        set->setBorderColor(chartstyle::plotArea());
+        for (int r = 0; r < rows; ++r) {
+            const double v = std::isfinite(value(c, r)) ? value(c, r) : 0.0;
+            set->append(v);
+            stackTop[static_cast<std::size_t>(r)] += v;
+        }
+        connect(set, &QBarSet::hovered, this, [this](bool on, int index) {
+            if (on)
+                showReadout(index);
+        });
+        stack->append(set);
+    }
+    if (stack) {
+        stack->setBarWidth(0.62);
+        chart->addSeries(stack);
+        stack->attachAxis(xAxis);
+        stack->attachAxis(yAxis);
+        for (double t : stackTop) {
+            hi = std::max(hi, t);
+            lo = std::min(lo, t);
+        }
+    }
+
+    // Bars with a colour of their own per row: one set per row, each holding only its own bar,
+    // stacked so that every bar keeps the full width.
+    for (int ci : shown) {
+        const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
+        if (c.role != ColumnRole::Bar)
+            continue;
+        auto* series = new QStackedBarSeries;
+        series->setBarWidth(0.62);
+        for (int r = 0; r < rows; ++r) {
+            auto* set = new QBarSet(c.name);
+            const QColor colour = static_cast<std::size_t>(r) < c.rowColours.size() ? c.rowColours[static_cast<std::size_t>(r)]
+                                                                                     : columnColour(c, colourIndex);
+            set->setColor(colour);
+            set->setBorderColor(colour.darker(118));
+            for (int k = 0; k < rows; ++k)
+                set->append(k == r && std::isfinite(value(c, r)) ? value(c, r) : 0.0);
+            connect(set, &QBarSet::hovered, this, [this, r](bool on, int) {
+                if (on)
+                    showReadout(r);
+            });
+            series->append(set);
+            const double v = value(c, r);
+            if (std::isfinite(v)) {
+                hi = std::max(hi, v);
+                lo = std::min(lo, v);
+            }
+        }
+        ++colourIndex;
+        chart->addSeries(series);
+        series->attachAxis(xAxis);
+        series->attachAxis(yAxis);
+        hideLegendFor(chart, series);
+    }
+
+    // Limits and references: a level across each bar's slot (steps where they differ).
+    for (int ci : shown) {
+        const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
+        if (c.role != ColumnRole::Limit && c.role != ColumnRole::Reference)
+            continue;
+        auto* line = new QLineSeries;
+        line->setName(c.name);
+        line->setPen(linePen(c.role, columnColour(c, 0)));
+        for (int r = 0; r < rows; ++r) {
+            const double v = value(c, r);
+            if (!std::isfinite(v))
+                continue;
+            line->append(r - 0.5, v);
+            line->append(r + 0.5, v);
+            hi = std::max(hi, v);
+            lo = std::min(lo, v);
+        }
+        chart->addSeries(line);
+        line->attachAxis(xAxis);
+        line->attachAxis(yAxis);
+    }
+    const auto [bottom, top] = paddedRange(lo, hi, true);
+    yAxis->setRange(bottom, top);
+    yAxis->applyNiceNumbers();
+    xAxis->setRange(m_data.categories.first(), m_data.categories.last());
+    chart->legend()->setVisible(true);
+}
+
+void ChartPanel::buildNumeric(QChart* chart, const std::vector<int>& shown) {
+    const int rows = m_data.rowCount();
+    QAbstractAxis* xAxis = nullptr;
+    const QString xUnit = m_data.xShownUnit.isEmpty() ? m_data.xUnit : m_data.xShownUnit;
+    const QString xTitle = xUnit.isEmpty() ? m_data.xName : QStringLiteral("%1 (%2)").arg(m_data.xName, xUnit);
+    double xmin = std::numeric_limits<double>::infinity();
+    double xmax = -std::numeric_limits<double>::infinity();
+    for (double x : m_data.x) {
+        xmin = std::min(xmin, x / m_data.xScale);
+        xmax = std::max(xmax, x / m_data.xScale);
+    }
+    if (m_data.xLogarithmic && xmin > 0.0) {
+        auto* axis = new QLogValueAxis;
+        axis->setBase(10.0);
+        axis->setLabelFormat(QStringLiteral("%g"));
+        axis->setMinorTickCount(8);
+        axis->setRange(xmin / 1.12, xmax * 1.12);
+        xAxis = axis;
+    } else {
+        auto* axis = new QValueAxis;
+        const bool whole = std::all_of(m_data.x.begin(), m_data.x.end(), [](double x) { return x == std::round(x); });
+        if (whole && rows <= 20 && m_data.xScale == 1.0) {
+            axis->setRange(xmin - 0.5, xmax + 0.5);
+            axis->setTickType(QValueAxis::TicksDynamic);
+            axis->setTickAnchor(0.0);
+            axis->setTickInterval(rows > 10 ? 2.0 : 1.0);
+            axis->setLabelFormat(QStringLiteral("%d"));
+        } else {
+            axis->setRange(xmin, xmax);
+            axis->applyNiceNumbers();
+        }
+        xAxis = axis;
+    }
+    xAxis->setTitleText(xTitle);
+    auto* yAxis = new QValueAxis;
+    const int view = std::min<int>(m_viewIndex, static_cast<int>(m_data.yTitles.size()) - 1);
+    if (view >= 0)
+        yAxis->setTitleText(m_data.yTitles[static_cast<std::size_t>(view)]);
+    chart->addAxis(xAxis, Qt::AlignBottom);
+    chart->addAxis(yAxis, Qt::AlignLeft);
+    chartstyle::styleAxis(xAxis);
+    chartstyle::styleAxis(yAxis);
+
+    double hi = -std::numeric_limits<double>::infinity();
+    double lo = std::numeric_limits<double>::infinity();
+    const bool dots = rows <= 40;
+    int colourIndex = 0;
+    std::vector<QLineSeries*> hoverable;
+    for (int ci : shown) {
+        const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
+        auto* line = new QLineSeries;
+        line->setName(c.name);
+        const QColor colour = columnColour(c, colourIndex);
+        if (c.role == ColumnRole::Line)
+            ++colourIndex;
+        line->setPen(linePen(c.role, colour, rows > 200 ? 1.6 : 2.0));
+        for (int r = 0; r < rows; ++r) {
+            const double v = static_cast<std::size_t>(r) < c.values.size() ? c.values[static_cast<std::size_t>(r)] : std::nan("");
+            if (!std::isfinite(v))
+                continue;
+            line->append(m_data.x[static_cast<std::size_t>(r)] / m_data.xScale, v);
+            hi = std::max(hi, v);
+            lo = std::min(lo, v);
+        }
+        if (c.role == ColumnRole::Line) {
+            line->setPointsVisible(dots);
+            hoverable.push_back(line);
+        }
+        chart->addSeries(line);
+        line->attachAxis(xAxis);
+        line->attachAxis(yAxis);
+    }
+    if (!std::isfinite(hi)) {
+        hi = 1.0;
+        lo = 0.0;
+    }
+    const auto [bottom, top] = paddedRange(lo, hi, false);
+    yAxis->setRange(bottom, top);
+    yAxis->applyNiceNumbers();
+
+    // The design as it stands: a ring on each line at its x.
+    if (m_data.marker) {
+        const double mx = *m_data.marker / m_data.xScale;
+        auto* ring = new QScatterSeries;
+        ring->setName(tr("This design"));
+        ring->setMarkerShape(QScatterSeries::MarkerShapeCircle);
+        ring->setMarkerSize(13.0);
+        ring->setColor(Qt::transparent);
+        ring->setBorderColor(chartstyle::ink());
+        QPen pen(chartstyle::ink(), 2.0);
+        ring->setPen(pen);
+        for (int ci : shown) {
+            const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
+            if (c.role != ColumnRole::Line)
+                continue;
+            for (int r = 0; r < rows; ++r)
+                if (std::abs(m_data.x[static_cast<std::size_t>(r)] / m_data.xScale - mx) <= 1e-9 * std::max(1.0, std::abs(mx)) &&
+                    std::isfinite(c.values[static_cast<std::size_t>(r)]))
+                    ring->append(mx, c.values[static_cast<std::size_t>(r)]);
+        }
+        chart->addSeries(ring);
+        ring->attachAxis(xAxis);
+        ring->attachAxis(yAxis);
+    }
+
+    for (QLineSeries* line : hoverable) {
+        connect(line, &QLineSeries::hovered, this, [this](const QPointF& p, bool on) {
+            if (!on || m_data.x.empty())
+                return;
+            // The nearest sample in x (on a log axis, nearest in log x).
+            int best = 0;
+            double bestDistance = std::numeric_limits<double>::infinity();
+            for (std::size_t i = 0; i < m_data.x.size(); ++i) {
+                const double x = m_data.x[i] / m_data.xScale;
+                const double d = m_data.xLogarithmic && x > 0.0 && p.x() > 0.0 ? std::abs(std::log(x / p.x()))
+                                                                                  : std::abs(x - p.x());
+                if (d < bestDistance) {
+                    bestDistance = d;
+                    best = static_cast<int>(i);
+                }
+            }
+            showReadout(best);
+        });
+    }
+    // Many lines (one per device over time) would crowd the legend: keep the first few.
+    chart->legend()->setVisible(true);
+    const auto markers = chart->legend()->markers();
+    if (markers.size() > 8)
+        for (int i = 0; i < markers.size(); ++i)
+            if (i >= 3 && i < markers.size() - 3)
+                markers[i]->setVisible(false);
+}
+
+QString ChartPanel::readout(int row) const {
+    if (row < 0 || row >= m_data.rowCount())
+        return {};
+    QStringList parts;
+    double stackSum = 0.0;
+    bool stacked = false;
+    for (int ci : m_data.columnsOf(m_viewIndex)) {
+        const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
+        const double v = static_cast<std::size_t>(row) < c.values.size() ? c.values[static_cast<std::size_t>(row)] : std::nan("");
+        if (c.role == ColumnRole::Stack) {
+            stacked = true;
+            if (!std::isfinite(v) || v == 0.0)
+                continue; // a layer this bar does not have
+            stackSum += v;
+        }
+        parts << QStringLiteral("%1 %2").arg(c.name, formatValue(v, c.unit));
+    }
+    if (stacked)
+        parts.prepend(tr("total %1").arg(formatValue(stackSum, QStringLiteral("W"))));
+    return QStringLiteral("%1: %2").arg(m_data.rowLabel(row), parts.join(QStringLiteral(" · ")));
+}
+
+QString ChartPanel::currentReadout() const { return m_readout->text(); }
+
+void ChartPanel::showReadout(int row) {
+    const QString text = readout(row);
+    m_readout->setText(text);
+    QToolTip::showText(QCursor::pos(), text, m_view);
+}
+
+QString ChartPanel::exportPng(const QString& path) {
+    if (m_dirty)
+        rebuild();
+    QWidget* target = showsNote() ? static_cast<QWidget*>(m_note) : static_cast<QWidget*>(m_view);
+    QSize size = target->size();
+    if (!isVisible() || size.width() < 50 || size.height() < 50) {
+        // Not on screen (or squeezed): draw at a sensible size so the file is still useful.
+        size = QSize(900, 420);
+        target->resize(size);
+    }
+    const QPixmap picture = target->grab();
+    if (picture.isNull())
+        return tr("the chart could not be drawn");
+    if (!picture.save(path, "PNG"))
+        return tr("%1 could not be written").arg(QDir::toNativeSeparators(path));
+    return {};
+}
+
+QString ChartPanel::exportCsv(const QString& path) const { return writeCsv(m_data, path); }
+
+QString ChartPanel::suggestedPath(const QString& suffix) const {
+    const QString dir = QStandardPaths::writableLocation(QStandardPaths::DocumentsLocation);
+    const QString stem = m_data.id.isEmpty() ? QStringLiteral("chart") : m_data.id;
+    return QDir(dir).absoluteFilePath(stem + suffix);
+}
+
+void ChartPanel::choosePngFile() {
+    const QString path = QFileDialog::getSaveFileName(this, tr("Save the chart as a picture"),
+                                                      suggestedPath(QStringLiteral(".png")), tr("PNG pictures (*.png)"));
+    if (path.isEmpty())
+        return;
+    if (const QString error = exportPng(path); !error.isEmpty())
+        QMessageBox::warning(this, tr("Not saved"), error);
+}
+
+void ChartPanel::chooseCsvFile() {
+    const QString path = QFileDialog::getSaveFileName(this, tr("Save the numbers of the chart"),
+                                                      suggestedPath(QStringLiteral(".csv")), tr("CSV tables (*.csv)"));
+    if (path.isEmpty())
+        return;
+    if (const QString error = exportCsv(path); !error.isEmpty())
+        QMessageBox::warning(this, tr("Not saved"), error);
+}
+
+} // namespace amp::ui
