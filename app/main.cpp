@@ -65,6 +65,8 @@ int main(int argc, char** argv) {
     }
 #ifdef AMPWRIGHT_WITH_UI
     QApplication app(argc, argv);
+    // Lets desktops match the window to the installed desktop entry and its icon.
+    QGuiApplication::setDesktopFileName("ampwright");
     amp::app::setupLogging(false, verbose);
     return amp::ui::runWorkbench(app, file);
 #else

@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # SPDX-License-Identifier: GPL-3.0-or-later
 # One-step set-up for a fresh Debian 12 machine: install the build dependencies (only those
-# missing), configure and build, then run the workbench on the demo ("run") or every test ("test").
+# missing), configure and build, then run the workbench on the demo ("run"), every test ("test"),
+# or make the Debian package in the build folder ("package").
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -12,7 +13,7 @@ jobs="${AMPWRIGHT_JOBS:-$(nproc 2>/dev/null || echo 2)}"
 packages=(cmake ninja-build g++ ccache pkg-config
           qt6-base-dev qt6-charts-dev libqt6opengl6-dev libgl-dev
           nlohmann-json3-dev libspdlog-dev libeigen3-dev libboost-dev
-          xvfb xauth fonts-dejavu-core poppler-utils)
+          xvfb xauth fonts-dejavu-core poppler-utils librsvg2-bin)
 
 install_dependencies() {
     local missing=()
@@ -49,8 +50,16 @@ case "$mode" in
         build
         ctest --test-dir "$build_dir" --output-on-failure -j "$jobs"
         ;;
+    package)
+        packages+=(dpkg-dev) # dpkg-shlibdeps computes the package's dependencies
+        install_dependencies
+        build
+        rm -f "$build_dir"/ampwright_*.deb
+        (cd "$build_dir" && cpack -G DEB)
+        echo "Debian package: $(ls "$build_dir"/ampwright_*.deb)"
+        ;;
     *)
-        echo "usage: packaging/setup.sh run|test" >&2
+        echo "usage: packaging/setup.sh run|test|package" >&2
         exit 2
         ;;
 esac

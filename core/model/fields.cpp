@@ -1149,15 +1149,73 @@ std::vector<Problem> convertUnitStrings(nlohmann::json& object, std::string_view
     return out;
 }
 
+namespace {
+
+// The value a field takes when a file omits it: read from a default-constructed design whose
+// lists hold one default item each, so that "dutyProfile[].duration_s" has a default too.
+std::string defaultOf(const nlohmann::json& defaults, const FieldSpec& f) {
+    if (f.type == FieldSpec::Type::List)
+        return "empty"; // every list of a default design is empty
+    const nlohmann::json* node = &defaults;
+    std::string path = f.path;
+    std::size_t at = 0;
+    while (at <= path.size()) {
+        const auto end = path.find('.', at);
+        std::string key = path.substr(at, end == std::string::npos ? std::string::npos : end - at);
+        const bool item = key.size() > 2 && key.compare(key.size() - 2, 2, "[]") == 0;
+        if (item)
+            key.resize(key.size() - 2);
+        if (!node->is_object() || !node->contains(key))
+            return {};
+        node = &(*node)[key];
+        if (item) {
+            if (!node->is_array() || node->empty())
+                return f.type == FieldSpec::Type::List ? "empty" : "";
+            node = &(*node)[0];
+        }
+        if (end == std::string::npos)
+            break;
+        at = end + 1;
+    }
+    if (node->is_number())
+        return f.type == FieldSpec::Type::Integer ? std::to_string(node->get<long long>())
+                                                  : units::format(node->get<double>(), f.unit, 4);
+    if (node->is_boolean())
+        return node->get<bool>() ? "yes" : "no";
+    if (node->is_string())
+        return node->get<std::string>().empty() ? "(empty)" : node->get<std::string>();
+    if (node->is_array())
+        return node->empty() ? "empty" : std::to_string(node->size()) + " items";
+    return {};
+}
+
+nlohmann::json defaultDesignJson() {
+    Design d;
+    d.dutyProfile.emplace_back();
+    d.bank.devices.emplace_back();
+    d.motor.magnetisation.emplace_back();
+    for (SwitchPart* part : {&d.bank.device}) {
+        part->soa.emplace_back();
+        part->zthJc.emplace_back();
+        part->mosfet.rdsOnTable.emplace_back();
+    }
+    d.bank.freewheelDiode.zthJc.emplace_back();
+    return d;
+}
+
+} // namespace
+
 std::string fieldsMarkdown() {
+    const nlohmann::json defaults = defaultDesignJson();
     std::ostringstream md;
-    md << "| Field | Unit | Allowed | Meaning |\n|---|---|---|---|\n";
+    md << "| Field | Unit | Allowed | Default | Meaning |\n|---|---|---|---|---|\n";
     for (const auto& f : designFields()) {
         std::string unit(units::symbol(f.unit));
         if (f.type != Type::Number && f.type != Type::Integer)
             unit.clear();
         md << "| `" << f.path << "` | " << markdownEscape(unit) << " | " << markdownEscape(describeRange(f))
-           << " | " << markdownEscape(f.label + ". " + f.help) << " |\n";
+           << " | " << markdownEscape(defaultOf(defaults, f)) << " | " << markdownEscape(f.label + ". " + f.help)
+           << " |\n";
     }
     return md.str();
 }
