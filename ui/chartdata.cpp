@@ -274,15 +274,12 @@ ChartData sweepData(SweepKind kind, const Design& design, const std::vector<Swee
     ChartData d;
     const bool count = kind == SweepKind::DeviceCount;
     d.id = count ? QStringLiteral("sweep-device-count") : QStringLiteral("sweep-pwm-frequency");
-    d.title = count ? QObject::tr("Against the number of switches") : QObject::tr("Against the PWM frequency");
-    d.subtitle = count ? QObject::tr("now %1").arg(design.bank.count)
-                       : QObject::tr("now %1 kHz").arg(QString::number(design.pwm.frequency_Hz / 1000.0, 'g', 4));
+    d.title = count ? QObject::tr("Against switch count") : QObject::tr("Against PWM frequency");
     d.xName = count ? QObject::tr("Switches in parallel") : QObject::tr("PWM frequency");
     d.xUnit = count ? QString() : QStringLiteral("Hz");
     if (!count) {
         d.xScale = 1000.0;
         d.xShownUnit = QStringLiteral("kHz");
-        d.xLogarithmic = true;
     }
     d.marker = count ? static_cast<double>(design.bank.count) : design.pwm.frequency_Hz;
     d.views = {QObject::tr("Hottest T_j"), QObject::tr("Efficiency"), QObject::tr("Loss")};

@@ -7,7 +7,7 @@
 #include <QApplication>
 #include <QBarCategoryAxis>
 #include <QBarSet>
-#include <QButtonGroup>
+#include <QComboBox>
 #include <QChart>
 #include <QChartView>
 #include <QClipboard>
@@ -111,41 +111,34 @@ ChartPanel::ChartPanel(QWidget* parent) : QWidget(parent) {
     QPalette sp = m_subtitle->palette();
     sp.setColor(QPalette::WindowText, chartstyle::reference().darker(130));
     m_subtitle->setPalette(sp);
-    m_readout = new QLabel(header);
-    m_readout->setObjectName(QStringLiteral("chartReadout"));
-    m_readout->setAlignment(Qt::AlignRight | Qt::AlignVCenter);
-    m_readout->setMinimumWidth(40);
-    m_readout->setSizePolicy(QSizePolicy::Ignored, QSizePolicy::Preferred);
-    QPalette rp = m_readout->palette();
-    rp.setColor(QPalette::WindowText, chartstyle::slate());
-    m_readout->setPalette(rp);
-    m_viewButtons = new QWidget(header);
-    auto* viewRow = new QHBoxLayout(m_viewButtons);
-    viewRow->setContentsMargins(0, 0, 0, 0);
-    viewRow->setSpacing(0);
-    m_viewGroup = new QButtonGroup(this);
-    m_viewGroup->setExclusive(true);
-    connect(m_viewGroup, &QButtonGroup::idClicked, this, &ChartPanel::setCurrentView);
+    // The subtitle gives way when the panel is narrow (it is repeated in the exports' file names
+    // and the CSV), and carries the hover read-out.
+    m_subtitle->setSizePolicy(QSizePolicy::Ignored, QSizePolicy::Preferred);
+    m_subtitle->setMinimumWidth(20);
+    m_viewChoice = new QComboBox(header);
+    m_viewChoice->setObjectName(QStringLiteral("chartView"));
+    m_viewChoice->setSizeAdjustPolicy(QComboBox::AdjustToContents);
+    m_viewChoice->hide();
+    connect(m_viewChoice, &QComboBox::activated, this, &ChartPanel::setCurrentView);
 
-    auto* png = new QToolButton(header);
-    png->setObjectName(QStringLiteral("exportPng"));
-    png->setText(tr("Picture…"));
-    png->setToolTip(tr("Save this chart as a PNG picture"));
-    png->setAutoRaise(true);
-    connect(png, &QToolButton::clicked, this, &ChartPanel::choosePngFile);
-    auto* csv = new QToolButton(header);
-    csv->setObjectName(QStringLiteral("exportCsv"));
-    csv->setText(tr("Numbers…"));
-    csv->setToolTip(tr("Save the numbers behind this chart as CSV (SI units, one row per bar or sample)"));
-    csv->setAutoRaise(true);
-    connect(csv, &QToolButton::clicked, this, &ChartPanel::chooseCsvFile);
+    m_pngButton = new QToolButton(header);
+    m_pngButton->setObjectName(QStringLiteral("exportPng"));
+    m_pngButton->setText(tr("PNG…"));
+    m_pngButton->setToolTip(tr("Save this chart as a picture (PNG)"));
+    m_pngButton->setAutoRaise(true);
+    connect(m_pngButton, &QToolButton::clicked, this, &ChartPanel::choosePngFile);
+    m_csvButton = new QToolButton(header);
+    m_csvButton->setObjectName(QStringLiteral("exportCsv"));
+    m_csvButton->setText(tr("CSV…"));
+    m_csvButton->setToolTip(tr("Save the numbers behind this chart as CSV (one row per bar or sample)"));
+    m_csvButton->setAutoRaise(true);
+    connect(m_csvButton, &QToolButton::clicked, this, &ChartPanel::chooseCsvFile);
 
     row->addWidget(m_title);
-    row->addWidget(m_subtitle);
-    row->addWidget(m_viewButtons);
-    row->addWidget(m_readout, 1);
-    row->addWidget(png);
-    row->addWidget(csv);
+    row->addWidget(m_subtitle, 1);
+    row->addWidget(m_viewChoice);
+    row->addWidget(m_pngButton);
+    row->addWidget(m_csvButton);
     layout->addWidget(header);
 
     m_stack = new QStackedWidget(this);
@@ -185,23 +178,13 @@ void ChartPanel::setData(ChartData data) {
     const bool sameViews = data.views == m_data.views;
     m_data = std::move(data);
     if (!sameViews) {
-        for (QAbstractButton* b : m_viewGroup->buttons()) {
-            m_viewGroup->removeButton(b);
-            delete b;
-        }
-        for (int i = 0; i < m_data.views.size(); ++i) {
-            auto* b = new QToolButton(m_viewButtons);
-            b->setText(m_data.views[i]);
-            b->setCheckable(true);
-            b->setAutoRaise(true);
-            m_viewGroup->addButton(b, i);
-            m_viewButtons->layout()->addWidget(b);
-        }
+        const QSignalBlocker block(m_viewChoice);
+        m_viewChoice->clear();
+        m_viewChoice->addItems(m_data.views);
         m_viewIndex = std::clamp(m_viewIndex, 0, std::max(0, static_cast<int>(m_data.views.size()) - 1));
-        if (auto* b = m_viewGroup->button(m_viewIndex))
-            b->setChecked(true);
+        m_viewChoice->setCurrentIndex(m_viewIndex);
     }
-    m_viewButtons->setVisible(m_data.views.size() > 1);
+    m_viewChoice->setVisible(m_data.views.size() > 1);
     updateHeader();
     m_dirty = true;
     if (isVisible())
@@ -212,8 +195,10 @@ void ChartPanel::setCurrentView(int view) {
     if (view < 0 || (view >= m_data.views.size() && view != 0) || view == m_viewIndex)
         return;
     m_viewIndex = view;
-    if (auto* b = m_viewGroup->button(view))
-        b->setChecked(true);
+    {
+        const QSignalBlocker block(m_viewChoice);
+        m_viewChoice->setCurrentIndex(view);
+    }
     updateHeader();
     m_dirty = true;
     if (isVisible())
@@ -223,8 +208,12 @@ void ChartPanel::setCurrentView(int view) {
 
 void ChartPanel::updateHeader() {
     m_title->setText(m_data.title);
+    m_readout.clear();
     m_subtitle->setText(m_data.subtitle);
-    m_readout->clear();
+    m_subtitle->setToolTip(m_data.subtitle);
+    const bool drawable = m_data.drawable();
+    m_pngButton->setEnabled(drawable);
+    m_csvButton->setEnabled(drawable);
 }
 
 QChart* ChartPanel::chart() {
@@ -250,17 +239,61 @@ void ChartPanel::rebuild() {
         m_stack->setCurrentWidget(m_note);
         return;
     }
+    // Same shape as drawn (rows, columns, view): new values into the series in place, which is
+    // an order of magnitude quicker than a new chart and keeps edits within a frame.
+    const QString key = structureKey();
+    if (m_view->chart() && key == m_bound.key) {
+        fill();
+        m_stack->setCurrentWidget(m_view);
+        return;
+    }
     auto* chart = new QChart;
     chartstyle::styleChart(chart);
+    m_bound = Bound{};
+    m_bound.key = key;
     const std::vector<int> shown = m_data.columnsOf(m_viewIndex);
     if (m_data.isCategorical())
         buildCategorical(chart, shown);
     else
         buildNumeric(chart, shown);
+    fill();
     QChart* old = m_view->chart();
     m_view->setChart(chart);
     delete old; // setChart() hands the previous chart back to us
     m_stack->setCurrentWidget(m_view);
+}
+
+double ChartPanel::valueAt(const ChartColumn& c, int row) {
+    return row >= 0 && static_cast<std::size_t>(row) < c.values.size() ? c.values[static_cast<std::size_t>(row)]
+                                                                        : std::numeric_limits<double>::quiet_NaN();
+}
+
+bool ChartPanel::drawnLayer(const ChartColumn& c) const {
+    for (int r = 0; r < m_data.rowCount(); ++r)
+        if (std::isfinite(valueAt(c, r)) && valueAt(c, r) != 0.0)
+            return true;
+    return false;
+}
+
+bool ChartPanel::wholeX() const {
+    return m_data.xScale == 1.0 && m_data.rowCount() <= 20 &&
+           std::all_of(m_data.x.begin(), m_data.x.end(), [](double x) { return x == std::round(x); });
+}
+
+QString ChartPanel::structureKey() const {
+    QStringList k;
+    k << (m_data.isCategorical() ? QStringLiteral("bars") : QStringLiteral("lines")) << m_data.categories.join('|')
+      << QString::number(m_data.rowCount()) << QString::number(m_viewIndex) << m_data.xName
+      << QString::number(m_data.xScale) << (m_data.xLogarithmic ? QStringLiteral("log") : QString())
+      << (m_data.marker ? QStringLiteral("marker") : QString()) << (wholeX() ? QStringLiteral("whole") : QString());
+    for (const QString& t : m_data.yTitles)
+        k << t;
+    for (int ci : m_data.columnsOf(m_viewIndex)) {
+        const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
+        k << c.name + QLatin1Char('/') + QString::number(static_cast<int>(c.role)) +
+                 (c.role == ColumnRole::Stack && drawnLayer(c) ? QStringLiteral("/drawn") : QString());
+    }
+    return k.join(QChar(0x1f));
 }
 
 void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) {
@@ -277,15 +310,11 @@ void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) 
     chartstyle::styleAxis(xAxis);
     chartstyle::styleAxis(yAxis);
     xAxis->setGridLineVisible(false);
-
-    double hi = -std::numeric_limits<double>::infinity();
-    double lo = std::numeric_limits<double>::infinity();
-    std::vector<double> stackTop(static_cast<std::size_t>(rows), 0.0);
-    auto value = [](const ChartColumn& c, int row) {
-        const double v = static_cast<std::size_t>(row) < c.values.size() ? c.values[static_cast<std::size_t>(row)]
-                                                                         : std::nan("");
-        return v;
-    };
+    m_bound.x = xAxis;
+    m_bound.y = yAxis;
+    m_bound.stackSets.assign(m_data.columns.size(), nullptr);
+    m_bound.rowSets.assign(m_data.columns.size(), {});
+    m_bound.lines.assign(m_data.columns.size(), nullptr);
 
     // Stacked layers: one set per quantity, in one series. Layers that are zero everywhere are
     // left out of the drawing (and the legend); the CSV keeps them.
@@ -293,39 +322,29 @@ void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) 
     int colourIndex = 0;
     for (int ci : shown) {
         const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
-        if (c.role != ColumnRole::Stack)
-            continue;
-        bool any = false;
-        for (int r = 0; r < rows; ++r)
-            any = any || (std::isfinite(value(c, r)) && std::abs(value(c, r)) > 0.0);
-        if (!any)
+        if (c.role != ColumnRole::Stack || !drawnLayer(c))
             continue;
         if (!stack)
             stack = new QStackedBarSeries;
         auto* set = new QBarSet(c.name);
-        const QColor colour = columnColour(c, colourIndex++);
-        set->setColor(colour);
+        set->setColor(columnColour(c, colourIndex++));
         set->setBorderColor(chartstyle::plotArea());
-        for (int r = 0; r < rows; ++r) {
-            const double v = std::isfinite(value(c, r)) ? value(c, r) : 0.0;
-            set->append(v);
-            stackTop[static_cast<std::size_t>(r)] += v;
-        }
+        for (int r = 0; r < rows; ++r)
+            set->append(0.0);
         connect(set, &QBarSet::hovered, this, [this](bool on, int index) {
             if (on)
                 showReadout(index);
+            else
+                hideReadout();
         });
         stack->append(set);
+        m_bound.stackSets[static_cast<std::size_t>(ci)] = set;
     }
     if (stack) {
         stack->setBarWidth(0.62);
         chart->addSeries(stack);
         stack->attachAxis(xAxis);
         stack->attachAxis(yAxis);
-        for (double t : stackTop) {
-            hi = std::max(hi, t);
-            lo = std::min(lo, t);
-        }
     }
 
     // Bars with a colour of their own per row: one set per row, each holding only its own bar,
@@ -336,26 +355,20 @@ void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) 
             continue;
         auto* series = new QStackedBarSeries;
         series->setBarWidth(0.62);
+        auto& sets = m_bound.rowSets[static_cast<std::size_t>(ci)];
         for (int r = 0; r < rows; ++r) {
             auto* set = new QBarSet(c.name);
-            const QColor colour = static_cast<std::size_t>(r) < c.rowColours.size() ? c.rowColours[static_cast<std::size_t>(r)]
-                                                                                     : columnColour(c, colourIndex);
-            set->setColor(colour);
-            set->setBorderColor(colour.darker(118));
             for (int k = 0; k < rows; ++k)
-                set->append(k == r && std::isfinite(value(c, r)) ? value(c, r) : 0.0);
+                set->append(0.0);
             connect(set, &QBarSet::hovered, this, [this, r](bool on, int) {
                 if (on)
                     showReadout(r);
+                else
+                    hideReadout();
             });
             series->append(set);
-            const double v = value(c, r);
-            if (std::isfinite(v)) {
-                hi = std::max(hi, v);
-                lo = std::min(lo, v);
-            }
+            sets.push_back(set);
         }
-        ++colourIndex;
         chart->addSeries(series);
         series->attachAxis(xAxis);
         series->attachAxis(yAxis);
@@ -370,56 +383,31 @@ void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) 
         auto* line = new QLineSeries;
         line->setName(c.name);
         line->setPen(linePen(c.role, columnColour(c, 0)));
-        for (int r = 0; r < rows; ++r) {
-            const double v = value(c, r);
-            if (!std::isfinite(v))
-                continue;
-            line->append(r - 0.5, v);
-            line->append(r + 0.5, v);
-            hi = std::max(hi, v);
-            lo = std::min(lo, v);
-        }
         chart->addSeries(line);
         line->attachAxis(xAxis);
         line->attachAxis(yAxis);
+        m_bound.lines[static_cast<std::size_t>(ci)] = line;
     }
-    const auto [bottom, top] = paddedRange(lo, hi, true);
-    yAxis->setRange(bottom, top);
-    yAxis->applyNiceNumbers();
-    xAxis->setRange(m_data.categories.first(), m_data.categories.last());
     chart->legend()->setVisible(true);
 }
 
 void ChartPanel::buildNumeric(QChart* chart, const std::vector<int>& shown) {
-    const int rows = m_data.rowCount();
     QAbstractAxis* xAxis = nullptr;
     const QString xUnit = m_data.xShownUnit.isEmpty() ? m_data.xUnit : m_data.xShownUnit;
     const QString xTitle = xUnit.isEmpty() ? m_data.xName : QStringLiteral("%1 (%2)").arg(m_data.xName, xUnit);
-    double xmin = std::numeric_limits<double>::infinity();
-    double xmax = -std::numeric_limits<double>::infinity();
-    for (double x : m_data.x) {
-        xmin = std::min(xmin, x / m_data.xScale);
-        xmax = std::max(xmax, x / m_data.xScale);
-    }
-    if (m_data.xLogarithmic && xmin > 0.0) {
+    if (m_data.xLogarithmic) {
         auto* axis = new QLogValueAxis;
         axis->setBase(10.0);
         axis->setLabelFormat(QStringLiteral("%g"));
         axis->setMinorTickCount(8);
-        axis->setRange(xmin / 1.12, xmax * 1.12);
         xAxis = axis;
     } else {
         auto* axis = new QValueAxis;
-        const bool whole = std::all_of(m_data.x.begin(), m_data.x.end(), [](double x) { return x == std::round(x); });
-        if (whole && rows <= 20 && m_data.xScale == 1.0) {
-            axis->setRange(xmin - 0.5, xmax + 0.5);
+        if (wholeX()) {
             axis->setTickType(QValueAxis::TicksDynamic);
             axis->setTickAnchor(0.0);
-            axis->setTickInterval(rows > 10 ? 2.0 : 1.0);
+            axis->setTickInterval(m_data.rowCount() > 10 ? 2.0 : 1.0);
             axis->setLabelFormat(QStringLiteral("%d"));
-        } else {
-            axis->setRange(xmin, xmax);
-            axis->applyNiceNumbers();
         }
         xAxis = axis;
     }
@@ -432,12 +420,15 @@ void ChartPanel::buildNumeric(QChart* chart, const std::vector<int>& shown) {
     chart->addAxis(yAxis, Qt::AlignLeft);
     chartstyle::styleAxis(xAxis);
     chartstyle::styleAxis(yAxis);
+    m_bound.x = xAxis;
+    m_bound.y = yAxis;
+    m_bound.stackSets.assign(m_data.columns.size(), nullptr);
+    m_bound.rowSets.assign(m_data.columns.size(), {});
+    m_bound.lines.assign(m_data.columns.size(), nullptr);
 
-    double hi = -std::numeric_limits<double>::infinity();
-    double lo = std::numeric_limits<double>::infinity();
+    const int rows = m_data.rowCount();
     const bool dots = rows <= 40;
     int colourIndex = 0;
-    std::vector<QLineSeries*> hoverable;
     for (int ci : shown) {
         const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
         auto* line = new QLineSeries;
@@ -446,81 +437,185 @@ void ChartPanel::buildNumeric(QChart* chart, const std::vector<int>& shown) {
         if (c.role == ColumnRole::Line)
             ++colourIndex;
         line->setPen(linePen(c.role, colour, rows > 200 ? 1.6 : 2.0));
-        for (int r = 0; r < rows; ++r) {
-            const double v = static_cast<std::size_t>(r) < c.values.size() ? c.values[static_cast<std::size_t>(r)] : std::nan("");
-            if (!std::isfinite(v))
-                continue;
-            line->append(m_data.x[static_cast<std::size_t>(r)] / m_data.xScale, v);
-            hi = std::max(hi, v);
-            lo = std::min(lo, v);
-        }
         if (c.role == ColumnRole::Line) {
             line->setPointsVisible(dots);
-            hoverable.push_back(line);
+            connect(line, &QLineSeries::hovered, this, [this](const QPointF& p, bool on) {
+                if (!on || m_data.x.empty()) {
+                    hideReadout();
+                    return;
+                }
+                // The nearest sample in x (on a log axis, nearest in log x).
+                int best = 0;
+                double bestDistance = std::numeric_limits<double>::infinity();
+                for (std::size_t i = 0; i < m_data.x.size(); ++i) {
+                    const double x = m_data.x[i] / m_data.xScale;
+                    const double d = m_data.xLogarithmic && x > 0.0 && p.x() > 0.0 ? std::abs(std::log(x / p.x()))
+                                                                                      : std::abs(x - p.x());
+                    if (d < bestDistance) {
+                        bestDistance = d;
+                        best = static_cast<int>(i);
+                    }
+                }
+                showReadout(best);
+            });
         }
         chart->addSeries(line);
         line->attachAxis(xAxis);
         line->attachAxis(yAxis);
+        m_bound.lines[static_cast<std::size_t>(ci)] = line;
     }
-    if (!std::isfinite(hi)) {
-        hi = 1.0;
-        lo = 0.0;
-    }
-    const auto [bottom, top] = paddedRange(lo, hi, false);
-    yAxis->setRange(bottom, top);
-    yAxis->applyNiceNumbers();
 
     // The design as it stands: a ring on each line at its x.
     if (m_data.marker) {
-        const double mx = *m_data.marker / m_data.xScale;
         auto* ring = new QScatterSeries;
         ring->setName(tr("This design"));
         ring->setMarkerShape(QScatterSeries::MarkerShapeCircle);
         ring->setMarkerSize(13.0);
         ring->setColor(Qt::transparent);
         ring->setBorderColor(chartstyle::ink());
-        QPen pen(chartstyle::ink(), 2.0);
-        ring->setPen(pen);
-        for (int ci : shown) {
-            const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
-            if (c.role != ColumnRole::Line)
-                continue;
-            for (int r = 0; r < rows; ++r)
-                if (std::abs(m_data.x[static_cast<std::size_t>(r)] / m_data.xScale - mx) <= 1e-9 * std::max(1.0, std::abs(mx)) &&
-                    std::isfinite(c.values[static_cast<std::size_t>(r)]))
-                    ring->append(mx, c.values[static_cast<std::size_t>(r)]);
-        }
+        ring->setPen(QPen(chartstyle::ink(), 2.0));
         chart->addSeries(ring);
         ring->attachAxis(xAxis);
         ring->attachAxis(yAxis);
+        m_bound.ring = ring;
     }
-
-    for (QLineSeries* line : hoverable) {
-        connect(line, &QLineSeries::hovered, this, [this](const QPointF& p, bool on) {
-            if (!on || m_data.x.empty())
-                return;
-            // The nearest sample in x (on a log axis, nearest in log x).
-            int best = 0;
-            double bestDistance = std::numeric_limits<double>::infinity();
-            for (std::size_t i = 0; i < m_data.x.size(); ++i) {
-                const double x = m_data.x[i] / m_data.xScale;
-                const double d = m_data.xLogarithmic && x > 0.0 && p.x() > 0.0 ? std::abs(std::log(x / p.x()))
-                                                                                  : std::abs(x - p.x());
-                if (d < bestDistance) {
-                    bestDistance = d;
-                    best = static_cast<int>(i);
-                }
-            }
-            showReadout(best);
-        });
-    }
-    // Many lines (one per device over time) would crowd the legend: keep the first few.
+    // Many lines (one per device over time) would crowd the legend: keep the first and last few.
     chart->legend()->setVisible(true);
     const auto markers = chart->legend()->markers();
     if (markers.size() > 8)
-        for (int i = 0; i < markers.size(); ++i)
-            if (i >= 3 && i < markers.size() - 3)
-                markers[i]->setVisible(false);
+        for (int i = 3; i < markers.size() - 3; ++i)
+            markers[i]->setVisible(false);
+}
+
+void ChartPanel::fill() {
+    const int rows = m_data.rowCount();
+    double hi = -std::numeric_limits<double>::infinity();
+    double lo = std::numeric_limits<double>::infinity();
+    auto widen = [&](double v) {
+        if (std::isfinite(v)) {
+            hi = std::max(hi, v);
+            lo = std::min(lo, v);
+        }
+    };
+    double limitLevel = -std::numeric_limits<double>::infinity();
+
+    if (m_data.isCategorical()) {
+        std::vector<double> stackTop(static_cast<std::size_t>(rows), 0.0);
+        bool anyStack = false;
+        for (std::size_t ci = 0; ci < m_data.columns.size(); ++ci) {
+            const ChartColumn& c = m_data.columns[ci];
+            if (QBarSet* set = ci < m_bound.stackSets.size() ? m_bound.stackSets[ci] : nullptr) {
+                anyStack = true;
+                for (int r = 0; r < rows; ++r) {
+                    const double v = std::isfinite(valueAt(c, r)) ? valueAt(c, r) : 0.0;
+                    if (set->at(r) != v)
+                        set->replace(r, v);
+                    stackTop[static_cast<std::size_t>(r)] += v;
+                }
+            }
+            if (ci < m_bound.rowSets.size() && !m_bound.rowSets[ci].empty()) {
+                const auto& sets = m_bound.rowSets[ci];
+                for (int r = 0; r < rows && r < static_cast<int>(sets.size()); ++r) {
+                    const double v = valueAt(c, r);
+                    QBarSet* set = sets[static_cast<std::size_t>(r)];
+                    const double shown = std::isfinite(v) ? v : 0.0;
+                    if (set->at(r) != shown) // each change redraws: change only what moved
+                        set->replace(r, shown);
+                    const QColor colour = static_cast<std::size_t>(r) < c.rowColours.size()
+                                              ? c.rowColours[static_cast<std::size_t>(r)]
+                                              : columnColour(c, 0);
+                    if (set->color() != colour) {
+                        set->setColor(colour);
+                        set->setBorderColor(colour.darker(118));
+                    }
+                    widen(v);
+                }
+            }
+            if (QLineSeries* line = ci < m_bound.lines.size() ? m_bound.lines[ci] : nullptr) {
+                QList<QPointF> points;
+                for (int r = 0; r < rows; ++r) {
+                    const double v = valueAt(c, r);
+                    if (!std::isfinite(v))
+                        continue;
+                    points << QPointF(r - 0.5, v) << QPointF(r + 0.5, v);
+                    widen(v);
+                }
+                line->replace(points);
+            }
+        }
+        if (anyStack)
+            for (double t : stackTop)
+                widen(t);
+        const auto [bottom, top] = paddedRange(lo, hi, true);
+        m_bound.y->setRange(bottom, top);
+        m_bound.y->applyNiceNumbers();
+        return;
+    }
+
+    // Lines over a numeric x.
+    double xmin = std::numeric_limits<double>::infinity();
+    double xmax = -std::numeric_limits<double>::infinity();
+    for (double x : m_data.x) {
+        xmin = std::min(xmin, x / m_data.xScale);
+        xmax = std::max(xmax, x / m_data.xScale);
+    }
+    if (auto* log = qobject_cast<QLogValueAxis*>(m_bound.x)) {
+        if (xmin > 0.0)
+            log->setRange(xmin / 1.12, xmax * 1.12);
+    } else if (auto* axis = qobject_cast<QValueAxis*>(m_bound.x)) {
+        if (wholeX()) {
+            axis->setRange(xmin - 0.5, xmax + 0.5);
+        } else {
+            axis->setRange(xmin, xmax > xmin ? xmax : xmin + 1.0);
+            axis->applyNiceNumbers();
+        }
+    }
+    for (std::size_t ci = 0; ci < m_data.columns.size(); ++ci) {
+        const ChartColumn& c = m_data.columns[ci];
+        QLineSeries* line = ci < m_bound.lines.size() ? m_bound.lines[ci] : nullptr;
+        if (!line)
+            continue;
+        QList<QPointF> points;
+        points.reserve(rows);
+        for (int r = 0; r < rows; ++r) {
+            const double v = valueAt(c, r);
+            if (!std::isfinite(v))
+                continue;
+            points << QPointF(m_data.x[static_cast<std::size_t>(r)] / m_data.xScale, v);
+            widen(v);
+            if (c.role == ColumnRole::Limit)
+                limitLevel = std::max(limitLevel, v);
+        }
+        line->replace(points);
+    }
+    if (!std::isfinite(hi)) {
+        hi = 1.0;
+        lo = 0.0;
+    }
+    // A value far past the limit (one switch carrying a whole stall) would squeeze the rest into
+    // a flat line: the axis stops a little above the limit and that line leaves the top edge (the
+    // read-out still gives its value).
+    if (std::isfinite(limitLevel) && limitLevel > lo && hi > limitLevel + 0.4 * (limitLevel - lo))
+        hi = limitLevel + 0.4 * (limitLevel - lo);
+    const auto [bottom, top] = paddedRange(lo, hi, false);
+    m_bound.y->setRange(bottom, top);
+    m_bound.y->applyNiceNumbers();
+
+    if (m_bound.ring) {
+        QList<QPointF> rings;
+        const double mx = m_data.marker ? *m_data.marker / m_data.xScale : std::nan("");
+        for (std::size_t ci = 0; ci < m_data.columns.size(); ++ci) {
+            const ChartColumn& c = m_data.columns[ci];
+            if (c.role != ColumnRole::Line || !m_bound.lines[ci])
+                continue;
+            for (int r = 0; r < rows; ++r) {
+                const double x = m_data.x[static_cast<std::size_t>(r)] / m_data.xScale;
+                if (std::abs(x - mx) <= 1e-9 * std::max(1.0, std::abs(mx)) && std::isfinite(valueAt(c, r)))
+                    rings << QPointF(mx, valueAt(c, r));
+            }
+        }
+        m_bound.ring->replace(rings);
+    }
 }
 
 QString ChartPanel::readout(int row) const {
@@ -545,12 +640,17 @@ QString ChartPanel::readout(int row) const {
     return QStringLiteral("%1: %2").arg(m_data.rowLabel(row), parts.join(QStringLiteral(" · ")));
 }
 
-QString ChartPanel::currentReadout() const { return m_readout->text(); }
+QString ChartPanel::currentReadout() const { return m_readout; }
 
 void ChartPanel::showReadout(int row) {
-    const QString text = readout(row);
-    m_readout->setText(text);
-    QToolTip::showText(QCursor::pos(), text, m_view);
+    m_readout = readout(row);
+    m_subtitle->setText(m_readout);
+    QToolTip::showText(QCursor::pos(), m_readout, m_view);
+}
+
+void ChartPanel::hideReadout() {
+    m_readout.clear();
+    m_subtitle->setText(m_data.subtitle);
 }
 
 QString ChartPanel::exportPng(const QString& path) {

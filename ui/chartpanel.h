@@ -1,7 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #pragma once
-// One chart of the workbench: a header with the title, the point or state it shows and a hover
-// read-out; the chart itself (Qt Charts, drawn from a ChartData table); and the export of the
+// One chart of the workbench: a header with the title and the point or state it shows (replaced
+// by the hover read-out while the mouse is on a bar or a line); the chart itself (Qt Charts, drawn from a ChartData table); and the export of the
 // picture (PNG) and the numbers (CSV). When the table carries a note (not computed yet, or not
 // given by the engine) the note stands in place of the chart, never an empty frame.
 // The chart is rebuilt only while the panel is visible: a hidden panel keeps its table and draws
@@ -11,11 +11,17 @@
 
 #include <QWidget>
 
-class QButtonGroup;
+class QComboBox;
+class QAbstractAxis;
+class QBarSet;
 class QChart;
 class QChartView;
 class QLabel;
+class QLineSeries;
+class QScatterSeries;
+class QValueAxis;
 class QStackedWidget;
+class QToolButton;
 
 namespace amp::ui {
 
@@ -61,18 +67,37 @@ class ChartPanel : public QWidget {
     void rebuild();
     void buildCategorical(QChart* chart, const std::vector<int>& shown);
     void buildNumeric(QChart* chart, const std::vector<int>& shown);
+    void fill(); ///< the table's values into the series drawn, and the axes' ranges
+    QString structureKey() const;
+    bool drawnLayer(const ChartColumn& c) const;
+    bool wholeX() const;
+    static double valueAt(const ChartColumn& c, int row);
     void showReadout(int row);
+    void hideReadout();
     void updateHeader();
     QString suggestedPath(const QString& suffix) const;
 
+    /// The series of the chart as built, by column, for updates in place.
+    struct Bound {
+        QString key;
+        QValueAxis* y = nullptr;
+        QAbstractAxis* x = nullptr;
+        std::vector<QBarSet*> stackSets;            ///< Stack columns drawn
+        std::vector<std::vector<QBarSet*>> rowSets; ///< Bar columns: one set per row
+        std::vector<QLineSeries*> lines;            ///< Line, Limit and Reference columns
+        QScatterSeries* ring = nullptr;             ///< the design's own point on a sweep
+    };
+
     ChartData m_data;
+    Bound m_bound;
     bool m_dirty = true;
     int m_viewIndex = 0;
     QLabel* m_title = nullptr;
     QLabel* m_subtitle = nullptr;
-    QLabel* m_readout = nullptr;
-    QWidget* m_viewButtons = nullptr;
-    QButtonGroup* m_viewGroup = nullptr;
+    QString m_readout;          ///< the hover read-out while the mouse is on a bar or line
+    QComboBox* m_viewChoice = nullptr;
+    QToolButton* m_pngButton = nullptr;
+    QToolButton* m_csvButton = nullptr;
     QStackedWidget* m_stack = nullptr;
     QChartView* m_view = nullptr;
     QLabel* m_note = nullptr;

@@ -150,8 +150,9 @@ void ChartsView::markSlowOutdated() {
         ChartData d = p->data();
         if (d.drawable()) {
             // Keep the last drawing for orientation, and say that it is being redone.
-            if (!d.subtitle.endsWith(tr(" · updating…")))
-                d.subtitle += tr(" · updating…");
+            const QString mark = tr("updating…");
+            if (!d.subtitle.endsWith(mark))
+                d.subtitle = d.subtitle.isEmpty() ? mark : d.subtitle + QStringLiteral(" · ") + mark;
             p->setData(d);
         }
     }
