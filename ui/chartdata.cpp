@@ -307,6 +307,67 @@ ChartData sweepData(SweepKind kind, const Design& design, const std::vector<Swee
 
 // --- over the duty profile -------------------------------------------------------------------
 
+namespace {
+
+/// "Q3" (1-based, as the transient names its sources) -> "#2" (0-based, as the rest of the
+/// workbench numbers devices); other names as they are.
+QString sourceLabel(const std::string& name) {
+    const QString q = QString::fromStdString(name);
+    if (q.size() > 1 && q.front() == QLatin1Char('Q')) {
+        bool ok = false;
+        const int k = q.mid(1).toInt(&ok);
+        if (ok && k >= 1)
+            return QStringLiteral("#%1").arg(k - 1);
+    }
+    return q;
+}
+
+/// The transient's series when the results carry them (a template so that this file builds
+/// with an engine that has no transient yet: the branch is dropped at compile time).
+template <typename R>
+bool fillTransient(ChartData& d, const Design& design, const R& full) {
+    if constexpr (requires { full.transient->time_s; full.transient->tj_C; full.transient->heatsink_C; }) {
+        if (!full.transient)
+            return false;
+        const auto& t = *full.transient;
+        if (t.time_s.empty())
+            return false;
+        d.x = t.time_s;
+        const int switches = design.bank.count;
+        for (std::size_t k = 0; k < t.tj_C.size(); ++k) {
+            const std::string name = k < t.sources.size() ? t.sources[k] : std::string("source ") + std::to_string(k);
+            ChartColumn c = column(QStringLiteral("T_j %1").arg(sourceLabel(name)), QStringLiteral("°C"), ColumnRole::Line);
+            c.values = t.tj_C[k];
+            c.values.resize(d.x.size(), kNaN);
+            const bool diode = static_cast<int>(k) >= switches;
+            c.colour = diode ? chartstyle::lossColour(2) : chartstyle::deviceColour(static_cast<int>(k), switches);
+            d.columns.push_back(c);
+        }
+        ChartColumn sink = column(QObject::tr("Heatsink"), QStringLiteral("°C"), ColumnRole::Line);
+        sink.values = t.heatsink_C;
+        sink.values.resize(d.x.size(), kNaN);
+        sink.colour = chartstyle::heatsink();
+        d.columns.push_back(sink);
+        ChartColumn limit = column(QStringLiteral("T_j,max"), QStringLiteral("°C"), ColumnRole::Limit);
+        limit.values.assign(d.x.size(), design.bank.device.tjMax_C);
+        d.columns.push_back(limit);
+        QString sub = QObject::tr("hottest %1 °C at %2 s")
+                          .arg(QString::number(t.tjMax_C, 'f', 1), QString::number(t.tjMaxTime_s, 'f', 1));
+        if (t.repetitions > 1)
+            sub += t.periodic ? QObject::tr(" · repeating state after %1 runs of the profile").arg(t.repetitions)
+                              : QObject::tr(" · %1 runs of the profile, not yet repeating").arg(t.repetitions);
+        d.subtitle = sub;
+        return true;
+    } else {
+        (void)d;
+        (void)design;
+        (void)full;
+        return false;
+    }
+}
+
+} // namespace
+
 ChartData transientData(const Design& design, const Results* full) {
     ChartData d;
     d.id = QStringLiteral("profile-temperatures");
@@ -314,13 +375,12 @@ ChartData transientData(const Design& design, const Results* full) {
     d.xName = QObject::tr("Time");
     d.xUnit = QStringLiteral("s");
     d.yTitles = {QObject::tr("Temperature (°C)")};
-    (void)design;
     if (!full) {
         d.note = QObject::tr("Not computed yet: the duty-profile run is on its way.");
         return d;
     }
-    d.note = QObject::tr("Not computed: this build's engine gives steady temperatures only, no duty-profile "
-                         "transient.");
+    if (!fillTransient(d, design, *full))
+        d.note = QObject::tr("Not computed: the engine gave no duty-profile transient for this design.");
     return d;
 }
 

@@ -49,15 +49,21 @@ QString formatValue(double v, const QString& unit) {
     return unit == QLatin1String("%") ? number + QStringLiteral(" %") : number + QLatin1Char(' ') + unit;
 }
 
-/// A range with some air above and below, including `alsoShow` values when finite.
+/// A range with some air above and below (from zero for bars).
 std::pair<double, double> paddedRange(double lo, double hi, bool fromZero) {
     if (!std::isfinite(lo) || !std::isfinite(hi))
         return {0.0, 1.0};
     if (fromZero)
         lo = std::min(lo, 0.0);
-    double span = hi - lo;
-    if (span <= 1e-12)
-        span = std::max(std::abs(hi), 1.0) * 0.1;
+    // At least 5 % of the level: a flat quantity stays a flat line instead of its last digits
+    // being blown up to fill the plot.
+    const double least = 0.05 * std::max({std::abs(hi), std::abs(lo), 1e-9});
+    if (hi - lo < least) {
+        const double mid = 0.5 * (hi + lo);
+        lo = mid - 0.5 * least;
+        hi = mid + 0.5 * least;
+    }
+    const double span = hi - lo;
     const double top = hi + 0.08 * span;
     const double bottom = fromZero && lo >= 0.0 ? 0.0 : lo - 0.08 * span;
     return {bottom, top};

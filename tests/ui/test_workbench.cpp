@@ -524,6 +524,19 @@ void TestWorkbench::screenshotsOfCharts() {
             QVERIFY(window.grab().save(file));
             written << file;
         }
+        // The sweeps' other views (efficiency, loss): both panels follow the choice.
+        ChartPanel* sweep = window.charts()->countSweep();
+        tabs->setCurrentWidget(window.charts()->pageOf(sweep));
+        for (int view = 1; view < sweep->data().views.size(); ++view) {
+            sweep->setCurrentView(view);
+            QCOMPARE(window.charts()->frequencySweep()->currentView(), view);
+            QCoreApplication::processEvents();
+            const QString file = out.filePath(QStringLiteral("charts-%1-sweeps-%2.png")
+                                                  .arg(stem, sweep->data().views[view].toLower().replace(' ', '-')));
+            QVERIFY(window.grab().save(file));
+            written << file;
+        }
+        sweep->setCurrentView(0);
     }
     qInfo("chart screenshots: %s", qPrintable(written.join(", ")));
 }
