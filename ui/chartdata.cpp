@@ -397,7 +397,91 @@ ChartData spreadData(const Design& design, const Results* full) {
         d.note = QObject::tr("Not computed yet: the spread run is on its way.");
         return d;
     }
-    d.note = QObject::tr("Not computed: this build's engine does not run the bank's Monte Carlo spread.");
+    d.note = QObject::tr("Not computed: the engine gave no Monte Carlo spread of the bank for this design.");
+    return d;
+}
+
+ChartData spreadHistogramData(const std::vector<double>& samplesTj_C, double tjMax_C) {
+    ChartData d;
+    d.id = QStringLiteral("spread-hottest-junction");
+    d.title = QObject::tr("Hottest junction across the spread of parts");
+    d.xName = QObject::tr("Hottest T_j, middle of the bin (°C)");
+    d.yTitles = {QObject::tr("Samples")};
+    std::vector<double> finite;
+    int runaway = 0;
+    for (double v : samplesTj_C) {
+        if (std::isfinite(v))
+            finite.push_back(v);
+        else
+            ++runaway;
+    }
+    const int n = static_cast<int>(samplesTj_C.size());
+    d.subtitle = QObject::tr("%1 samples").arg(n);
+    if (n == 0) {
+        d.note = QObject::tr("Not computed: no samples.");
+        return d;
+    }
+    ChartColumn count = column(QObject::tr("Samples"), QString(), ColumnRole::Bar);
+    ChartColumn lower = column(QObject::tr("Bin from"), QStringLiteral("°C"), ColumnRole::Data);
+    ChartColumn upper = column(QObject::tr("Bin to"), QStringLiteral("°C"), ColumnRole::Data);
+    if (!finite.empty()) {
+        const auto [mn, mx] = std::minmax_element(finite.begin(), finite.end());
+        const double lo = *mn;
+        const double hi = *mx;
+        const int bins = hi > lo ? std::clamp(static_cast<int>(std::ceil(std::sqrt(static_cast<double>(finite.size())))), 8, 40) : 1;
+        const double width = hi > lo ? (hi - lo) / bins : 1.0;
+        std::vector<double> counts(static_cast<std::size_t>(bins), 0.0);
+        for (double v : finite) {
+            const int b = hi > lo ? std::min(bins - 1, static_cast<int>((v - lo) / width)) : 0;
+            counts[static_cast<std::size_t>(b)] += 1.0;
+        }
+        for (int b = 0; b < bins; ++b) {
+            const double from = lo + b * width;
+            const double to = hi > lo ? lo + (b + 1) * width : hi;
+            const double middle = 0.5 * (from + to);
+            d.categories << QString::number(middle, 'f', middle >= 100 ? 0 : 1);
+            count.values.push_back(counts[static_cast<std::size_t>(b)]);
+            count.rowColours.push_back(colours::forMargin(tjMax_C - middle));
+            lower.values.push_back(from);
+            upper.values.push_back(to);
+        }
+    }
+    if (runaway > 0) {
+        d.categories << QObject::tr("runaway");
+        count.values.push_back(runaway);
+        count.rowColours.push_back(colours::forMargin(-10.0));
+        lower.values.push_back(kNaN);
+        upper.values.push_back(kNaN);
+    }
+    d.columns = {count, lower, upper};
+    return d;
+}
+
+ChartData spreadPercentileData(double nominalTj_C, const std::vector<SpreadPercentile>& percentiles, double tjMax_C,
+                               int samples, double runawayFraction) {
+    ChartData d;
+    d.id = QStringLiteral("spread-hottest-junction");
+    d.title = QObject::tr("Hottest junction across the spread of parts");
+    d.subtitle = QObject::tr("%1 samples · %2 % without a stable state")
+                     .arg(samples)
+                     .arg(QString::number(runawayFraction * 100.0, 'f', 1));
+    d.xName = QObject::tr("Share of the samples at or below");
+    d.yTitles = {QObject::tr("Hottest junction (°C)")};
+    ChartColumn tj = column(QObject::tr("Hottest T_j"), QStringLiteral("°C"), ColumnRole::Bar);
+    ChartColumn limit = column(QStringLiteral("T_j,max"), QStringLiteral("°C"), ColumnRole::Limit);
+    d.categories << QObject::tr("nominal bank");
+    tj.values.push_back(nominalTj_C);
+    tj.rowColours.push_back(colours::forMargin(tjMax_C - nominalTj_C));
+    limit.values.push_back(tjMax_C);
+    for (const auto& p : percentiles) {
+        d.categories << p.label;
+        // A rank among the runaway samples has no temperature: drawn as a bar at the limit in
+        // oxblood, written as an empty cell.
+        tj.values.push_back(p.tj_C ? *p.tj_C : kNaN);
+        tj.rowColours.push_back(colours::forMargin(p.tj_C ? tjMax_C - *p.tj_C : -10.0));
+        limit.values.push_back(tjMax_C);
+    }
+    d.columns = {tj, limit};
     return d;
 }
 

@@ -24,6 +24,7 @@ enum class ColumnRole {
     Line,      ///< a line through the rows (numeric x)
     Limit,     ///< a limit the values must stay under (dashed, brick)
     Reference, ///< a reference level (dotted, grey), e.g. an equal share
+    Data,      ///< written to the CSV, not drawn (e.g. a histogram bin's edges)
 };
 
 struct ChartColumn {
@@ -107,5 +108,18 @@ ChartData transientData(const Design& design, const Results* full);
 /// The Monte Carlo distribution of the bank's hottest T_j: a histogram when samples exist,
 /// else the percentiles; a note when the bank's spread was not run.
 ChartData spreadData(const Design& design, const Results* full);
+
+/// A histogram of the hottest T_j of Monte Carlo samples: ⌈√n⌉ equal bins (8 … 40) between the
+/// lowest and highest finite sample, bars coloured by the margin of the bin's middle to T_j,max;
+/// samples without a stable state (+∞ or NaN) counted in a last bar "runaway".
+ChartData spreadHistogramData(const std::vector<double>& samplesTj_C, double tjMax_C);
+/// The distribution told by its percentiles only (nearest rank; empty: beyond runaway): bars for
+/// the nominal bank and each percentile, against T_j,max.
+struct SpreadPercentile {
+    QString label;               ///< "median", "95th", "99th"
+    std::optional<double> tj_C;  ///< empty: the rank falls among runaway samples
+};
+ChartData spreadPercentileData(double nominalTj_C, const std::vector<SpreadPercentile>& percentiles,
+                               double tjMax_C, int samples, double runawayFraction);
 
 } // namespace amp::ui

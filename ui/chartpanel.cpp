@@ -41,6 +41,8 @@ QString formatValue(double v, const QString& unit) {
     if (!std::isfinite(v))
         return QObject::tr("not computed");
     const double a = std::abs(v);
+    if (unit.isEmpty() && v == std::round(v) && a < 1e9)
+        return QString::number(static_cast<long long>(v)); // counts
     const QString number = a >= 100.0 ? QString::number(v, 'f', 1)
                            : a >= 1.0 ? QString::number(v, 'f', 2)
                                       : QString::number(v, 'g', 3);
@@ -437,6 +439,8 @@ void ChartPanel::buildNumeric(QChart* chart, const std::vector<int>& shown) {
     int colourIndex = 0;
     for (int ci : shown) {
         const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
+        if (c.role == ColumnRole::Data)
+            continue;
         auto* line = new QLineSeries;
         line->setName(c.name);
         const QColor colour = columnColour(c, colourIndex);
@@ -632,7 +636,9 @@ QString ChartPanel::readout(int row) const {
     bool stacked = false;
     for (int ci : m_data.columnsOf(m_viewIndex)) {
         const ChartColumn& c = m_data.columns[static_cast<std::size_t>(ci)];
-        const double v = static_cast<std::size_t>(row) < c.values.size() ? c.values[static_cast<std::size_t>(row)] : std::nan("");
+        const double v = valueAt(c, row);
+        if (c.role == ColumnRole::Data)
+            continue;
         if (c.role == ColumnRole::Stack) {
             stacked = true;
             if (!std::isfinite(v) || v == 0.0)

@@ -35,6 +35,7 @@
 #include <algorithm>
 #include <chrono>
 #include <cmath>
+#include <limits>
 
 using namespace amp;
 using namespace amp::ui;
@@ -139,6 +140,7 @@ class TestCharts : public QObject {
     void pngIsAPicture();
     void missingSeriesShowANote();
     void hoverReadoutNamesTheValues();
+    void spreadHistogramCountsEverySample();
     void editToViewLatency();
 };
 
@@ -434,6 +436,49 @@ void TestCharts::hoverReadoutNamesTheValues() {
     QVERIFY2(text.contains("T_j,max"), qPrintable(text));
     QVERIFY(panel.readout(-1).isEmpty());
     QVERIFY(panel.readout(1000).isEmpty());
+}
+
+void TestCharts::spreadHistogramCountsEverySample() {
+    // A histogram conserves its samples: the bar heights add up to n (the definition of a
+    // frequency histogram), the bins tile [min, max] without gaps, and a sample without a stable
+    // state lands in the "runaway" bar, never in a temperature bin.
+    std::vector<double> samples;
+    for (int i = 0; i < 100; ++i)
+        samples.push_back(80.0 + 0.37 * i); // 80 … 116.63 °C
+    samples.push_back(std::numeric_limits<double>::infinity());
+    samples.push_back(std::numeric_limits<double>::infinity());
+    const ChartData h = spreadHistogramData(samples, 150.0);
+    QCOMPARE(h.columns.front().role, ColumnRole::Bar);
+    const auto& counts = h.columns.front().values;
+    QCOMPARE(static_cast<int>(counts.size()), 10 + 1); // ceil(sqrt(100)) bins and the runaway bar
+    double total = 0.0;
+    for (double c : counts)
+        total += c;
+    QCOMPARE(total, 102.0);
+    QCOMPARE(counts.back(), 2.0);
+    QCOMPARE(h.categories.back(), QStringLiteral("runaway"));
+    const auto& from = h.columns[1].values;
+    const auto& to = h.columns[2].values;
+    QCOMPARE(from.front(), 80.0);
+    QVERIFY(near(to[9], 80.0 + 0.37 * 99, 1e-12));
+    for (int b = 1; b < 10; ++b)
+        QVERIFY(near(from[static_cast<std::size_t>(b)], to[static_cast<std::size_t>(b - 1)], 1e-12));
+    // Evenly spread samples: ten per bin (0.37 K steps over 3.663 K wide bins; the top sample
+    // belongs to the last bin).
+    for (int b = 0; b < 10; ++b)
+        QCOMPARE(counts[static_cast<std::size_t>(b)], 10.0);
+    // The bin edges are in the CSV, not drawn.
+    QCOMPARE(h.columns[1].role, ColumnRole::Data);
+    QVERIFY(csvText(h).contains("Bin from [°C]"));
+
+    // Percentiles only: a rank among the runaway samples is an empty cell, not a number.
+    const ChartData p = spreadPercentileData(95.0, {{"median", 101.0}, {"95th", 118.0}, {"99th", std::nullopt}}, 150.0,
+                                             1000, 0.012);
+    QCOMPARE(p.categories.size(), 4);
+    QVERIFY(std::isnan(p.columns.front().values[3]));
+    const QList<QStringList> rows = csvRecords(csvText(p));
+    QCOMPARE(rows[4].value(1), QString());
+    QCOMPARE(rows[2].value(1).toDouble(), 101.0);
 }
 
 void TestCharts::editToViewLatency() {
