@@ -31,11 +31,6 @@ QString headerOf(const QString& name, const QString& unit) {
     return unit.isEmpty() ? name : QStringLiteral("%1 [%2]").arg(name, unit);
 }
 
-QString pointSubtitle(const OperatingPointResult& point) {
-    return QObject::tr("%1 · motor %2 A").arg(QString::fromStdString(point.name),
-                                                QString::number(point.motorCurrent_A, 'f', 1));
-}
-
 ChartColumn column(const QString& name, const QString& unit, ColumnRole role, int view = -1) {
     ChartColumn c;
     c.name = name;
@@ -126,8 +121,8 @@ QString writeCsv(const ChartData& data, const QString& path) {
 ChartData deviceCurrentData(const Design& design, const OperatingPointResult& point) {
     ChartData d;
     d.id = QStringLiteral("device-current");
-    d.title = QObject::tr("On-state current per switch");
-    d.subtitle = pointSubtitle(point);
+    d.title = QObject::tr("Current per switch");
+    d.subtitle = QString::fromStdString(point.name);
     d.xName = QObject::tr("Switch");
     const auto labels = deviceLabels(point.devices.size());
     for (const auto& l : labels)
@@ -163,9 +158,8 @@ ChartData deviceCurrentData(const Design& design, const OperatingPointResult& po
 ChartData deviceTemperatureData(const Design& design, const OperatingPointResult& point) {
     ChartData d;
     d.id = QStringLiteral("device-temperature");
-    d.title = QObject::tr("Junction temperature per device");
-    d.subtitle = QObject::tr("%1 · heatsink %2 °C")
-                     .arg(QString::fromStdString(point.name), QString::number(point.heatsinkTemperature_C, 'f', 1));
+    d.title = QObject::tr("Junction temperatures");
+    d.subtitle = QString::fromStdString(point.name);
     d.xName = QObject::tr("Device");
     ChartColumn tj = column(QStringLiteral("T_j"), QStringLiteral("°C"), ColumnRole::Bar);
     ChartColumn limit = column(QStringLiteral("T_j,max"), QStringLiteral("°C"), ColumnRole::Limit);
@@ -195,8 +189,8 @@ ChartData deviceTemperatureData(const Design& design, const OperatingPointResult
 ChartData lossBreakdownData(const Design& design, const OperatingPointResult& point) {
     ChartData d;
     d.id = QStringLiteral("loss-breakdown");
-    d.title = QObject::tr("Where the power goes, per device");
-    d.subtitle = QObject::tr("%1 · power stage %2 W")
+    d.title = QObject::tr("Loss per device, by cause");
+    d.subtitle = QObject::tr("%1 · power stage %2 W in all")
                      .arg(QString::fromStdString(point.name), QString::number(point.totalLoss_W, 'f', 1));
     d.xName = QObject::tr("Device");
     struct Part {

@@ -436,6 +436,21 @@ void TestCharts::hoverReadoutNamesTheValues() {
     QVERIFY2(text.contains("T_j,max"), qPrintable(text));
     QVERIFY(panel.readout(-1).isEmpty());
     QVERIFY(panel.readout(1000).isEmpty());
+
+    // The mouse on bar 2: the header shows that bar's read-out, and gives it back on leaving.
+    panel.resize(600, 300);
+    panel.show();
+    QVERIFY(QTest::qWaitForWindowExposed(&panel));
+    QBarSet* second = nullptr;
+    for (QAbstractSeries* s : panel.chart()->series())
+        if (auto* bars = qobject_cast<QStackedBarSeries*>(s); bars && bars->count() > 2 && !second)
+            second = bars->barSets().at(2);
+    QVERIFY(second);
+    emit second->hovered(true, 2);
+    QCOMPARE(panel.currentReadout(), panel.readout(2));
+    QVERIFY(panel.currentReadout().startsWith("#2: "));
+    emit second->hovered(false, 2);
+    QVERIFY(panel.currentReadout().isEmpty());
 }
 
 void TestCharts::spreadHistogramCountsEverySample() {
