@@ -550,7 +550,9 @@ void ChartPanel::fill() {
                     points << QPointF(r - 0.5, v) << QPointF(r + 0.5, v);
                     widen(v);
                 }
-                line->replace(points);
+                if (line->points() != points)
+                    if (line->points() != points)
+            line->replace(points);
             }
         }
         if (anyStack)
@@ -596,7 +598,8 @@ void ChartPanel::fill() {
             if (c.role == ColumnRole::Limit)
                 limitLevel = std::max(limitLevel, v);
         }
-        line->replace(points);
+        if (line->points() != points)
+            line->replace(points);
     }
     if (!std::isfinite(hi)) {
         hi = 1.0;
@@ -624,7 +627,8 @@ void ChartPanel::fill() {
                     rings << QPointF(mx, valueAt(c, r));
             }
         }
-        m_bound.ring->replace(rings);
+        if (m_bound.ring->points() != rings)
+            m_bound.ring->replace(rings);
     }
 }
 

@@ -101,6 +101,12 @@ void FindingsList::setChecks(const std::vector<Check>& checks) {
         setItem(row, MessageColumn, message);
         setItem(row, PointColumn, where);
     }
+    if (isVisible()) // hidden behind another tab: measured when shown
+        verticalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
+}
+
+void FindingsList::showEvent(QShowEvent* event) {
+    QTableWidget::showEvent(event);
     verticalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
 }
 

@@ -22,6 +22,9 @@ class FindingsList : public QTableWidget {
 
   signals:
     void fieldRequested(const QString& path);
+
+  protected:
+    void showEvent(QShowEvent* event) override;
 };
 
 } // namespace amp::ui
