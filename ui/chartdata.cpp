@@ -319,62 +319,80 @@ QString sourceLabel(const std::string& name) {
 /// The transient's series when the results carry them (a template so that this file builds
 /// with an engine that has no transient yet: the branch is dropped at compile time).
 template <typename R>
-bool fillTransient(ChartData& d, const Design& design, const R& full) {
+std::optional<ProfileSeries> seriesOf(const R& full) {
     if constexpr (requires { full.transient->time_s; full.transient->tj_C; full.transient->heatsink_C; }) {
-        if (!full.transient)
-            return false;
+        if (!full.transient || full.transient->time_s.empty())
+            return std::nullopt;
         const auto& t = *full.transient;
-        if (t.time_s.empty())
-            return false;
-        d.x = t.time_s;
-        const int switches = design.bank.count;
-        for (std::size_t k = 0; k < t.tj_C.size(); ++k) {
-            const std::string name = k < t.sources.size() ? t.sources[k] : std::string("source ") + std::to_string(k);
-            ChartColumn c = column(QStringLiteral("T_j %1").arg(sourceLabel(name)), QStringLiteral("°C"), ColumnRole::Line);
-            c.values = t.tj_C[k];
-            c.values.resize(d.x.size(), kNaN);
-            const bool diode = static_cast<int>(k) >= switches;
-            c.colour = diode ? chartstyle::lossColour(2) : chartstyle::deviceColour(static_cast<int>(k), switches);
-            d.columns.push_back(c);
-        }
-        ChartColumn sink = column(QObject::tr("Heatsink"), QStringLiteral("°C"), ColumnRole::Line);
-        sink.values = t.heatsink_C;
-        sink.values.resize(d.x.size(), kNaN);
-        sink.colour = chartstyle::heatsink();
-        d.columns.push_back(sink);
-        ChartColumn limit = column(QStringLiteral("T_j,max"), QStringLiteral("°C"), ColumnRole::Limit);
-        limit.values.assign(d.x.size(), design.bank.device.tjMax_C);
-        d.columns.push_back(limit);
-        QString sub = QObject::tr("hottest %1 °C at %2 s")
-                          .arg(QString::number(t.tjMax_C, 'f', 1), QString::number(t.tjMaxTime_s, 'f', 1));
-        if (t.repetitions > 1)
-            sub += t.periodic ? QObject::tr(" · repeating state after %1 runs of the profile").arg(t.repetitions)
-                              : QObject::tr(" · %1 runs of the profile, not yet repeating").arg(t.repetitions);
-        d.subtitle = sub;
-        return true;
+        ProfileSeries p;
+        p.time_s = t.time_s;
+        for (std::size_t k = 0; k < t.tj_C.size(); ++k)
+            p.sources.push_back(k < t.sources.size() ? sourceLabel(t.sources[k]) : QStringLiteral("source %1").arg(k));
+        p.tj_C = t.tj_C;
+        p.heatsink_C = t.heatsink_C;
+        p.tjMax_C = t.tjMax_C;
+        p.tjMaxTime_s = t.tjMaxTime_s;
+        p.repetitions = t.repetitions;
+        p.periodic = t.periodic;
+        return p;
     } else {
-        (void)d;
-        (void)design;
         (void)full;
-        return false;
+        return std::nullopt;
     }
 }
 
 } // namespace
 
-ChartData transientData(const Design& design, const Results* full) {
+std::optional<ProfileSeries> profileSeriesOf(const Results& full) { return seriesOf(full); }
+
+ChartData profileData(const Design& design, const ProfileSeries& t) {
     ChartData d;
     d.id = QStringLiteral("profile-temperatures");
     d.title = QObject::tr("Temperatures over the duty profile");
     d.xName = QObject::tr("Time");
     d.xUnit = QStringLiteral("s");
     d.yTitles = {QObject::tr("Temperature (°C)")};
-    if (!full) {
-        d.note = QObject::tr("Not computed yet: the duty-profile run is on its way.");
-        return d;
+    d.x = t.time_s;
+    const int switches = design.bank.count;
+    for (std::size_t k = 0; k < t.tj_C.size(); ++k) {
+        const QString name = k < t.sources.size() ? t.sources[k] : QStringLiteral("source %1").arg(k);
+        ChartColumn c = column(QStringLiteral("T_j %1").arg(name), QStringLiteral("°C"), ColumnRole::Line);
+        c.values = t.tj_C[k];
+        c.values.resize(d.x.size(), kNaN);
+        const bool diode = static_cast<int>(k) >= switches;
+        c.colour = diode ? chartstyle::lossColour(2) : chartstyle::deviceColour(static_cast<int>(k), switches);
+        d.columns.push_back(c);
     }
-    if (!fillTransient(d, design, *full))
-        d.note = QObject::tr("Not computed: the engine gave no duty-profile transient for this design.");
+    ChartColumn sink = column(QObject::tr("Heatsink"), QStringLiteral("°C"), ColumnRole::Line);
+    sink.values = t.heatsink_C;
+    sink.values.resize(d.x.size(), kNaN);
+    sink.colour = chartstyle::heatsink();
+    d.columns.push_back(sink);
+    ChartColumn limit = column(QStringLiteral("T_j,max"), QStringLiteral("°C"), ColumnRole::Limit);
+    limit.values.assign(d.x.size(), design.bank.device.tjMax_C);
+    d.columns.push_back(limit);
+    QString sub = QObject::tr("hottest %1 °C at %2 s")
+                      .arg(QString::number(t.tjMax_C, 'f', 1), QString::number(t.tjMaxTime_s, 'f', 1));
+    if (t.repetitions > 1)
+        sub += t.periodic ? QObject::tr(" · repeating state after %1 runs of the profile").arg(t.repetitions)
+                          : QObject::tr(" · %1 runs of the profile, not yet repeating").arg(t.repetitions);
+    d.subtitle = sub;
+    if (d.x.empty())
+        d.note = QObject::tr("Not computed: the duty-profile run gave no samples.");
+    return d;
+}
+
+ChartData transientData(const Design& design, const Results* full) {
+    if (full)
+        if (auto series = profileSeriesOf(*full))
+            return profileData(design, *series);
+    ChartData d;
+    d.id = QStringLiteral("profile-temperatures");
+    d.title = QObject::tr("Temperatures over the duty profile");
+    d.xName = QObject::tr("Time");
+    d.xUnit = QStringLiteral("s");
+    d.note = full ? QObject::tr("Not computed: the engine gave no duty-profile transient for this design.")
+                  : QObject::tr("Not computed yet: the duty-profile run is on its way.");
     return d;
 }
 

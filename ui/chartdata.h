@@ -101,8 +101,22 @@ SweepPoint sweepPointFrom(const Design& copy, const Results& results, double x);
 enum class SweepKind { DeviceCount, PwmFrequency };
 ChartData sweepData(SweepKind kind, const Design& design, const std::vector<SweepPoint>& points);
 
-/// The duty-profile transient: T_j(t) per switch, the freewheel diode and the heatsink T(t), with
-/// T_j,max. A note when the results carry no transient.
+/// The duty-profile transient as the charts take it (from Results when the engine gives it).
+struct ProfileSeries {
+    std::vector<double> time_s;
+    std::vector<QString> sources;           ///< "#0" … "#n−1" (switches), then the diode path
+    std::vector<std::vector<double>> tj_C;  ///< [source][sample]
+    std::vector<double> heatsink_C;         ///< [sample]
+    double tjMax_C = 0.0;                   ///< hottest junction over the run
+    double tjMaxTime_s = 0.0;
+    int repetitions = 1;
+    bool periodic = false;
+};
+/// The transient in the results, when they carry one.
+std::optional<ProfileSeries> profileSeriesOf(const Results& full);
+/// T_j(t) per switch and the diode path, the heatsink T(t), and T_j,max.
+ChartData profileData(const Design& design, const ProfileSeries& series);
+/// profileData() of the results' transient; a note when the results carry none.
 ChartData transientData(const Design& design, const Results* full);
 
 /// The Monte Carlo distribution of the bank's hottest T_j: a histogram when samples exist,

@@ -310,6 +310,7 @@ void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) 
     xAxis->append(m_data.categories);
     xAxis->setTitleText(m_data.xName);
     auto* yAxis = new QValueAxis;
+    yAxis->setLabelFormat(QStringLiteral("%g"));
     const int view = std::min<int>(m_viewIndex, static_cast<int>(m_data.yTitles.size()) - 1);
     if (view >= 0)
         yAxis->setTitleText(m_data.yTitles[static_cast<std::size_t>(view)]);
@@ -416,11 +417,14 @@ void ChartPanel::buildNumeric(QChart* chart, const std::vector<int>& shown) {
             axis->setTickAnchor(0.0);
             axis->setTickInterval(m_data.rowCount() > 10 ? 2.0 : 1.0);
             axis->setLabelFormat(QStringLiteral("%d"));
+        } else {
+            axis->setLabelFormat(QStringLiteral("%g"));
         }
         xAxis = axis;
     }
     xAxis->setTitleText(xTitle);
     auto* yAxis = new QValueAxis;
+    yAxis->setLabelFormat(QStringLiteral("%g"));
     const int view = std::min<int>(m_viewIndex, static_cast<int>(m_data.yTitles.size()) - 1);
     if (view >= 0)
         yAxis->setTitleText(m_data.yTitles[static_cast<std::size_t>(view)]);

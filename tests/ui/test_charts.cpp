@@ -23,6 +23,7 @@
 #include <QBarSet>
 #include <QChart>
 #include <QChartView>
+#include <QDir>
 #include <QFile>
 #include <QImage>
 #include <QLineSeries>
@@ -141,6 +142,7 @@ class TestCharts : public QObject {
     void missingSeriesShowANote();
     void hoverReadoutNamesTheValues();
     void spreadHistogramCountsEverySample();
+    void profileChartDrawsEverySource();
     void editToViewLatency();
 };
 
@@ -494,6 +496,58 @@ void TestCharts::spreadHistogramCountsEverySample() {
     const QList<QStringList> rows = csvRecords(csvText(p));
     QCOMPARE(rows[4].value(1), QString());
     QCOMPARE(rows[2].value(1).toDouble(), 101.0);
+}
+
+void TestCharts::profileChartDrawsEverySource() {
+    // A synthetic transient: first-order heating T(t) = T_a + ΔT·(1 − e^(−t/τ)) (the step response
+    // of one thermal RC, e.g. Incropera, lumped capacitance), one curve per source, drawn and
+    // written sample for sample.
+    DesignDocument doc;
+    QVERIFY(doc.load(demoFile()));
+    const Design& design = doc.design();
+    ProfileSeries series;
+    const int n = design.bank.count;
+    const double ambient = 35.0;
+    for (int i = 0; i <= 300; ++i)
+        series.time_s.push_back(0.5 * i);
+    for (int k = 0; k <= n; ++k) {
+        series.sources.push_back(k < n ? QStringLiteral("#%1").arg(k) : QStringLiteral("D"));
+        std::vector<double> tj;
+        const double rise = 60.0 + 4.0 * k;
+        const double tau = k < n ? 20.0 : 12.0;
+        for (double t : series.time_s)
+            tj.push_back(ambient + rise * (1.0 - std::exp(-t / tau)));
+        series.tj_C.push_back(tj);
+    }
+    for (double t : series.time_s)
+        series.heatsink_C.push_back(ambient + 45.0 * (1.0 - std::exp(-t / 90.0)));
+    series.tjMax_C = series.tj_C.back().back();
+    series.tjMaxTime_s = series.time_s.back();
+
+    ChartPanel panel;
+    panel.resize(900, 380);
+    panel.setData(profileData(design, series));
+    panel.show();
+    QVERIFY(QTest::qWaitForWindowExposed(&panel));
+    QVERIFY(!panel.showsNote());
+    int lines = 0;
+    for (QAbstractSeries* s : panel.chart()->series())
+        if (auto* line = qobject_cast<QLineSeries*>(s); line && !qobject_cast<QScatterSeries*>(s)) {
+            ++lines;
+            QCOMPARE(line->count(), static_cast<int>(series.time_s.size()));
+        }
+    QCOMPARE(lines, n + 1 + 1 + 1); // switches, the diode path, the heatsink, T_j,max
+    QLineSeries* sink = lineNamed(panel.chart(), "Heatsink");
+    QVERIFY(sink);
+    // At t = τ_sink the heatsink has made 1 − 1/e of its rise.
+    QVERIFY(near(sink->at(180).y(), ambient + 45.0 * (1.0 - std::exp(-1.0)), 1e-12));
+    const QList<QStringList> rows = csvRecords(csvText(panel.data()));
+    QCOMPARE(rows.size(), static_cast<int>(series.time_s.size()) + 1);
+    QCOMPARE(rows[0].value(0), QStringLiteral("Time [s]"));
+    QCOMPARE(rows[0].size(), n + 1 + 1 + 1 + 1);
+    const QDir out(QStringLiteral(AMPWRIGHT_BINARY_DIR "/screenshots"));
+    QVERIFY(QDir().mkpath(out.path()));
+    QVERIFY(panel.exportPng(out.filePath("chart-profile-synthetic.png")).isEmpty());
 }
 
 void TestCharts::editToViewLatency() {
