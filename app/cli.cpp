@@ -138,7 +138,7 @@ int evaluateCommand(const QStringList& args) {
     const auto design = loadWithOverrides(pos[1], p.values(set));
     if (!design)
         return 1;
-    const Results results = evaluate(*design);
+    const Results results = evaluate(*design, EvaluateOptions{.thermalTransient = true});
     if (!p.isSet(quiet))
         printSummary(results);
     if (p.isSet(json)) {
@@ -241,7 +241,7 @@ int runHeadless(const QString& designFile, const QString& jsonOut) {
     if (!design)
         return 1;
     out("No display: evaluating " + QFileInfo(designFile).absoluteFilePath() + " headless.");
-    const Results results = evaluate(*design);
+    const Results results = evaluate(*design, EvaluateOptions{.thermalTransient = true});
     printSummary(results);
     if (!writeJson(results, jsonOut))
         return 1;

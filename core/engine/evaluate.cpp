@@ -2,6 +2,7 @@
 #include "core/engine/evaluate.h"
 #include "core/engine/stage_protection.h"
 
+#include "core/engine/stage_thermal.h"
 #include "core/physics/bank_sharing.h"
 #include "core/physics/bipolar_on_state.h"
 #include "core/physics/chopper.h"
@@ -203,6 +204,7 @@ struct Context {
     bool mosfet = true;
     BipolarOnState bipolar;
     double rthCs_KperW = 0.0;
+    HeatsinkModel heatsink;             // stated or plate-fin geometry (stage_thermal.h)
     int diodes = 1;
     std::vector<double> ballast_ohm;    // per device
     std::vector<double> leg_ohm;        // per device
@@ -227,6 +229,7 @@ Context makeContext(const Design& d) {
     c.bipolar = bipolarOnState(d.bank.device);
     c.rthCs_KperW = interfaceResistance(d.bank.interface);
     c.diodes = std::max(1, d.bank.diodeCount);
+    c.heatsink = HeatsinkModel(d);
     for (const auto& dev : d.bank.devices) {
         c.ballast_ohm.push_back(std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm));
         c.leg_ohm.push_back(std::max(0.0, d.bank.legResistance_ohm + dev.legResistanceDeviation_ohm));
@@ -309,7 +312,10 @@ ThermalChainResult solveThermal(const Context& c, const Electrical& e) {
     const Design& d = *c.design;
     ThermalChainInput in;
     in.ambient_C = d.heatsink.ambient_C;
-    in.rthSa_KperW = std::max(0.0, d.heatsink.part.rthSa_KperW);
+    double heat_W = e.diodeLoss_W; // into the sink: R_th,sa may depend on it (natural convection)
+    for (const double p : e.conduction_W)
+        heat_W += p;
+    in.rthSa_KperW = std::max(0.0, c.heatsink.rthSa(heat_W));
     for (const double p : e.conduction_W)
         in.branches.push_back({p, std::max(0.0, d.bank.device.rthJc_KperW), c.rthCs_KperW, 1});
     in.branches.push_back({e.diodeLoss_W / c.diodes, std::max(0.0, d.bank.freewheelDiode.rthJc_KperW), c.rthCs_KperW,
@@ -323,6 +329,26 @@ std::vector<double> thermalMap(const Context& c, const Demand& demand, const std
     const std::vector<double> devices(t.begin(), t.end() - 1);
     const auto e = solveElectrical(c, demand, devices, t.back());
     return solveThermal(c, e).junction_C;
+}
+
+// Per-unit losses of the switches and of one freewheel diode at given junction temperatures, for
+// the thermal stage's transients: a computed point holds its current and back-EMF; point ==
+// profile size is a stall at the current limit (at full duty when there is none).
+void sourceLosses(const Context& c, const Results& r, std::size_t point, const std::vector<double>& tj,
+                  std::vector<double>& p) {
+    Demand demand;
+    if (point < r.operatingPoints.size()) {
+        demand.current_A = r.operatingPoints[point].motorCurrent_A;
+        demand.emf_V = r.operatingPoints[point].backEmf_V;
+    } else if (c.design->pwm.currentLimit_A > 0.0) {
+        demand.current_A = c.design->pwm.currentLimit_A;
+    } else {
+        demand.hold = Hold::DutyAtEmf;
+        demand.duty = c.design->pwm.maxDuty;
+    }
+    const auto e = solveElectrical(c, demand, std::vector<double>(tj.begin(), tj.end() - 1), tj.back());
+    p = e.conduction_W;
+    p.push_back(e.diodeLoss_W / c.diodes);
 }
 
 struct BankSolve {
@@ -768,7 +794,7 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
 
 } // namespace
 
-Results evaluate(const Design& input) {
+Results evaluate(const Design& input, const EvaluateOptions& options) {
     Results r;
     r.design = input.meta.title;
     r.topology = input.pwm.topology;
@@ -821,6 +847,10 @@ Results evaluate(const Design& input) {
         r.operatingPoints.push_back(std::move(op));
     }
     addProtection(d, r);
+    addThermalResults(
+        d, context.heatsink,
+        [&](std::size_t i, const std::vector<double>& tj, std::vector<double>& p) { sourceLosses(context, r, i, tj, p); },
+        {options.thermalTransient}, r);
     return r;
 }
 

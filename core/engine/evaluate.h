@@ -9,6 +9,13 @@
 
 namespace amp {
 
-Results evaluate(const Design& design);
+/// What evaluate() computes beyond the steady operating points and their checks.
+struct EvaluateOptions {
+    /// The duty-profile transient and the power-cycling life: tens of milliseconds, so the
+    /// interactive evaluation leaves them out and the command line and the report ask for them.
+    bool thermalTransient = false;
+};
+
+Results evaluate(const Design& design, const EvaluateOptions& options = {});
 
 } // namespace amp

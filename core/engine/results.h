@@ -111,6 +111,55 @@ struct OperatingPointResult {
     BankResult bank;
 };
 
+/// The heatsink at the hottest steady operating point (thermal/heatsink.h).
+struct HeatsinkSummary {
+    std::string mode;               ///< "stated" or "geometry"
+    double rthSa_KperW = 0.0;       ///< at the heat load of that point
+    double temperature_C = 0.0;     ///< mounting surface at that point
+    std::string operatingPoint;     ///< the point
+    double heat_W = 0.0;            ///< heat into the sink there
+    double heatCapacity_JperK = 0.0;
+    std::optional<double> finSpacing_m;        ///< geometry mode
+    std::optional<double> optimumFinSpacing_m; ///< geometry mode, natural convection
+    std::optional<double> optimumFinCount;     ///< fins of the given thickness at the optimum spacing
+    std::vector<std::string> notes;
+};
+
+/// The duty-profile transient (thermal/transient.h): series over the last profile repetition.
+struct TransientSummary {
+    std::vector<std::string> sources; ///< "Q1" … "Qn", then "D" (one freewheel diode)
+    double tjMax_C = 0.0;           ///< hottest junction (switches and diode) over the run
+    double tjMaxTime_s = 0.0;       ///< when, from the start of the profile
+    std::string tjMaxSource;
+    double heatsinkMax_C = 0.0;
+    double heatsinkMaxTime_s = 0.0; ///< from the start of the profile
+    std::vector<double> time_s;
+    std::vector<std::vector<double>> tj_C; ///< [source][sample]
+    std::vector<double> heatsink_C;
+    int repetitions = 0;            ///< profile repetitions simulated
+    bool periodic = false;          ///< the last repetition ended where it started
+    std::size_t steps = 0;
+    std::size_t fullSolves = 0;
+};
+
+/// One counted junction-temperature cycle and its life (thermal/cycling_life.h).
+struct LifeCycleResult {
+    double range_K = 0.0;
+    double mean_C = 0.0;
+    double count = 0.0;             ///< per profile repetition
+    double cyclesToFailure = 0.0;
+};
+
+/// Power-cycling life of the most stressed source over one profile repetition.
+struct LifeSummary {
+    std::string source;
+    std::vector<LifeCycleResult> cycles;
+    double damagePerRepetition = 0.0;
+    std::optional<double> repetitionsToEnd;
+    std::optional<double> hoursToEnd; ///< repetitions × profile duration
+    std::string note;               ///< the model's uncertainty, for display
+};
+
 /// Everything evaluate() computes for one design.
 struct Results {
     int formatVersion = 1;
@@ -123,6 +172,10 @@ struct Results {
     double maxTotalLoss_W = 0.0;
     std::vector<std::string> warnings; ///< solver notes that are not checks
     ProtectionResults protection;   ///< contactors, reversal, pre-charge, cables, fuse (engine/stage_protection.h)
+    std::optional<HeatsinkSummary> heatsink;
+    std::optional<TransientSummary> transient; ///< full evaluation only
+    std::optional<double> stallTimeToLimit_s;  ///< empty when the limit is never reached
+    std::optional<LifeSummary> life;           ///< full evaluation only
 };
 
 /// The worst severity among the checks (Pass when there are none).

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/results_json.h"
 #include "core/engine/protection_results_json.h"
+#include "core/engine/stage_thermal.h"
 
 #include <nlohmann/json.hpp>
 #include <spdlog/spdlog.h>
@@ -150,6 +151,7 @@ nlohmann::json resultsToJson(const Results& results) {
     j["maxTotalLoss_W"] = number(results.maxTotalLoss_W, "maxTotalLoss_W");
     j["warnings"] = results.warnings;
     addProtectionJson(results.protection, j);
+    addThermalJson(results, j);
     return j;
 }
 

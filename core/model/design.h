@@ -119,6 +119,21 @@ struct Bank {
     bool operator==(const Bank&) const = default;
 };
 
+/// A plate-fin extrusion, for heatsink.mode == "geometry" (model: thermal/heatsink.h).
+struct HeatsinkGeometry {
+    double baseWidth_m = 0.15;          ///< across the fins
+    double baseLength_m = 0.10;         ///< along the fins (vertical in natural convection)
+    double baseThickness_m = 8e-3;
+    int finCount = 12;                  ///< 0 = flat plate
+    double finHeight_m = 35e-3;         ///< above the base
+    double finThickness_m = 2e-3;
+    std::string material = "al6063-t5"; ///< "al6063-t5", "al6063-t6", "al6063-o", "aluminium", "copper"
+    std::string orientation = "vertical"; ///< "vertical" (fins vertical) or "horizontal" (base flat, fins up)
+    double emissivity = 0.8;            ///< finish: anodised ≈ 0.8, bare extrusion ≈ 0.1
+    double airVelocity_mps = 0.0;       ///< approach velocity of forced air; 0 = natural convection
+    bool operator==(const HeatsinkGeometry&) const = default;
+};
+
 /// The heatsink and where it sits.
 struct Heatsink {
     HeatsinkPart part;
@@ -126,7 +141,25 @@ struct Heatsink {
     bool insulatedFromTabs = false;     ///< heatsink isolated from every live tab
     bool wetLocation = false;           ///< boats, outdoor wash-down: lower touch-voltage limit
     bool exposed = true;                ///< can be touched in use
+    std::string mode = "stated";        ///< "stated" (part.rthSa_KperW, part.mass_kg) or "geometry"
+    double rthReferenceRise_K = 50.0;   ///< stated mode: the rise at which part.rthSa_KperW holds
+    double rthRiseExponent = 0.0;       ///< stated mode: n in R ∝ (ΔT/ΔT_ref)^−n; 0 = constant
+    HeatsinkGeometry geometry;          ///< geometry mode
     bool operator==(const Heatsink&) const = default;
+};
+
+/// Settings of the thermal studies after the steady operating points: the duty-profile
+/// transient, the stall time and the power-cycling life (models in thermal/).
+struct ThermalStudy {
+    double step_s = 0.01;               ///< transient time step (segments split into equal steps)
+    double resolveStep_K = 2.0;         ///< full bank solve when a junction moved this much
+    int repetitions = 20;               ///< profile repetitions (the most tried with untilPeriodic)
+    bool untilPeriodic = true;          ///< run the profile until it repeats itself
+    std::string stallStart = "hottestPoint"; ///< "ambient" or "hottestPoint" (hottest non-stall point)
+    double lifeCoefficient = 640.0;     ///< A in N_f = A·ΔT^α·exp(E_a/(k_B·T_m))
+    double lifeExponent = -5.0;         ///< α
+    double lifeActivation_eV = 0.8;     ///< E_a
+    bool operator==(const ThermalStudy&) const = default;
 };
 
 /// The reversing contactor.
@@ -199,6 +232,7 @@ struct Design {
     Reversing reversing;
     std::vector<Segment> dutyProfile;
     Wiring wiring;
+    ThermalStudy thermal;               ///< optional: defaults apply to older files
     bool operator==(const Design&) const = default;
 };
 

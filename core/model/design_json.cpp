@@ -71,8 +71,12 @@ AMP_JSON(Bank, device, count, devices, gateResistor_ohm, ballast_ohm,
                                                 legResistance_ohm, derating, sharingTarget,
                                                 neighbourCoupling_KperW, interface, freewheelDiode,
                                                 diodeCount, spread)
+AMP_JSON(HeatsinkGeometry, baseWidth_m, baseLength_m, baseThickness_m, finCount, finHeight_m,
+         finThickness_m, material, orientation, emissivity, airVelocity_mps)
 AMP_JSON(Heatsink, part, ambient_C, insulatedFromTabs, wetLocation,
-                                                exposed)
+                                                exposed, mode, rthReferenceRise_K, rthRiseExponent, geometry)
+AMP_JSON(ThermalStudy, step_s, resolveStep_K, repetitions, untilPeriodic, stallStart, lifeCoefficient,
+         lifeExponent, lifeActivation_eV)
 AMP_JSON(Reversing, present, contactor, suppression, reversalsPerDay,
                                                 stopSpeed_rpm, category, coilSupplyMin_V, coilSupplyMax_V,
                                                 coilTimeConstant_s, coilReleaseFraction, zener_V, tvs_V,
@@ -87,7 +91,7 @@ AMP_JSON(Wiring, batteryCableLength_m, batteryCable_mm2,
                                                 fuseRating_A, fuseVoltage_V, fuseBreaking_A, fuseI2t_A2s,
                                                 bankWithstandI2t_A2s, allowedCableDrop, cableInsulation)
 AMP_JSON(Design, meta, supply, motor, pwm, drive, bank, heatsink,
-                                                reversing, dutyProfile, wiring)
+                                                reversing, dutyProfile, wiring, thermal)
 
 void normalizeBank(Bank& bank) {
     if (bank.count < 0)

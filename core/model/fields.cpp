@@ -103,7 +103,10 @@ Table fosterFields(const std::string& what) {
         list("zthJc", 0, 10, "Z_th,jc Foster stages",
              "Optional Foster fit of the " + what +
                  "'s junction-to-case transient thermal impedance, Z(t) = Σ r·(1 − e^(−t/τ)). "
-                 "Empty: a single stage from R_th,jc is assumed. 2–5 stages are usual."),
+                 "2–5 stages are usual. A Foster fit reproduces the curve only and does not chain with the "
+                 "heatsink's network: the junction rides on the case (heatsink plus interface drop) and the "
+                 "device's power goes straight into the heatsink. Empty: R_th,jc acts at once, as if the die "
+                 "had no heat capacity (pessimistic for short pulses)."),
         num("zthJc[].r_KperW", Unit::KelvinPerWatt, 0.0, 100.0, "Stage resistance",
             "Thermal resistance r_i of one Foster stage; the stages add up to about R_th,jc."),
         num("zthJc[].tau_s", Unit::Second, 1e-9, 1e4, "Stage time constant",
@@ -508,6 +511,43 @@ Table buildDesignFields() {
         flag("heatsink.wetLocation", "Wet location",
              "Boats, outdoor wash-down: the touch-voltage limit drops from 60 V DC to 30 V DC."),
         flag("heatsink.exposed", "Can be touched", "True when the heatsink can be touched in use."),
+        choice("heatsink.mode", {"stated", "geometry"}, "Heatsink given by",
+               "\"stated\": R_th,sa and mass of the part as its maker states them; \"geometry\": computed "
+               "from the plate-fin extrusion below (optional; default \"stated\")."),
+        num("heatsink.rthReferenceRise_K", Unit::Kelvin, 1.0, 500.0, "R_th,sa reference rise",
+            "Stated mode: the sink's temperature rise at which R_th,sa is stated; catalogues often use 50–75 K "
+            "(optional; default 50 K)."),
+        num("heatsink.rthRiseExponent", Unit::None, 0.0, 0.5, "R_th,sa rise exponent",
+            "Stated mode: n in R_th,sa ∝ (ΔT/ΔT_ref)^−n; 0 = constant (forced air), about 0.25 for natural "
+            "convection (optional; default 0)."),
+        num("heatsink.geometry.baseWidth_m", Unit::Metre, 1e-3, 2.0, "Base width",
+            "Geometry mode: width of the base across the fins; 50–300 mm (optional; default 150 mm).", true),
+        num("heatsink.geometry.baseLength_m", Unit::Metre, 1e-3, 2.0, "Base length",
+            "Geometry mode: length along the fins, vertical in natural convection; 50–300 mm (optional; "
+            "default 100 mm).",
+            true),
+        num("heatsink.geometry.baseThickness_m", Unit::Metre, 1e-4, 0.2, "Base thickness",
+            "Geometry mode: thickness of the base plate; 4–15 mm (optional; default 8 mm).", true),
+        whole("heatsink.geometry.finCount", 0.0, 500.0, "Fin count",
+              "Geometry mode: number of fins, 0 for a flat plate, otherwise at least 2 (optional; default 12)."),
+        num("heatsink.geometry.finHeight_m", Unit::Metre, 0.0, 0.5, "Fin height",
+            "Geometry mode: fin height above the base; 15–60 mm (optional; default 35 mm)."),
+        num("heatsink.geometry.finThickness_m", Unit::Metre, 0.0, 0.05, "Fin thickness",
+            "Geometry mode: fin thickness; 1–3 mm for extrusions (optional; default 2 mm)."),
+        choice("heatsink.geometry.material", {"al6063-t5", "al6063-t6", "al6063-o", "aluminium", "copper"},
+               "Material",
+               "Geometry mode: aluminium 6063-T5 (209 W/m·K), -T6 (200), -O (218) (Aluminum Association), pure "
+               "aluminium (237) or copper (401) (Incropera) (optional; default 6063-T5)."),
+        choice("heatsink.geometry.orientation", {"vertical", "horizontal"}, "Orientation",
+               "Geometry mode: \"vertical\" (base and fins vertical, air rises along the fins) or "
+               "\"horizontal\" (base flat, fins up; derated, a common-practice estimate) (optional; default "
+               "vertical)."),
+        num("heatsink.geometry.emissivity", Unit::None, 0.0, 1.0, "Emissivity",
+            "Geometry mode: surface finish; anodised ≈ 0.8, bare or polished extrusion 0.05–0.1 (optional; "
+            "default 0.8)."),
+        num("heatsink.geometry.airVelocity_mps", Unit::MetrePerSecond, 0.0, 50.0, "Air velocity",
+            "Geometry mode: approach velocity of forced air through the fins (ducted); 0 = natural convection "
+            "(optional; default 0)."),
         flag("reversing.present", "Reversing contactor fitted", "True when a contactor reverses the armature."),
     };
     append(t, "", hs);
@@ -595,6 +635,32 @@ Table buildDesignFields() {
             "Voltage drop allowed in each cable, as a fraction of the nominal voltage; 0.01–0.05."),
         choice("wiring.cableInsulation", {"pvc", "xlpe"}, "Cable insulation",
                "\"pvc\" (conductor limit 70 °C, k = 115) or \"xlpe\" (90 °C, k = 143)."),
+
+        num("thermal.step_s", Unit::Second, 1e-4, 10.0, "Transient time step",
+            "Largest time step of the duty-profile transient; segments are split into equal steps "
+            "(optional; default 10 ms).",
+            true),
+        num("thermal.resolveStep_K", Unit::Kelvin, 0.0, 50.0, "Full solve every",
+            "The transient repeats the full bank solve when a junction has moved this much since the last; "
+            "0 = every step (optional; default 2 K)."),
+        whole("thermal.repetitions", 1.0, 1000.0, "Profile repetitions",
+              "Times the duty profile is run back to back; with \"run until periodic\" the most tried "
+              "(optional; default 20)."),
+        flag("thermal.untilPeriodic", "Run until periodic",
+             "Repeat the profile until it ends where it started (the state of a long working day) "
+             "(optional; default true)."),
+        choice("thermal.stallStart", {"ambient", "hottestPoint"}, "Stall starts from",
+               "State the stall-time study starts from: \"ambient\" (cold) or \"hottestPoint\" (the steady "
+               "state of the hottest operating point that is not itself a stall) (optional; default "
+               "hottestPoint)."),
+        num("thermal.lifeCoefficient", Unit::None, 1e-30, 1e30, "Life coefficient A",
+            "A in N_f = A·ΔT^α·exp(E_a/(k_B·T_m)) (Held et al. 1997: 640 for wire-bonded modules, from memory; "
+            "uncertain by an order of magnitude) (optional; default 640).",
+            true),
+        num("thermal.lifeExponent", Unit::None, -20.0, 0.0, "Life exponent α",
+            "α in the power-cycling law; about −5 (Held et al. 1997) (optional; default −5)."),
+        num("thermal.lifeActivation_eV", Unit::ElectronVolt, 0.0, 5.0, "Activation energy E_a",
+            "E_a in the power-cycling law; about 0.8 eV (Held et al. 1997) (optional; default 0.8 eV)."),
     };
     append(t, "", rest);
     append(t, "wiring.mainContactor.", designPart("contactor"));

@@ -387,8 +387,10 @@ class TestFields : public QObject {
 
     void markdown() {
         const std::string md = amp::fieldsMarkdown();
-        QVERIFY(md.rfind("| Field | Unit | Allowed | Meaning |", 0) == 0);
-        QVERIFY(md.find("| `supply.nominal_V` | V | 1 V … 1 kV |") != std::string::npos);
+        QVERIFY(md.rfind("| Field | Unit | Allowed | Default | Meaning |", 0) == 0);
+        // The default column comes from a default-constructed design (Supply::nominal_V = 48 V).
+        QVERIFY(md.find("| `supply.nominal_V` | V | 1 V … 1 kV | 48 V |") != std::string::npos);
+        QVERIFY(md.find("| `dutyProfile` |  | 0 … 1000 items | empty |") != std::string::npos);
         // One row per field plus the two header lines.
         const auto rows = std::count(md.begin(), md.end(), '\n');
         QCOMPARE(int(rows), int(amp::designFields().size()) + 2);
