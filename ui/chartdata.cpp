@@ -316,34 +316,24 @@ QString sourceLabel(const std::string& name) {
     return q;
 }
 
-/// The transient's series when the results carry them (a template so that this file builds
-/// with an engine that has no transient yet: the branch is dropped at compile time).
-template <typename R>
-std::optional<ProfileSeries> seriesOf(const R& full) {
-    if constexpr (requires { full.transient->time_s; full.transient->tj_C; full.transient->heatsink_C; }) {
-        if (!full.transient || full.transient->time_s.empty())
-            return std::nullopt;
-        const auto& t = *full.transient;
-        ProfileSeries p;
-        p.time_s = t.time_s;
-        for (std::size_t k = 0; k < t.tj_C.size(); ++k)
-            p.sources.push_back(k < t.sources.size() ? sourceLabel(t.sources[k]) : QStringLiteral("source %1").arg(k));
-        p.tj_C = t.tj_C;
-        p.heatsink_C = t.heatsink_C;
-        p.tjMax_C = t.tjMax_C;
-        p.tjMaxTime_s = t.tjMaxTime_s;
-        p.repetitions = t.repetitions;
-        p.periodic = t.periodic;
-        return p;
-    } else {
-        (void)full;
-        return std::nullopt;
-    }
-}
-
 } // namespace
 
-std::optional<ProfileSeries> profileSeriesOf(const Results& full) { return seriesOf(full); }
+std::optional<ProfileSeries> profileSeriesOf(const Results& full) {
+    if (!full.transient || full.transient->time_s.empty())
+        return std::nullopt;
+    const TransientSummary& t = *full.transient;
+    ProfileSeries p;
+    p.time_s = t.time_s;
+    for (std::size_t k = 0; k < t.tj_C.size(); ++k)
+        p.sources.push_back(k < t.sources.size() ? sourceLabel(t.sources[k]) : QStringLiteral("source %1").arg(k));
+    p.tj_C = t.tj_C;
+    p.heatsink_C = t.heatsink_C;
+    p.tjMax_C = t.tjMax_C;
+    p.tjMaxTime_s = t.tjMaxTime_s;
+    p.repetitions = t.repetitions;
+    p.periodic = t.periodic;
+    return p;
+}
 
 ChartData profileData(const Design& design, const ProfileSeries& t) {
     ChartData d;

@@ -73,9 +73,11 @@ std::vector<double> sweepFrequencies_Hz(const Design& design) {
 }
 
 Results fullEvaluation(const Design& design) {
-    // The engine's slow parts (the duty-profile transient, the bank's spread) join here as the
-    // engine offers them; the quick evaluation leaves them out.
-    return evaluate(design);
+    // The engine's slow parts, which the quick evaluation leaves out: the duty-profile transient
+    // and the power-cycling life.
+    EvaluateOptions options;
+    options.thermalTransient = true;
+    return evaluate(design, options);
 }
 
 std::optional<SlowResults> runSlowWork(const Design& design, const SlowWorkHooks& hooks) {
