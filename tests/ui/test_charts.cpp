@@ -263,6 +263,25 @@ void TestCharts::slowRunDrawsSweeps() {
         const auto& values = sweep->data().columns.front().values;
         QVERIFY(values[15] < reference.maxJunction_C);
     }
+    // The profile chart draws the engine's duty-profile transient of this design.
+    EvaluateOptions full;
+    full.thermalTransient = true;
+    const Results withTransient = evaluate(design, full);
+    QVERIFY(withTransient.transient);
+    ChartPanel* profile = window.charts()->profile();
+    showTabOf(window, profile);
+    QVERIFY(!profile->showsNote());
+    QLineSeries* sink = lineNamed(profile->chart(), "Heatsink");
+    QVERIFY(sink);
+    QCOMPARE(sink->count(), static_cast<int>(withTransient.transient->heatsink_C.size()));
+    for (int i = 0; i < sink->count(); i += 17)
+        QVERIFY(near(sink->at(i).y(), withTransient.transient->heatsink_C[static_cast<std::size_t>(i)], 1e-12));
+    QLineSeries* first = lineNamed(profile->chart(), "T_j #0"); // the engine's "Q1", numbered from 0 here
+    QVERIFY(first);
+    QVERIFY(near(first->at(first->count() / 2).y(),
+                 withTransient.transient->tj_C.front()[static_cast<std::size_t>(first->count() / 2)], 1e-12));
+    showTabOf(window, sweep);
+
     // Frequency sweep: the design's own frequency is one of the points, with its own figures.
     ChartPanel* freq = window.charts()->frequencySweep();
     const auto& fx = freq->data().x;
