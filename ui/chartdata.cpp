@@ -388,18 +388,64 @@ ChartData transientData(const Design& design, const Results* full) {
 
 // --- spread ----------------------------------------------------------------------------------
 
+namespace {
+
+/// The bank's Monte Carlo spread at the point with the hottest nominal junction, when the results
+/// carry one (a template: it builds with an engine that has no spread yet, and finds it once the
+/// operating points carry bank.spread).
+template <typename R>
+std::optional<ChartData> spreadOf(const Design& design, const R& full) {
+    using Point = std::decay_t<decltype(full.operatingPoints.front())>;
+    const Point* best = nullptr;
+    for (const Point& op : full.operatingPoints) {
+        if constexpr (requires { op.bank.spread->tjMax_C.p50; op.bank.spread->runawayFraction; }) {
+            if (!op.valid || !op.bank.spread)
+                continue;
+            double hottest = -1e300;
+            double bestHottest = -1e300;
+            for (const auto& d : op.devices)
+                hottest = std::max(hottest, d.tj_C);
+            if (best)
+                for (const auto& d : best->devices)
+                    bestHottest = std::max(bestHottest, d.tj_C);
+            if (!best || hottest > bestHottest)
+                best = &op;
+        }
+    }
+    if constexpr (requires(const Point& op) { op.bank.spread->tjMax_C.p50; }) {
+        if (!best)
+            return std::nullopt;
+        const auto& sp = *best->bank.spread;
+        double nominal = -1e300;
+        for (const auto& d : best->devices)
+            nominal = std::max(nominal, d.tj_C);
+        std::vector<SpreadPercentile> rows{{QObject::tr("median"), sp.tjMax_C.p50},
+                                           {QObject::tr("95th"), sp.tjMax_C.p95},
+                                           {QObject::tr("99th"), sp.tjMax_C.p99}};
+        if constexpr (requires { sp.cornerTjMax_C; })
+            rows.push_back({QObject::tr("worst corner"), sp.cornerTjMax_C});
+        ChartData d = spreadPercentileData(nominal, rows, design.bank.device.tjMax_C, sp.samples, sp.runawayFraction);
+        d.subtitle = QString::fromStdString(best->name) + QStringLiteral(" · ") + d.subtitle;
+        return d;
+    } else {
+        (void)design;
+        return std::nullopt;
+    }
+}
+
+} // namespace
+
 ChartData spreadData(const Design& design, const Results* full) {
+    if (full)
+        if (auto d = spreadOf(design, *full))
+            return *d;
     ChartData d;
     d.id = QStringLiteral("spread-hottest-junction");
     d.title = QObject::tr("Hottest junction across the spread of parts");
     d.xName = QObject::tr("Hottest T_j");
     d.yTitles = {QObject::tr("Samples")};
-    (void)design;
-    if (!full) {
-        d.note = QObject::tr("Not computed yet: the spread run is on its way.");
-        return d;
-    }
-    d.note = QObject::tr("Not computed: the engine gave no Monte Carlo spread of the bank for this design.");
+    d.note = full ? QObject::tr("Not computed: the engine gave no Monte Carlo spread of the bank for this design.")
+                  : QObject::tr("Not computed yet: the spread run is on its way.");
     return d;
 }
 
