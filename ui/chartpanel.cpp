@@ -115,6 +115,7 @@ ChartPanel::ChartPanel(QWidget* parent) : QWidget(parent) {
     QFont tf = m_title->font();
     tf.setBold(true);
     m_title->setFont(tf);
+    m_title->setMinimumWidth(60); // gives way in a narrow window rather than widening it
     m_subtitle = new QLabel(header);
     QPalette sp = m_subtitle->palette();
     sp.setColor(QPalette::WindowText, chartstyle::reference().darker(130));
