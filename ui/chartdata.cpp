@@ -82,6 +82,13 @@ std::vector<int> ChartData::columnsOf(int view) const {
     return out;
 }
 
+int ChartData::rowsOf(int view) const {
+    const int all = rowCount();
+    if (view < 0 || static_cast<std::size_t>(view) >= viewRows.size() || viewRows[static_cast<std::size_t>(view)] < 0)
+        return all;
+    return std::min(all, viewRows[static_cast<std::size_t>(view)]);
+}
+
 QString csvText(const ChartData& data) {
     QString out;
     QTextStream s(&out);
@@ -229,6 +236,13 @@ ChartData lossBreakdownData(const Design& design, const OperatingPointResult& po
         d.columns.push_back(fw);
     }
     d.yTitles = {QObject::tr("Loss (W)")};
+    if (diodes) {
+        // The freewheel path can carry many times a switch's loss (a stall at low duty): the
+        // switches alone first, so their causes stay readable; the second view adds the diodes.
+        d.views = {QObject::tr("Switches"), QObject::tr("With the diodes")};
+        d.viewRows = {static_cast<int>(point.devices.size()), -1};
+        d.yTitles = {QObject::tr("Loss (W)"), QObject::tr("Loss (W)")};
+    }
     if (d.categories.isEmpty())
         d.note = QObject::tr("No device results in %1.").arg(QString::fromStdString(point.name));
     return d;

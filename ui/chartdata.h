@@ -51,6 +51,7 @@ struct ChartData {
     bool xLogarithmic = false;
     std::vector<ChartColumn> columns;
     QStringList views;     ///< named views of the columns (empty: one view of them all)
+    std::vector<int> viewRows; ///< per view: how many leading rows it draws (missing or −1: all)
     std::vector<QString> yTitles; ///< per view (or one)
     std::optional<double> marker; ///< numeric x of the design as it stands (sweeps)
     QString note;          ///< when set, the chart is not drawn and this plain note stands instead
@@ -63,6 +64,8 @@ struct ChartData {
     QString rowLabel(int row) const;
     /// Columns shown in `view` (all columns when there are no views).
     std::vector<int> columnsOf(int view) const;
+    /// Rows drawn in `view` (the leading ones; the CSV has them all).
+    int rowsOf(int view) const;
 };
 
 /// The CSV text of a table: a header line (x, then "name [unit]" per column) and one line per

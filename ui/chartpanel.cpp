@@ -278,7 +278,7 @@ double ChartPanel::valueAt(const ChartColumn& c, int row) {
 }
 
 bool ChartPanel::drawnLayer(const ChartColumn& c) const {
-    for (int r = 0; r < m_data.rowCount(); ++r)
+    for (int r = 0; r < m_data.rowsOf(m_viewIndex); ++r)
         if (std::isfinite(valueAt(c, r)) && valueAt(c, r) != 0.0)
             return true;
     return false;
@@ -292,7 +292,7 @@ bool ChartPanel::wholeX() const {
 QString ChartPanel::structureKey() const {
     QStringList k;
     k << (m_data.isCategorical() ? QStringLiteral("bars") : QStringLiteral("lines")) << m_data.categories.join('|')
-      << QString::number(m_data.rowCount()) << QString::number(m_viewIndex) << m_data.xName
+      << QString::number(m_data.rowsOf(m_viewIndex)) << QString::number(m_viewIndex) << m_data.xName
       << QString::number(m_data.xScale) << (m_data.xLogarithmic ? QStringLiteral("log") : QString())
       << (m_data.marker ? QStringLiteral("marker") : QString()) << (wholeX() ? QStringLiteral("whole") : QString());
     for (const QString& t : m_data.yTitles)
@@ -306,9 +306,9 @@ QString ChartPanel::structureKey() const {
 }
 
 void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) {
-    const int rows = m_data.rowCount();
+    const int rows = m_data.rowsOf(m_viewIndex);
     auto* xAxis = new QBarCategoryAxis;
-    xAxis->append(m_data.categories);
+    xAxis->append(m_data.categories.mid(0, rows));
     xAxis->setTitleText(m_data.xName);
     auto* yAxis = new QValueAxis;
     yAxis->setLabelFormat(QStringLiteral("%g"));
@@ -503,7 +503,7 @@ void ChartPanel::buildNumeric(QChart* chart, const std::vector<int>& shown) {
 }
 
 void ChartPanel::fill() {
-    const int rows = m_data.rowCount();
+    const int rows = m_data.rowsOf(m_viewIndex);
     double hi = -std::numeric_limits<double>::infinity();
     double lo = std::numeric_limits<double>::infinity();
     auto widen = [&](double v) {
