@@ -64,6 +64,9 @@ ChartsView::ChartsView(DesignDocument* document, QWidget* parentWidget)
     statusRow->setContentsMargins(0, 0, 6, 0);
     statusRow->setSpacing(6);
     m_statusLabel = new QLabel(m_status);
+    // Wide enough for the longest state, so the status bar does not squeeze it to a letter.
+    m_statusLabel->setMinimumWidth(
+        m_statusLabel->fontMetrics().horizontalAdvance(tr("Profile and sweeps: sweep: 16 switches (30 of 30)")));
     m_progress = new QProgressBar(m_status);
     m_progress->setMaximumWidth(140);
     m_progress->setMaximumHeight(14);

@@ -25,6 +25,10 @@ class FindingsList : public QTableWidget {
 
   protected:
     void showEvent(QShowEvent* event) override;
+
+  private:
+    void fitRows(); ///< row heights for the wrapped messages at the present column width
+    bool m_rowsFitted = false;
 };
 
 } // namespace amp::ui
