@@ -6,6 +6,7 @@
 #include "core/io/datapaths.h"
 #include "core/io/partslibrary.h"
 #include "core/io/projectfile.h"
+#include "core/model/design_json.h"
 #include "core/model/fields.h"
 #include "core/units/units.h"
 
@@ -42,8 +43,16 @@ DataPaths dataPaths() {
 
 QString fmt(double v, units::Unit u, int digits = 3) { return QString::fromStdString(units::format(v, u, digits)); }
 
-// Load a design, apply --set overrides (validated like a file), report problems on stderr.
-std::optional<Design> loadWithOverrides(const QString& file, const QStringList& overrides) {
+/// The design to evaluate: one variant of a project, with --set overrides applied.
+struct Chosen {
+    Design design;
+    std::string variant;
+};
+
+// Load a project, choose the variant (the active one, or `variant` when given), apply --set
+// overrides to it (validated like a file); report problems on stderr.
+std::optional<Chosen> loadWithOverrides(const QString& file, const QStringList& overrides,
+                                        const QString& variant = {}) {
     const std::string name = QFileInfo(file).fileName().toStdString();
     auto reportAll = [&](const std::vector<Problem>& problems) {
         for (const auto& p : problems)
@@ -54,28 +63,44 @@ std::optional<Design> loadWithOverrides(const QString& file, const QStringList& 
         reportAll(loaded.problems);
         return std::nullopt;
     }
+    const Project& project = *loaded.project;
+    const Variant* chosen = &project.variants.at(project.activeIndex());
+    if (!variant.isEmpty()) {
+        chosen = project.find(variant.toStdString());
+        if (chosen == nullptr) {
+            QStringList names;
+            for (const auto& n : project.names())
+                names << "\"" + QString::fromStdString(n) + "\"";
+            err(QString::fromStdString(name) + ": --variant: there is no variant \"" + variant +
+                "\"; the variants are " + names.join(", "));
+            return std::nullopt;
+        }
+    }
     if (overrides.isEmpty())
-        return loaded.design;
-    nlohmann::json project = projectToJson(*loaded.design);
+        return Chosen{chosen->design, chosen->name};
+    nlohmann::json design = chosen->design;
     for (const auto& o : overrides) {
-        const auto problems = applyOverride(project, o.toStdString());
+        const auto problems = applyOverride(design, o.toStdString());
         if (!problems.empty()) {
             for (const auto& p : problems)
                 err(QString::fromStdString("--set " + p.path + ": " + p.message));
             return std::nullopt;
         }
     }
-    const LoadResult changed = designFromJson(project);
+    const LoadResult changed = designFromJson(design);
     if (!changed) {
         for (const auto& p : changed.problems)
             err(QString::fromStdString("--set: " + (p.path.empty() ? "" : p.path + ": ") + p.message));
         return std::nullopt;
     }
-    return changed.design;
+    return Chosen{*changed.design, chosen->name};
 }
 
 void printSummary(const Results& r) {
-    out(QString("%1  [%2]").arg(QString::fromStdString(r.design), QString::fromStdString(r.topology)));
+    out(QString("%1%2  [%3]")
+            .arg(QString::fromStdString(r.design),
+                 r.variant.empty() ? QString() : QString(" · variant \"%1\"").arg(QString::fromStdString(r.variant)),
+                 QString::fromStdString(r.topology)));
     for (const auto& op : r.operatingPoints) {
         double tjMax = 0.0;
         for (const auto& d : op.devices)
@@ -119,9 +144,10 @@ int evaluateCommand(const QStringList& args) {
     QCommandLineOption set("set", "Override a design field: path=value, e.g. bank.count=3 or "
                                   "bank.device.mosfet.rdsOn25_ohm=\"3.5 mΩ\". Repeatable.",
                            "path=value");
+    QCommandLineOption variant("variant", "Evaluate the variant <name> instead of the active one.", "name");
     QCommandLineOption quiet("quiet", "Print nothing but errors.");
     QCommandLineOption verbose("verbose", "Log details to the console.");
-    p.addOptions({json, set, quiet, verbose});
+    p.addOptions({json, set, variant, quiet, verbose});
     if (!p.parse(args)) {
         err(p.errorText());
         return 2;
@@ -135,10 +161,11 @@ int evaluateCommand(const QStringList& args) {
         err("evaluate needs exactly one design file (see ampwright evaluate --help)");
         return 2;
     }
-    const auto design = loadWithOverrides(pos[1], p.values(set));
-    if (!design)
+    const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
+    if (!chosen)
         return 1;
-    const Results results = evaluate(*design, EvaluateOptions{.thermalTransient = true});
+    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true});
+    results.variant = chosen->variant;
     if (!p.isSet(quiet))
         printSummary(results);
     if (p.isSet(json)) {
@@ -214,8 +241,9 @@ QString helpText() {
         "and writes <name>-results.json in the current folder.\n"
         "\n"
         "Commands:\n"
-        "  evaluate DESIGN [--json OUT] [--set path=value ...]\n"
+        "  evaluate DESIGN [--json OUT] [--variant NAME] [--set path=value ...]\n"
         "        Evaluate a design; print a summary; write the results JSON to OUT.\n"
+        "        The project's active variant, or the one named by --variant.\n"
         "        --set overrides a field by its dotted path, [i] for list items, e.g.\n"
         "        --set bank.count=3  --set dutyProfile[0].duration_s=20\n"
         "        --set bank.device.mosfet.rdsOn25_ohm=\"3.5 mΩ\"   (JSON, or a number with a unit)\n"
@@ -237,11 +265,12 @@ QString helpText() {
 }
 
 int runHeadless(const QString& designFile, const QString& jsonOut) {
-    const auto design = loadWithOverrides(designFile, {});
-    if (!design)
+    const auto chosen = loadWithOverrides(designFile, {});
+    if (!chosen)
         return 1;
     out("No display: evaluating " + QFileInfo(designFile).absoluteFilePath() + " headless.");
-    const Results results = evaluate(*design, EvaluateOptions{.thermalTransient = true});
+    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true});
+    results.variant = chosen->variant;
     printSummary(results);
     if (!writeJson(results, jsonOut))
         return 1;

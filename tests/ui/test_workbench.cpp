@@ -34,6 +34,7 @@
 #include <QScrollArea>
 #include <QSignalSpy>
 #include <QStackedWidget>
+#include <QStandardPaths>
 #include <QTabWidget>
 #include <QTest>
 #include <QTimer>
@@ -92,6 +93,7 @@ class TestWorkbench : public QObject {
 };
 
 void TestWorkbench::initTestCase() {
+    QStandardPaths::setTestModeEnabled(true); // recent files and window state: Qt's test location
     test::installLogGuard();
     QVERIFY2(QFileInfo::exists(demoFile()), qPrintable(demoFile()));
 }
