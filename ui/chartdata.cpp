@@ -282,7 +282,7 @@ ChartData sweepData(SweepKind kind, const Design& design, const std::vector<Swee
     ChartData d;
     const bool count = kind == SweepKind::DeviceCount;
     d.id = count ? QStringLiteral("sweep-device-count") : QStringLiteral("sweep-pwm-frequency");
-    d.title = count ? QObject::tr("Against switch count") : QObject::tr("Against PWM frequency");
+    d.title = count ? QObject::tr("Against switch count") : QObject::tr("Against frequency");
     d.xName = count ? QObject::tr("Switches in parallel") : QObject::tr("PWM frequency");
     d.xUnit = count ? QString() : QStringLiteral("Hz");
     if (!count) {
