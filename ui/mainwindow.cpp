@@ -2,6 +2,7 @@
 #include "ui/mainwindow.h"
 
 #include "ui/bankview.h"
+#include "ui/chartsview.h"
 #include "ui/designdocument.h"
 #include "ui/devicetable.h"
 #include "ui/fieldeditor.h"
@@ -67,6 +68,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent), m_document(new De
     m_evalLabel->setObjectName(QStringLiteral("evaluationState"));
     m_tallyLabel = new QLabel(this);
     statusBar()->addWidget(m_evalLabel, 1);
+    statusBar()->addPermanentWidget(m_charts->statusWidget());
     statusBar()->addPermanentWidget(new QLabel(tr("Variant"), this));
     statusBar()->addPermanentWidget(makeVariantSwitcher(m_document, this));
     statusBar()->addPermanentWidget(m_tallyLabel);
@@ -244,7 +246,8 @@ void MainWindow::buildCentre() {
     m_deviceTable = new DeviceTable(m_detailTabs);
     m_detailTabs->addTab(m_findings, tr("Findings"));
     m_detailTabs->addTab(m_deviceTable, tr("Per device"));
-    // Loss and temperature charts join these tabs.
+    m_charts = new ChartsView(m_document, this);
+    m_charts->addTabsTo(m_detailTabs);
     connect(m_findings, &FindingsList::fieldRequested, this, &MainWindow::focusField);
     column->addWidget(m_detailTabs, 1);
 
@@ -285,6 +288,7 @@ void MainWindow::showResults() {
         m_pointTable->clearResults();
         m_deviceTable->clearPoint();
         m_findings->setChecks({});
+        m_charts->showQuick(-1);
         return;
     }
     m_evalLabel->setPalette(QPalette());
@@ -316,6 +320,7 @@ void MainWindow::showResults() {
         }
     }
     m_pointTable->setResults(design, *results, m_selectedPoint);
+    m_charts->showQuick(m_selectedPoint);
     m_findings->setChecks(results->checks);
     m_detailTabs->setTabText(0, tr("Findings (%1)").arg(FindingsList::tally(results->checks)));
 

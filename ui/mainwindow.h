@@ -19,6 +19,7 @@ class QDropEvent;
 namespace amp::ui {
 
 class BankView;
+class ChartsView;
 class DesignDocument;
 class ProfileEditor;
 class DeviceTable;
@@ -55,6 +56,7 @@ class MainWindow : public QMainWindow {
     PointTable* pointTable() const { return m_pointTable; }
     DeviceTable* deviceTable() const { return m_deviceTable; }
     FindingsList* findingsList() const { return m_findings; }
+    ChartsView* charts() const { return m_charts; }
     ProfileEditor* profileEditor() const { return m_profile; }
     QString evaluationStatus() const;
 
@@ -96,6 +98,7 @@ class MainWindow : public QMainWindow {
     DeviceTable* m_deviceTable = nullptr;
     FindingsList* m_findings = nullptr;
     QTabWidget* m_detailTabs = nullptr;
+    ChartsView* m_charts = nullptr;
     QLabel* m_pointsCaption = nullptr;
     QLabel* m_evalLabel = nullptr;
     QLabel* m_tallyLabel = nullptr;
