@@ -1,7 +1,10 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "ui/workbench.h"
 
+#include "ui/designdocument.h"
 #include "ui/mainwindow.h"
+#include "ui/recentfiles.h"
+#include "ui/recovery.h"
 
 #include <QApplication>
 #include <QDir>
@@ -33,15 +36,23 @@ QString demoProjectPath() {
 int runWorkbench(QApplication& app, const QString& fileToOpen) {
     if (QCoreApplication::applicationName().isEmpty())
         QCoreApplication::setApplicationName(QStringLiteral("Ampwright"));
-    MainWindow window;
-    window.resize(1440, 900);
+    MainWindow window; // restores the geometry of the last session, if any
+    if (!hasSavedWindowState())
+        window.resize(1440, 900);
     window.show();
     if (!fileToOpen.isEmpty()) {
         window.openFile(fileToOpen); // on failure the problems are shown over a fresh design
     } else if (const QString demo = demoProjectPath(); !demo.isEmpty()) {
         window.openExample(demo);
     }
-    return app.exec();
+    // Unsaved work from a session that did not close is offered back; from here on it is kept
+    // in the recovery file every minute (ui/recovery.h).
+    const RecoveryFile recovery(defaultRecoveryFolder());
+    offerRecovery(*window.document(), recovery, &window);
+    Autosaver autosaver(window.document(), recovery);
+    const int code = app.exec();
+    recovery.remove(); // a normal end: the user saved or chose to discard
+    return code;
 }
 
 } // namespace amp::ui

@@ -161,11 +161,17 @@ struct Context {
     double cap_K = 0.0;
 };
 
+// Heat beyond conduction in device k (switching, recovery, gate drive in the die).
+double extraPower(const BankProblem& p, std::size_t k) {
+    const double extra = p.extraPowerPerDevice_W.size() == p.devices.size() ? p.extraPowerPerDevice_W[k] : 0.0;
+    return p.switchingPowerPerDevice_W + extra;
+}
+
 std::vector<double> averagePower(const Context& c, const detail::ElectricalPoint& pt) {
     std::vector<double> pw(pt.pDevice_W.size());
     const double scale = powerScale(c.p, pt);
     for (std::size_t k = 0; k < pw.size(); ++k)
-        pw[k] = scale * pt.pDevice_W[k] + c.p.switchingPowerPerDevice_W;
+        pw[k] = scale * pt.pDevice_W[k] + extraPower(c.p, k);
     return pw;
 }
 
@@ -199,7 +205,7 @@ void fillDevices(const Context& c, const detail::ElectricalPoint& pt, const std:
     for (std::size_t k = 0; k < n; ++k) {
         BankDeviceState& d = sol.devices[k];
         d.tj_C = toCelsius(t[k]);
-        d.switching_W = p.switchingPowerPerDevice_W;
+        d.switching_W = extraPower(p, k);
         if (k < pt.current_A.size()) {
             d.current_A = pt.current_A[k];
             d.share = std::abs(total) > 0.0 ? d.current_A / total : 1.0 / static_cast<double>(n);
@@ -359,6 +365,8 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
     c.range(p.ripplePeakToPeak_A, 0.0, 1e6, "ripplePeakToPeak_A", " A");
     c.range(p.rmsFactor, 0.0, 1e3, "rmsFactor");
     c.range(p.switchingPowerPerDevice_W, 0.0, 1e6, "switchingPowerPerDevice_W", " W");
+    for (std::size_t k = 0; k < p.extraPowerPerDevice_W.size(); ++k)
+        c.range(p.extraPowerPerDevice_W[k], 0.0, 1e6, "extraPowerPerDevice_W", " W");
     c.range(p.sinkExtraPower_W, 0.0, 1e6, "sinkExtraPower_W", " W");
     c.range(p.ambient_C, -60.0, 200.0, "heatsink.ambient_C", " °C");
     c.range(p.rthCs_KperW, 0.0, 1e3, "bank.interface", " K/W");

@@ -89,6 +89,7 @@ struct BankProblem {
     /// triangular ripple: 1 + (ΔI_pp/I)²/12).
     double rmsFactor = 0.0;
     double switchingPowerPerDevice_W = 0.0; ///< further heat in each junction (switching, body diode)
+    std::vector<double> extraPowerPerDevice_W; ///< when its size is N: added to each junction's heat
     double sinkExtraPower_W = 0.0;       ///< heat put straight on the heatsink (freewheel diode)
     double ambient_C = 30.0;
     double rthCs_KperW = 0.35;           ///< interface, case to sink, per device
@@ -131,7 +132,7 @@ struct BankDeviceState {
     double driveCurrent_A = 0.0;  ///< gate (pull-down) or base current
     double onStatePower_W = 0.0;  ///< dissipated in the die while conducting
     double conduction_W = 0.0;    ///< average over the period (duty, ripple)
-    double switching_W = 0.0;     ///< as given
+    double switching_W = 0.0;     ///< as given (switching + extra power)
     double loss_W = 0.0;          ///< conduction + switching: the junction's heat
     double ballast_W = 0.0;       ///< average, in the ballast resistor
     double leg_W = 0.0;           ///< average, in the leg

@@ -74,7 +74,7 @@ double MosfetModel::consistencyRaise(const MosfetParams& p, double tMax_K) {
     const MosfetModel m = make(p, 0.0, 0.0, tMax_K, 1.0);
     double worst = 0.0;
     for (double t = 233.15; t <= tMax_K + 1e-9; t += 10.0) {
-        const double rch = 1.0 / (2.0 * m.channelK(t) * m.overdrive(m.specGate_V, t));
+        const double rch = 1.0 / (2.0 * m.channelK(t) * (m.overdrive(m.specGate_V, t) + kEnhancementWidth_V));
         worst = std::max(worst, rch / m.nominalOnResistance(t));
     }
     return worst > 0.9 ? worst / 0.9 : 1.0;
@@ -99,8 +99,8 @@ MosfetModel::AtTemperature<S> MosfetModel::atTemperature(const S& t_K) const {
     at.vth = vthNom + vthShift_V;
     // Nominal die: R_ds(on) law minus the nominal channel at the specified gate voltage.
     const S ron = table.empty() ? rdsOn25_ohm * pow(r, tempExponent) : rdsOn25_ohm * tableFactor(table, t_K);
-    const S vovSpec = softplus(specGate_V - vthNom, at.smooth);
-    at.drift = scale * (ron - 1.0 / (2.0 * kNom * vovSpec));
+    const S vovFull = softplus(specGate_V - vthNom, at.smooth) + kEnhancementWidth_V;
+    at.drift = scale * (ron - 1.0 / (2.0 * kNom * vovFull));
     at.vovSpec = softplus(specGate_V - at.vth, at.smooth);
     return at;
 }
@@ -149,7 +149,7 @@ S MosfetModel::driftResistance(const S& t_K) const {
 template <class S>
 S MosfetModel::onResistance(const S& t_K) const {
     const AtTemperature<S> at = atTemperature(t_K);
-    return at.drift + 1.0 / (2.0 * at.k * overdrive(S(specGate_V), t_K));
+    return at.drift + 1.0 / (2.0 * at.k * (at.vovSpec + kEnhancementWidth_V));
 }
 
 template <class S>

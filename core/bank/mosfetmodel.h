@@ -20,17 +20,19 @@
 //   R_ds(on)(T) = R_25·((T)/298.15 K)^a  (drift-dominated silicon: a ≈ 2.3–2.5, Baliga,
 //                 "Fundamentals of Power Semiconductor Devices"), or R_25·table(T_j) when the part
 //                 has a normalised table (linear interpolation, linear extrapolation, ≥ 0.05).
-// How the two join: at the specified gate voltage and small V_DS the channel is a resistance
-// R_ch,spec; the drift takes the rest of the datasheet R_ds(on), so deep triode at V_spec matches
-// R_ds(on)(T) exactly. Above the specified gate voltage the square law would keep lowering the
-// channel resistance; real channels flatten (mobility degradation at high gate fields), and a
-// datasheet's R_ds(on) is its full-enhancement value, so the overdrive saturates smoothly (C¹):
+// How the two join: a datasheet's R_ds(on) is the full-enhancement value, so the channel's
+// overdrive saturates smoothly (C¹) a little above the specified gate voltage (real channels
+// flatten there: mobility degradation at high gate fields):
 //   V_ov,eff = V_ov − (V_ov − V_ov,spec)²/(4w) for V_ov,spec < V_ov < V_ov,spec + 2w, and
-//   V_ov,spec + w above, with w = 0.25 V (at most w/V_ov,spec, a few %, below R_ch,spec). At a higher gate voltage the channel part falls; at a low gate voltage the
-// channel saturates and the device becomes a current source whose current rises with temperature
-// below the zero-temperature-coefficient overdrive V_ov,ZTC ≈ (4/3)·|dV_th/dT|·T (from dI/dT = 0
-// of K(T)·V_ov²): a weakly driven bank hogs current.
-// If the stated K makes the channel alone exceed 90 % of R_ds(on) anywhere from −40 °C to the top
+//   V_ov,spec + w above, with w = 0.25 V,
+// and the drift takes the rest of R_ds(on)(T) at full enhancement:
+//   R_drift(T) = R_ds(on)(T) − R_ch,full(T),  R_ch,full(T) = 1/(2·K(T)·(V_ov(V_spec, T) + w)).
+// So from V_spec + 2w up the device is exactly R_ds(on)(T) at small V_DS; at V_spec itself the
+// channel is w/V_ov,spec (a few %) higher. Below, the channel is the square law: at a low gate
+// voltage it saturates and the device becomes a current source whose current rises with
+// temperature below the zero-temperature-coefficient overdrive V_ov,ZTC ≈ (4/3)·|dV_th/dT|·T
+// (from dI/dT = 0 of K(T)·V_ov²): a weakly driven bank hogs current.
+// If the stated K makes the full channel alone exceed 90 % of R_ds(on) anywhere from −40 °C to the top
 // of the solver's range, K is raised until it does not (the datasheet pair is inconsistent);
 // `kRaise` records the factor and the bank solver reports it.
 // Spread: a device's relative R_ds(on) deviation scales the whole die (R_drift·(1 + d),
@@ -69,7 +71,7 @@ struct MosfetModel {
     /// The factor K must be raised by for consistency with R_ds(on) over −40 °C … tMax_K (1 = none).
     static double consistencyRaise(const MosfetParams& p, double tMax_K);
 
-    /// R_ds(on)(T) of this device at the specified gate voltage (drift + channel).
+    /// R_ds(on)(T) of this device at full enhancement (drift + channel), the datasheet's value.
     template <class S>
     S onResistance(const S& t_K) const;
     /// V_th(T) of this device.
@@ -98,7 +100,7 @@ struct MosfetModel {
         S vth;    ///< V_th(T) of this device
         S drift;  ///< R_drift(T) of this device
         S smooth; ///< softplus width s = 3·V_T
-        S vovSpec; ///< this device's overdrive at the specified gate voltage
+        S vovSpec; ///< this device's overdrive at the specified gate voltage (the knee's start)
     };
     template <class S>
     AtTemperature<S> atTemperature(const S& t_K) const;

@@ -35,6 +35,8 @@ BankProblem problemAtLoad(const BankProblem& problem, double load_A) {
     if (problem.load_A > 0.0) {
         const double k = load_A / problem.load_A;
         p.switchingPowerPerDevice_W *= k;
+        for (double& w : p.extraPowerPerDevice_W)
+            w *= k;
         p.sinkExtraPower_W *= k;
         p.ripplePeakToPeak_A *= k; // same ripple fraction
     }

@@ -7,7 +7,7 @@
 // solution so the scan follows the bank's own branch; at the first unstable load, bisect between
 // it and the last stable one until the bracket is 0.1 % of the load. The heat that scales with
 // the load is scaled with it: the per-device switching power and the heat on the sink (freewheel
-// diode) are taken proportional to L/L_0 (E_sw ∝ V·I and the diode's loss ≈ V_f·I), with L_0 the
+// diode) and any per-device extra heat are taken proportional to L/L_0 (E_sw ∝ V·I and the diode's loss ≈ V_f·I), with L_0 the
 // problem's own load (no scaling when it is 0). Duty, ripple fraction and drive stay as given.
 // The first device to fail is the hottest one at the last stable load below the onset (the one
 // that reaches T_j,max first; in a hogging bank, the one that takes over). A load the drive cannot

@@ -1,8 +1,9 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/evaluate.h"
-#include "core/engine/stage_bank.h"
+#include "core/engine/stage_losses.h"
 #include "core/engine/stage_protection.h"
 
+#include "core/engine/stage_bank.h"
 #include "core/engine/stage_thermal.h"
 
 #include "core/bank/banksolver.h"
@@ -213,7 +214,8 @@ struct Context {
     int diodes = 1;
     std::vector<double> ballast_ohm;    // per device
     std::vector<double> leg_ohm;        // per device
-    BankProblem bankProblem;            // the bank as a network (no load yet)
+    LossPlan losses;                    // switching, drive, topology (engine/stage_losses.h)
+    BankProblem bankProblem;            // the bank as a network (core/bank/), no load yet
 };
 
 Context makeContext(const Design& d) {
@@ -235,12 +237,13 @@ Context makeContext(const Design& d) {
     c.bipolar = bipolarOnState(d.bank.device);
     c.rthCs_KperW = interfaceResistance(d.bank.interface);
     c.diodes = std::max(1, d.bank.diodeCount);
+    c.losses = planLosses(d);
+    c.bankProblem = bankProblemFor(d);
     c.heatsink = HeatsinkModel(d);
     for (const auto& dev : d.bank.devices) {
         c.ballast_ohm.push_back(std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm));
         c.leg_ohm.push_back(std::max(0.0, d.bank.legResistance_ohm + dev.legResistanceDeviation_ohm));
     }
-    c.bankProblem = bankProblemFor(d);
     return c;
 }
 
@@ -266,39 +269,13 @@ struct Electrical {
     std::vector<double> conduction_W;   // per device
     double diodeThreshold_V = 0.0;
     double diodeLoss_W = 0.0;           // all freewheel diodes
+    LossPoint losses;                   // switching, drive, recovery; every bank of the topology
+    double busExtraUsed_A = 0.0;        // the bus current for those losses this solve assumed
+    double busExtra_A = 0.0;            // the bus current they draw (V_bus·I = their power)
 };
 
-// The chopper with a bank drop V0 + R·i and the freewheel path at its temperature; fills the
-// chopper solution, the diode threshold and the diode loss of `e`.
-void runChopper(const Context& c, const Demand& demand, double drop_V, double resistance_ohm, double tjDiode_C,
-                Electrical& e) {
-    const Design& d = *c.design;
-    e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
-    ChopperCircuit circuit;
-    circuit.frequency_Hz = d.pwm.frequency_Hz;
-    circuit.inductance_H = d.motor.inductance_H;
-    circuit.loadResistance_ohm = c.motorBranch_ohm;
-    circuit.backEmf_V = demand.emf_V;
-    circuit.switchDrop_V = drop_V;
-    circuit.switchResistance_ohm = resistance_ohm;
-    circuit.diodeDrop_V = e.diodeThreshold_V;
-    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
-    switch (demand.hold) {
-    case Hold::CurrentAtEmf:
-        e.chopper = chopperForCurrent(circuit, c.supply, demand.current_A, d.pwm.maxDuty);
-        break;
-    case Hold::CurrentAtDuty:
-        e.chopper = chopperEmfForCurrent(circuit, c.supply, demand.duty, demand.current_A);
-        break;
-    case Hold::DutyAtEmf:
-        e.chopper = chopperAtDuty(circuit, c.supply, demand.duty);
-        break;
-    }
-    const auto& w = e.chopper.waveform;
-    e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
-}
-
-Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C) {
+Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C,
+                           const std::vector<double>& otherTj_C, double busExtra_A) {
     const Design& d = *c.design;
     const std::size_t n = d.bank.devices.size();
     Electrical e;
@@ -312,38 +289,119 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
     }
     e.sharing = shareByConductance(path);
     e.switchDrop_V = c.mosfet ? 0.0 : c.bipolar.drop_V;
-    runChopper(c, demand, e.switchDrop_V, e.sharing.resistance_ohm, tjDiode_C, e);
-    const auto& w = e.chopper.waveform;
-    e.conduction_W.resize(n);
-    for (std::size_t k = 0; k < n; ++k) {
-        const double avg = e.sharing.share[k] * w.switchAverage_A;
-        const double rms = e.sharing.share[k] * w.switchRms_A;
-        e.conduction_W[k] = e.switchDrop_V * avg + e.device_ohm[k] * rms * rms;
+    e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
+
+    ChopperCircuit circuit;
+    circuit.frequency_Hz = d.pwm.frequency_Hz;
+    circuit.inductance_H = d.motor.inductance_H;
+    circuit.loadResistance_ohm = c.motorBranch_ohm;
+    circuit.backEmf_V = demand.emf_V;
+    circuit.switchDrop_V = e.switchDrop_V;
+    circuit.switchResistance_ohm = e.sharing.resistance_ohm;
+    circuit.diodeDrop_V = e.diodeThreshold_V;
+    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    adaptStandIn(c.losses, d, e.sharing.resistance_ohm, e.switchDrop_V,
+                 tj_C.empty() ? d.heatsink.ambient_C : *std::max_element(tj_C.begin(), tj_C.end()), circuit);
+    // The stage's losses draw their bus current from the battery too: V_bus = V − R·(I_sw + I_x).
+    // I_x depends on V_bus only weakly (the edge energies scale with it): a few passes settle it.
+    double extra = busExtra_A;
+    for (int pass = 0; pass < 20; ++pass) {
+        ChopperSupply supply = c.supply;
+        supply.voltage_V -= supply.resistance_ohm * extra;
+        e.busExtraUsed_A = extra;
+        switch (demand.hold) {
+        case Hold::CurrentAtEmf:
+            e.chopper = chopperForCurrent(circuit, supply, demand.current_A, d.pwm.maxDuty);
+            break;
+        case Hold::CurrentAtDuty:
+            e.chopper = chopperEmfForCurrent(circuit, supply, demand.duty, demand.current_A);
+            break;
+        case Hold::DutyAtEmf:
+            e.chopper = chopperAtDuty(circuit, supply, demand.duty);
+            break;
+        }
+        const auto& w = e.chopper.waveform;
+        e.conduction_W.resize(n);
+        for (std::size_t k = 0; k < n; ++k) {
+            const double avg = e.sharing.share[k] * w.switchAverage_A;
+            const double rms = e.sharing.share[k] * w.switchRms_A;
+            e.conduction_W[k] = e.switchDrop_V * avg + e.device_ohm[k] * rms * rms;
+        }
+        e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
+
+        LossPointInput li;
+        li.busVoltage_V = e.chopper.busVoltage_V;
+        li.motorCurrent_A = w.motorAverage_A;
+        li.duty = w.duty;
+        li.minCurrent_A = w.iMin_A;
+        li.maxCurrent_A = w.iMax_A;
+        li.capacitorRms_A = w.capacitorRms_A;
+        li.onDrop_V = e.switchDrop_V;
+        li.share = e.sharing.share;
+        li.resistance_ohm = e.device_ohm;
+        li.ballast_ohm = c.ballast_ohm;
+        li.leg_ohm = c.leg_ohm;
+        li.tj_C = tj_C;
+        li.otherTj_C = otherTj_C;
+        li.diodeTj_C = tjDiode_C;
+        e.losses = computeLossPoint(c.losses, d, li);
+        if (e.losses.computesConduction) { // synchronous topologies: the stage has every bank's conduction
+            for (std::size_t k = 0; k < n && k < e.losses.banks.front().size(); ++k)
+                e.conduction_W[k] = e.losses.banks.front()[k].conduction_W;
+            e.diodeLoss_W = 0.0;
+        }
+        const double busPower = e.losses.busPower_W(standInConduction(circuit, w));
+        e.busExtra_A = e.chopper.busVoltage_V > 0.0 ? busPower / e.chopper.busVoltage_V : 0.0;
+        if (std::abs(e.busExtra_A - extra) <= 1e-12 * std::max(1.0, std::abs(extra)))
+            break;
+        extra = e.busExtra_A;
     }
-    e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
     return e;
+}
+
+// Heat in each device's junction: its conduction and what the loss stage adds (which holds the
+// conduction itself for the synchronous topologies).
+std::vector<double> junctionHeat(const Electrical& e) {
+    const auto& lp = e.losses;
+    std::vector<double> device(e.conduction_W.size());
+    for (std::size_t k = 0; k < device.size(); ++k) {
+        const double extra = lp.banks.empty() || k >= lp.banks.front().size() ? 0.0 : lp.banks.front()[k].junction_W;
+        device[k] = (lp.computesConduction ? 0.0 : e.conduction_W[k]) + extra;
+    }
+    return device;
 }
 
 ThermalChainResult solveThermal(const Context& c, const Electrical& e) {
     const Design& d = *c.design;
     ThermalChainInput in;
     in.ambient_C = d.heatsink.ambient_C;
-    double heat_W = e.diodeLoss_W; // into the sink: R_th,sa may depend on it (natural convection)
-    for (const double p : e.conduction_W)
+    const auto& lp = e.losses;
+    const std::vector<double> device = junctionHeat(e);
+    double heat_W = e.diodeLoss_W + lp.freewheelRecovery_W; // into the sink: R_th,sa may depend on it
+    for (const double p : device)
         heat_W += p;
+    for (std::size_t b = 1; b < lp.banks.size(); ++b)
+        for (const auto& dl : lp.banks[b])
+            heat_W += dl.junction_W;
     in.rthSa_KperW = std::max(0.0, c.heatsink.rthSa(heat_W));
-    for (const double p : e.conduction_W)
+    for (const double p : device)
         in.branches.push_back({p, std::max(0.0, d.bank.device.rthJc_KperW), c.rthCs_KperW, 1});
-    in.branches.push_back({e.diodeLoss_W / c.diodes, std::max(0.0, d.bank.freewheelDiode.rthJc_KperW), c.rthCs_KperW,
-                           c.diodes});
+    in.branches.push_back({(e.diodeLoss_W + lp.freewheelRecovery_W) / c.diodes,
+                           std::max(0.0, d.bank.freewheelDiode.rthJc_KperW), c.rthCs_KperW, c.diodes});
+    // The topology's other banks after the diode, device by device.
+    for (std::size_t b = 1; b < lp.banks.size(); ++b)
+        for (const auto& dl : lp.banks[b])
+            in.branches.push_back({dl.junction_W, std::max(0.0, d.bank.device.rthJc_KperW), c.rthCs_KperW, 1});
     return solveThermalChain(in);
 }
 
-// One pass of the electrothermal map: temperatures → losses → temperatures. The last entry is
-// the freewheel diodes' junction.
-std::vector<double> thermalMap(const Context& c, const Demand& demand, const std::vector<double>& t) {
-    const std::vector<double> devices(t.begin(), t.end() - 1);
-    const auto e = solveElectrical(c, demand, devices, t.back());
+// One pass of the electrothermal map: temperatures → losses → temperatures. The state holds the
+// devices, then the freewheel diodes' junction, then the devices of the topology's other banks.
+std::vector<double> thermalMap(const Context& c, const Demand& demand, const std::vector<double>& t, double busExtra_A) {
+    const std::size_t n = c.design->bank.devices.size();
+    const std::vector<double> devices(t.begin(), t.begin() + static_cast<std::ptrdiff_t>(n));
+    const std::vector<double> others(t.begin() + static_cast<std::ptrdiff_t>(n + 1), t.end());
+    const auto e = solveElectrical(c, demand, devices, t[n], others, busExtra_A);
     return solveThermal(c, e).junction_C;
 }
 
@@ -351,8 +409,9 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
                    std::vector<double>& memory);
 
 // Per-unit losses of the switches and of one freewheel diode at given junction temperatures, for
-// the thermal stage's transients (the bank network and the chopper, as at the steady points): a computed point holds its current and back-EMF; point ==
-// profile size is a stall at the current limit (at full duty when there is none).
+// the thermal stage's transients (the bank network and the loss stage, as at the steady points):
+// a computed point holds its current and back-EMF; point == profile size is a stall at the
+// current limit (at full duty when there is none).
 void sourceLosses(const Context& c, const Results& r, std::size_t point, const std::vector<double>& tj,
                   std::vector<double>& p, std::vector<double>& memory) {
     Demand demand;
@@ -371,33 +430,36 @@ void sourceLosses(const Context& c, const Results& r, std::size_t point, const s
 struct BankSolve {
     Electrical electrical;
     ThermalChainResult thermal;         // simple model only
-    std::vector<double> temperatures;   // simple model only: devices, then diode
+    std::vector<double> temperatures;   // simple model only: devices, then diode, then the other banks
     BankResult bank;
     int iterations = 0;
     bool network = false;               // the network solution below is the one reported
     BankSolution solution;              // core/bank/ network at the point
-    BankProblem problem;                // the point's bank problem (for evaluateFull)
+    BankProblem problem;                // the point's bank problem (for the bank studies)
     double tjDiode_C = 0.0;
 };
 
-// The simple model's fixed point (resistive sharing, saturated bipolar drop): the fallback when
-// the network has no state to report (a base drive that cannot hold the bank on, bad input).
-// Starting cold, the iterates rise monotonically towards the lowest fixed point; when there is
-// none they pass the runaway limit.
+// The simple model's fixed point (resistive sharing, saturated bipolar drop): the synchronous
+// topologies' solve, and the fallback when the network has no state to report (a base drive that
+// cannot hold the bank on). Starting cold, the iterates rise monotonically towards the lowest
+// fixed point; when there is none they pass the runaway limit.
 BankSolve solveBankSimple(const Context& c, const Demand& demand) {
     const Design& d = *c.design;
     const std::size_t n = d.bank.devices.size();
     BankSolve s;
-    std::vector<double> t(n + 1, d.heatsink.ambient_C);
+    std::vector<double> t(n + 1 + static_cast<std::size_t>(c.losses.banks - 1) * n, d.heatsink.ambient_C);
     bool converged = false;
     bool runaway = false;
+    double busExtra = 0.0; // the stage's bus current (settled inside each electrical solve)
     for (int it = 0; it < kMaxIterations; ++it) {
         s.iterations = it + 1;
-        const std::vector<double> devices(t.begin(), t.end() - 1);
-        s.electrical = solveElectrical(c, demand, devices, t.back());
+        const std::vector<double> devices(t.begin(), t.begin() + static_cast<std::ptrdiff_t>(n));
+        const std::vector<double> others(t.begin() + static_cast<std::ptrdiff_t>(n + 1), t.end());
+        s.electrical = solveElectrical(c, demand, devices, t[n], others, busExtra);
         s.thermal = solveThermal(c, s.electrical);
         std::vector<double> next = s.thermal.junction_C;
         double delta = 0.0;
+        busExtra = s.electrical.busExtra_A; // warm start for the next pass
         for (std::size_t k = 0; k < next.size(); ++k) {
             if (!finite(next[k]) || next[k] > kRunawayLimit_C)
                 runaway = true;
@@ -420,7 +482,7 @@ BankSolve solveBankSimple(const Context& c, const Demand& demand) {
         b.maxMinCurrentRatio = *lo > 0.0 ? *hi / *lo : 0.0;
     }
     auto hottest = [&]() {
-        const auto it = std::max_element(s.temperatures.begin(), s.temperatures.end() - 1);
+        const auto it = std::max_element(s.temperatures.begin(), s.temperatures.begin() + static_cast<std::ptrdiff_t>(n));
         return static_cast<int>(it - s.temperatures.begin());
     };
     if (runaway) {
@@ -446,11 +508,11 @@ BankSolve solveBankSimple(const Context& c, const Demand& demand) {
     // holds fixed (the motor current, or the duty at stall without a limit).
     const std::size_t m = n + 1;
     Eigen::MatrixXd jac(static_cast<Eigen::Index>(m), static_cast<Eigen::Index>(m));
-    const std::vector<double> base = thermalMap(c, demand, t);
+    const std::vector<double> base = thermalMap(c, demand, t, busExtra);
     for (std::size_t j = 0; j < m; ++j) {
         std::vector<double> tp = t;
         tp[j] += kJacobianStep_K;
-        const std::vector<double> moved = thermalMap(c, demand, tp);
+        const std::vector<double> moved = thermalMap(c, demand, tp, busExtra);
         for (std::size_t i = 0; i < m; ++i)
             jac(static_cast<Eigen::Index>(i), static_cast<Eigen::Index>(j)) = (moved[i] - base[i]) / kJacobianStep_K;
     }
@@ -485,11 +547,14 @@ BankSolve solveBankSimple(const Context& c, const Demand& demand) {
     return s;
 }
 
-// The bank as an electrothermal network (core/bank/) coupled with the chopper. The chopper sees the
-// bank's drop linearised at its on-state current, V_C(i) ≈ V0 + R_b·i with R_b = dV_C/dI, and gives
-// back the duty, the on-state current and the waveform's RMS factor; the network, with the diode's
-// heat on the sink, gives back the temperatures, V0 and R_b. The two settle in a few rounds; the
-// bank's losses then balance the chopper's energy exactly (banksolver.h: r_eff).
+// ---------------------------------------------------------------------------------------------
+// The bank as an electrothermal network (core/bank/), coupled with the chopper and the loss stage
+// (low-side chopper). The chopper sees the bank's drop linearised at its on-state current,
+// V_C(i) ≈ V0 + R_b·i with R_b = dV_C/dI, and gives back the duty, the on-state current and the
+// waveform's RMS factor; the loss stage adds each device's switching, recovery and drive heat and
+// the bus current they draw; the network, with the diode's heat on the sink, gives back the
+// temperatures, V0 and R_b. The rounds settle in a few; the bank's losses then balance the
+// chopper's energy exactly (banksolver.h: r_eff).
 constexpr int kMaxCouplingRounds = 40;
 
 void bankResultFrom(const BankSolution& b, BankResult& r) {
@@ -506,13 +571,97 @@ void bankResultFrom(const BankSolution& b, BankResult& r) {
         r.firstToFail = b.hottest;
 }
 
+// The loss stage's heat in each device of the reported bank beyond its conduction. A bipolar
+// bank's base drive is the network's own (its base currents flow in the solve), so the stage's
+// estimate of it is left out here.
+std::vector<double> stageExtraHeat(const Context& c, const Electrical& e) {
+    const std::size_t n = c.design->bank.devices.size();
+    std::vector<double> extra(n, 0.0);
+    if (e.losses.banks.empty())
+        return extra;
+    const auto& bank = e.losses.banks.front();
+    for (std::size_t k = 0; k < n && k < bank.size(); ++k)
+        extra[k] = std::max(0.0, bank[k].junction_W - (c.mosfet ? 0.0 : bank[k].drive_W));
+    return extra;
+}
+
+// Power the driver delivers into a bipolar bank, averaged: I_B·V_B at each base pin (device and
+// emitter path). The loss stage counts drive power as drawn from the battery; so does this.
+double baseDrivePower(const Context& c, const BankSolution& b) {
+    if (c.mosfet)
+        return 0.0;
+    double w = 0.0;
+    for (const auto& dv : b.devices)
+        w += b.powerScale * dv.driveCurrent_A * (dv.controlVoltage_V + b.commonNode_V - dv.voltage_V);
+    return w;
+}
+
+// The chopper with the bank's tangent drop V0 + R·i, the freewheel path at tjDiode_C and the loss
+// stage's bus current busExtra_A; then the loss stage at the network's last state (shares,
+// on-state resistances V/I, junctions).
+Electrical chopperWithBank(const Context& c, const Demand& demand, double drop_V, double resistance_ohm,
+                           double tjDiode_C, double busExtra_A, const std::vector<double>& share,
+                           const std::vector<double>& deviceResistance_ohm, const std::vector<double>& tj_C) {
+    const Design& d = *c.design;
+    const std::size_t n = d.bank.devices.size();
+    Electrical e;
+    e.switchDrop_V = drop_V;
+    e.sharing.share = share;
+    e.sharing.resistance_ohm = resistance_ohm;
+    e.device_ohm = deviceResistance_ohm;
+    e.conduction_W.assign(n, 0.0); // the network's, not the stand-in's
+    e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
+    ChopperCircuit circuit;
+    circuit.frequency_Hz = d.pwm.frequency_Hz;
+    circuit.inductance_H = d.motor.inductance_H;
+    circuit.loadResistance_ohm = c.motorBranch_ohm;
+    circuit.backEmf_V = demand.emf_V;
+    circuit.switchDrop_V = drop_V;
+    circuit.switchResistance_ohm = resistance_ohm;
+    circuit.diodeDrop_V = e.diodeThreshold_V;
+    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    ChopperSupply supply = c.supply;
+    supply.voltage_V -= supply.resistance_ohm * busExtra_A;
+    e.busExtraUsed_A = busExtra_A;
+    switch (demand.hold) {
+    case Hold::CurrentAtEmf:
+        e.chopper = chopperForCurrent(circuit, supply, demand.current_A, d.pwm.maxDuty);
+        break;
+    case Hold::CurrentAtDuty:
+        e.chopper = chopperEmfForCurrent(circuit, supply, demand.duty, demand.current_A);
+        break;
+    case Hold::DutyAtEmf:
+        e.chopper = chopperAtDuty(circuit, supply, demand.duty);
+        break;
+    }
+    const auto& w = e.chopper.waveform;
+    e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
+    LossPointInput li;
+    li.busVoltage_V = e.chopper.busVoltage_V;
+    li.motorCurrent_A = w.motorAverage_A;
+    li.duty = w.duty;
+    li.minCurrent_A = w.iMin_A;
+    li.maxCurrent_A = w.iMax_A;
+    li.capacitorRms_A = w.capacitorRms_A;
+    li.onDrop_V = 0.0; // the network's drop is all in the device resistances V/I
+    li.share = share;
+    li.resistance_ohm = deviceResistance_ohm;
+    li.ballast_ohm = c.ballast_ohm;
+    li.leg_ohm = c.leg_ohm;
+    li.tj_C = tj_C;
+    li.diodeTj_C = tjDiode_C;
+    e.losses = computeLossPoint(c.losses, d, li);
+    e.busExtra_A = e.busExtraUsed_A;
+    return e;
+}
+
 BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     const Design& d = *c.design;
     const std::size_t n = d.bank.devices.size();
     const double diodeR = std::max(0.0, d.bank.freewheelDiode.rthJc_KperW) + c.rthCs_KperW;
-    // First waveform from the simple model at ambient.
+    // First waveform and loss point from the simple model at ambient.
     const std::vector<double> ambient(n, d.heatsink.ambient_C);
-    Electrical e = solveElectrical(c, demand, ambient, d.heatsink.ambient_C);
+    Electrical e = solveElectrical(c, demand, ambient, d.heatsink.ambient_C, {}, 0.0);
     BankSolve s;
     s.problem = c.bankProblem;
     BankProblem& p = s.problem;
@@ -521,18 +670,19 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     bool settled = false;
     bool runaway = false;
     BankSolution runawayState;
-    // y = what the chopper sees of the bank and the diode, and the heatsink's R_th,sa at the heat it
-    // takes: (V0, R_b, T_diode, R_th,sa). One round maps the chopper at y through the network to
-    // g(y); the rounds settle at g(y) = y. Anderson mixing of depth 1 on the scaled residual g − y
-    // (Walker & Ni, SIAM J. Numer. Anal. 49, 2011) cuts the rounds of this mildly contracting map to
-    // a few.
-    constexpr int kY = 4;
+    // y = what the chopper sees of the bank and the diode, the heatsink's R_th,sa at the heat it
+    // takes, and the bus current of the stage's other losses: (V0, R_b, T_diode, R_th,sa, I_x). One
+    // round maps the chopper at y through the network to g(y); the rounds settle at g(y) = y.
+    // Anderson mixing of depth 1 on the scaled residual g − y (Walker & Ni, SIAM J. Numer. Anal. 49,
+    // 2011) cuts the rounds of this mildly contracting map to a few.
+    constexpr int kY = 5;
     std::array<double, kY> y{}, gPrev{}, fPrev{};
     {
-        double heat = e.diodeLoss_W;
-        for (const double w : e.conduction_W)
+        double heat = e.diodeLoss_W + e.losses.freewheelRecovery_W;
+        for (const double w : junctionHeat(e))
             heat += w;
         y[3] = std::max(0.0, c.heatsink.rthSa(heat));
+        y[4] = e.busExtraUsed_A;
     }
     bool havePrev = false;
     for (int round = 0; round < kMaxCouplingRounds; ++round) {
@@ -545,7 +695,8 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
         p.load_A = iOn;
         p.duty = duty;
         p.rmsFactor = duty > 0.0 && iOn > 0.0 ? w.switchRms_A * w.switchRms_A / (duty * iOn * iOn) : 0.0;
-        p.sinkExtraPower_W = e.diodeLoss_W;
+        p.sinkExtraPower_W = e.diodeLoss_W + e.losses.freewheelRecovery_W;
+        p.extraPowerPerDevice_W = stageExtraHeat(c, e);
         p.rthSa_KperW = y[3];
         BankSolution next = solveBank(p, have ? &b : nullptr);
         if (!next.converged && !runaway && next.failure == BankFailure::ThermalRunaway && next.devices.size() == n) {
@@ -572,16 +723,21 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
         }
         b = std::move(next);
         have = true;
-        double heat = e.diodeLoss_W;
+        double heat = p.sinkExtraPower_W;
         for (const auto& dv : b.devices)
             heat += dv.loss_W;
-        const std::array<double, kY> g{b.commonNode_V - b.incrementalResistance_ohm * b.load_A,
-                                       b.incrementalResistance_ohm,
-                                       b.heatsink_C + e.diodeLoss_W / c.diodes * diodeR,
-                                       std::max(0.0, c.heatsink.rthSa(heat))};
+        double stageBus = e.losses.busPower_W(0.0);
+        if (!c.mosfet && !e.losses.banks.empty())
+            for (const auto& dl : e.losses.banks.front())
+                stageBus -= dl.drive_W;
+        const double vBus = e.chopper.busVoltage_V;
+        const std::array<double, kY> g{
+            b.commonNode_V - b.incrementalResistance_ohm * b.load_A, b.incrementalResistance_ohm,
+            b.heatsink_C + p.sinkExtraPower_W / c.diodes * diodeR, std::max(0.0, c.heatsink.rthSa(heat)),
+            vBus > 0.0 ? (stageBus + baseDrivePower(c, b)) / vBus : 0.0};
         const std::array<double, kY> scale{std::max(std::abs(b.commonNode_V), 0.01),
                                            std::max(std::abs(b.incrementalResistance_ohm), 1e-6), 1.0,
-                                           std::max(g[3], 1e-3)};
+                                           std::max(g[3], 1e-3), std::max(std::abs(g[4]), 1e-3)};
         std::array<double, kY> f{};
         double fmax = 0.0;
         for (int i = 0; i < kY; ++i) {
@@ -610,10 +766,14 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
         fPrev = f;
         havePrev = round > 0;
         y = yNext;
-        Electrical ne;
-        ne.switchDrop_V = y[0];
-        runChopper(c, demand, y[0], std::max(y[1], 0.0), y[2], ne);
-        e = std::move(ne);
+        std::vector<double> share(n), resistance(n), tj(n);
+        for (std::size_t k = 0; k < n; ++k) {
+            const BankDeviceState& dv = b.devices[k];
+            share[k] = dv.share;
+            resistance[k] = dv.current_A > 1e-9 ? std::max(dv.voltage_V / dv.current_A, 0.0) : 0.0;
+            tj[k] = dv.tj_C;
+        }
+        e = chopperWithBank(c, demand, y[0], std::max(y[1], 0.0), y[2], y[4], share, resistance, tj);
     }
     s.network = true;
     s.electrical = std::move(e);
@@ -623,12 +783,12 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     // tolerance; after a runaway it is one step of the thermal map from where the bank ran away.
     {
         const BankProblem& bp = s.problem;
-        const double diodeLoss = s.electrical.diodeLoss_W;
+        const double diodeHeat = s.electrical.diodeLoss_W + s.electrical.losses.freewheelRecovery_W;
         const ThermalMatrices th = buildThermalMatrices(
             {static_cast<int>(n), bp.part.rthJc_KperW, bp.rthCs_KperW, bp.rthSa_KperW, bp.neighbourCoupling_KperW});
-        double total = diodeLoss;
+        double total = diodeHeat;
         for (std::size_t k = 0; k < n; ++k) {
-            double t = bp.ambient_C + th.zSink[k] * diodeLoss;
+            double t = bp.ambient_C + th.zSink[k] * diodeHeat;
             for (std::size_t j = 0; j < n; ++j)
                 t += th.at(static_cast<int>(k), static_cast<int>(j)) * s.solution.devices[j].loss_W;
             s.solution.devices[k].tj_C = t;
@@ -636,7 +796,7 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             total += s.solution.devices[k].loss_W;
         }
         s.solution.heatsink_C = bp.ambient_C + bp.rthSa_KperW * total;
-        s.tjDiode_C = s.solution.heatsink_C + diodeLoss / c.diodes * diodeR;
+        s.tjDiode_C = s.solution.heatsink_C + diodeHeat / c.diodes * diodeR;
     }
     if (runaway) {
         bankResultFrom(runawayState, s.bank);
@@ -655,22 +815,29 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
 
 void networkLosses(const Context& c, const Demand& demand, const std::vector<double>& tj, std::vector<double>& p,
                    std::vector<double>& memory) {
-    // One round, for speed (the transient asks often): the chopper with the simple bank model at
-    // these temperatures gives the waveform; the network, held at the same junction temperatures,
-    // splits the losses. The coupled rounds of solveBankPoint would move the duty by the difference
-    // of the two bank drops over the bus voltage: a second-order change in the losses.
+    // One round, for speed (the transient asks often): the chopper with the simple bank model and
+    // the loss stage at these temperatures give the waveform and the switching heat; the network,
+    // held at the same junction temperatures, splits the conduction. The coupled rounds of
+    // solveBankPoint would move the duty by the difference of the two bank drops over the bus
+    // voltage: a second-order change in the losses.
     const std::size_t n = c.design->bank.devices.size();
     const std::vector<double> devices(tj.begin(), tj.end() - 1);
-    const Electrical e = solveElectrical(c, demand, devices, tj.back());
+    const Electrical e = solveElectrical(c, demand, devices, tj.back(), {}, 0.0);
     const ChopperWaveform& w = e.chopper.waveform;
+    p.clear();
+    if (c.losses.topology != StageTopology::LowSideChopper || !w.valid) {
+        p = junctionHeat(e);
+        p.push_back((e.diodeLoss_W + e.losses.freewheelRecovery_W) / c.diodes);
+        return;
+    }
     BankProblem bp = c.bankProblem;
     bp.isothermal = true;
     bp.isothermalTjPerDevice_C = devices;
     bp.duty = w.duty;
     bp.load_A = w.duty > 0.0 ? w.switchAverage_A / w.duty : 0.0;
     bp.rmsFactor = w.duty > 0.0 && bp.load_A > 0.0 ? w.switchRms_A * w.switchRms_A / (w.duty * bp.load_A * bp.load_A) : 0.0;
-    const BankSolution b = w.valid ? solveBank(bp) : BankSolution{};
-    p.clear();
+    bp.extraPowerPerDevice_W = stageExtraHeat(c, e);
+    const BankSolution b = solveBank(bp);
     if (b.converged && b.devices.size() == n) {
         for (const auto& dv : b.devices)
             p.push_back(dv.loss_W);
@@ -689,9 +856,9 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
         }
         memory.assign(p.begin(), p.end());
     } else {
-        p = e.conduction_W;
+        p = junctionHeat(e);
     }
-    p.push_back(e.diodeLoss_W / c.diodes);
+    p.push_back((e.diodeLoss_W + e.losses.freewheelRecovery_W) / c.diodes);
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -878,7 +1045,8 @@ void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t in
 // ---------------------------------------------------------------------------------------------
 // One duty-profile segment.
 
-OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::size_t index, bool full) {
+OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::size_t index, std::vector<Check>& checks,
+                                      bool full) {
     const Design& d = *c.design;
     OperatingPointResult op;
     op.name = seg.name.empty() ? fmt::format("Segment {}", index + 1) : seg.name;
@@ -933,7 +1101,8 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
         }
     }
 
-    BankSolve s = solveBankPoint(c, demand);
+    const bool chopper = c.losses.topology == StageTopology::LowSideChopper;
+    BankSolve s = chopper ? solveBankPoint(c, demand) : solveBankSimple(c, demand);
     const Electrical& e = s.electrical;
     const ChopperSolution& ch = e.chopper;
     const ChopperWaveform& w = ch.waveform;
@@ -965,17 +1134,22 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     if (w.mode == ConductionMode::NoCurrent)
         op.notes.push_back("no current flows: the back-EMF is at or above the bus voltage, or the duty is zero");
     if (!s.network)
-        op.notes.push_back(fmt::format("the bank's network has no state to report ({}); the device figures use the "
-                                       "simple resistive model{}",
-                                       s.bank.failure,
-                                       c.mosfet ? "" : " V_CE = V_CE(sat) + (r_C + r_E)·I of a saturated bipolar"));
-    if (const std::string drive = baseDriveNote(d, c.bankProblem); !drive.empty())
+        op.notes.push_back(
+            chopper ? fmt::format("the bank's network has no state to report ({}); the device figures use the simple "
+                                  "resistive model{}",
+                                  s.bank.failure,
+                                  c.mosfet ? "" : " V_CE = V_CE(sat) + (r_C + r_E)·I of a saturated bipolar")
+                    : fmt::format("{}: the devices share as resistors{}; the bank's network solve covers the low-side "
+                                  "chopper",
+                                  d.pwm.topology,
+                                  c.mosfet ? "" : ", with the saturated bipolar drop V_CE(sat) + (r_C + r_E)·I"));
+    if (const std::string drive = baseDriveNote(d, c.bankProblem); !drive.empty() && s.network)
         op.notes.push_back(drive);
 
     const double iAvg = w.motorAverage_A;
     const double iRms = w.motorRms_A;
     op.motorCurrent_A = iAvg;
-    op.batteryCurrent_A = ch.batteryCurrent_A;
+    op.batteryCurrent_A = ch.batteryCurrent_A + e.busExtraUsed_A; // + what the switching losses draw
     op.duty = w.duty;
     op.speed_rpm = speed_radps / kRadPerSecPerRpm;
     op.backEmf_V = ch.backEmf_V;
@@ -991,8 +1165,8 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     op.diodeAverageCurrent_A = w.diodeAverage_A;
     op.diodeRmsCurrent_A = w.diodeRms_A;
     op.capacitorRmsCurrent_A = w.capacitorRms_A;
-    op.inputPower_W = ch.busVoltage_V * ch.batteryCurrent_A;
-    op.batteryLoss_W = ch.batteryCurrent_A * ch.batteryCurrent_A * c.supply.resistance_ohm;
+    op.inputPower_W = ch.busVoltage_V * op.batteryCurrent_A;
+    op.batteryLoss_W = op.batteryCurrent_A * op.batteryCurrent_A * c.supply.resistance_ohm;
 
     const MotorPower mp = motorPower(c.motor, iAvg, iRms, speed_radps);
     op.torque_Nm = mp.torque_Nm;
@@ -1008,7 +1182,7 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     const double duty = w.duty;
     op.devices.resize(n);
     if (s.network) {
-        // The network's per-device state (core/bank/): on-state current and drop, losses averaged
+        // The network's per-device state (core/bank/): on-state current and drop, conduction averaged
         // with the waveform's RMS factor, junctions from the shared thermal network.
         const BankSolution& b = s.solution;
         for (std::size_t k = 0; k < n; ++k) {
@@ -1020,24 +1194,17 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
             dv.current_A = bd.current_A;
             dv.ratingShare = bd.ratingShare;
             dv.voltage_V = bd.voltage_V;
-            if (!c.mosfet) {
-                // Base drive: I_B·V_BE at the pins heats the device; the driver also feeds the
-                // emitter path. Neither comes from the bus.
+            // A bipolar device's base drive I_B·V_BE (at its pins) heats it: the network's own.
+            if (!c.mosfet)
                 dv.drive_W = b.powerScale * bd.driveCurrent_A * bd.controlVoltage_V;
-                op.baseDrive_W +=
-                    b.powerScale * bd.driveCurrent_A * (bd.controlVoltage_V + b.commonNode_V - bd.voltage_V);
-            }
             dv.conduction_W = bd.conduction_W - dv.drive_W;
-            dv.switching_W = bd.switching_W;
             dv.ballast_W = bd.ballast_W;
             dv.leg_W = bd.leg_W;
-            dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
+            dv.loss_W = dv.conduction_W + dv.drive_W;
             dv.tj_C = bd.tj_C;
             dv.tcase_C = bd.tcase_C;
-            op.bankLoss_W += dv.loss_W + dv.ballast_W + dv.leg_W;
         }
-        op.freewheelDiode.tj_C = s.tjDiode_C;
-        op.heatsinkTemperature_C = b.heatsink_C;
+        op.baseDrive_W = baseDrivePower(c, b);
     } else {
         for (std::size_t k = 0; k < n; ++k) {
             DeviceResult& dv = op.devices[k];
@@ -1057,15 +1224,42 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
             dv.tcase_C = s.thermal.case_C[k];
             op.bankLoss_W += dv.loss_W + dv.ballast_W + dv.leg_W;
         }
-        op.freewheelDiode.tj_C = s.thermal.junction_C.back();
-        op.heatsinkTemperature_C = s.thermal.heatsink_C;
     }
     op.freewheelDiode.averageCurrent_A = w.diodeAverage_A;
     op.freewheelDiode.rmsCurrent_A = w.diodeRms_A;
     op.freewheelDiode.loss_W = e.diodeLoss_W;
+    op.freewheelDiode.tj_C = s.network ? s.tjDiode_C : s.thermal.junction_C[n];
+    if (e.losses.computesConduction) { // no freewheel diodes: the synchronous banks carry that current
+        op.freewheelDiode.averageCurrent_A = 0.0;
+        op.freewheelDiode.rmsCurrent_A = 0.0;
+    }
+    if (s.network) {
+        // The stage's switching, recovery and (MOSFET) gate heat, as the network took it; a bipolar
+        // device keeps the network's base drive.
+        std::vector<double> drive(n);
+        for (std::size_t k = 0; k < n; ++k)
+            drive[k] = op.devices[k].drive_W;
+        recordLossPoint(e.losses, {}, {}, op, checks);
+        for (std::size_t k = 0; k < n; ++k) {
+            DeviceResult& dv = op.devices[k];
+            if (!c.mosfet)
+                dv.drive_W = drive[k];
+            dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
+        }
+    } else {
+        const std::vector<double> otherTj(s.thermal.junction_C.begin() + static_cast<std::ptrdiff_t>(n + 1),
+                                          s.thermal.junction_C.end());
+        const std::vector<double> otherTcase(s.thermal.case_C.begin() + static_cast<std::ptrdiff_t>(n + 1),
+                                             s.thermal.case_C.end());
+        recordLossPoint(e.losses, otherTj, otherTcase, op, checks);
+    }
+    op.bankLoss_W = 0.0;
+    for (const auto& dv : op.devices)
+        op.bankLoss_W += dv.loss_W + dv.ballast_W + dv.leg_W;
     op.totalLoss_W = op.bankLoss_W + op.freewheelDiode.loss_W;
-    if (op.inputPower_W > 1e-9)
+    if (op.inputPower_W > 1e-9 && op.motorCurrent_A > 0.0) // null when no current flows
         op.efficiency = op.motorInputPower_W / op.inputPower_W;
+    op.heatsinkTemperature_C = s.network ? s.solution.heatsink_C : s.thermal.heatsink_C;
     op.bank = s.bank;
     if (full && s.network)
         addBankStudies(d, s.problem, op.bank);
@@ -1091,25 +1285,24 @@ Results evaluate(const Design& input, const EvaluateOptions& options) {
         r.warnings.push_back("the design has invalid fields; no operating point was computed");
         return r;
     }
-    if (d.pwm.topology != "lowSideChopper") {
-        r.warnings.push_back(fmt::format("topology \"{}\" is computed as a low-side chopper until its own model lands",
-                                         d.pwm.topology));
-        r.checks.push_back(makeCheck("model.topology", Severity::Warning, 0.0, 0.0, "", "engine coverage",
-                                     fmt::format("the {} topology is not modelled yet; the results are those of a "
-                                                 "low-side chopper with the same bank",
-                                                 d.pwm.topology),
-                                     "Set pwm.topology to lowSideChopper or wait for the topology's model",
-                                     "pwm.topology", ""));
+    const Context context = makeContext(d);
+    if (!context.losses.problems.empty()) {
+        for (const auto& p : context.losses.problems)
+            r.checks.push_back(makeCheck("design.input", Severity::Fail, 0.0, 0.0, "", "field ranges", p.message,
+                                         "Correct the field", p.path, ""));
+        r.warnings.push_back("the design has invalid fields; no operating point was computed");
+        return r;
     }
-    r.warnings.push_back("device losses are conduction losses only: switching, gate-drive and recovery losses are "
-                         "not computed yet");
+    r.warnings.insert(r.warnings.end(), context.losses.notes.begin(), context.losses.notes.end());
+    r.checks.insert(r.checks.end(), context.losses.checks.begin(), context.losses.checks.end());
+    if (d.bank.device.kind == "mosfet" && context.losses.topology != StageTopology::LowSideChopper)
+        r.warnings.push_back("the MOSFETs are taken as fully enhanced by the gate drive");
     if (d.dutyProfile.empty())
         r.warnings.push_back("the duty profile is empty: no operating point to evaluate");
 
-    const Context context = makeContext(d);
     bool any = false;
     for (std::size_t i = 0; i < d.dutyProfile.size(); ++i) {
-        OperatingPointResult op = evaluateSegment(context, d.dutyProfile[i], i, full);
+        OperatingPointResult op = evaluateSegment(context, d.dutyProfile[i], i, r.checks, full);
         if (!op.notes.empty() && op.devices.empty()) {
             // The segment could not be set up: its reasons are input problems.
             for (const auto& note : op.notes)

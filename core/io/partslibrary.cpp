@@ -79,10 +79,13 @@ void loadPartFile(const fs::path& file, PartsLibrary& lib) {
     }
     std::ostringstream ss;
     ss << in.rdbuf();
+    loadPartText(ss.str(), file, lib);
+}
 
+void loadPartText(std::string_view text, const fs::path& file, PartsLibrary& lib) {
     json doc;
     try {
-        doc = json::parse(ss.str());
+        doc = json::parse(text.begin(), text.end());
     } catch (const json::exception& e) {
         report(lib, file, "", "not valid JSON: " + shortJsonError(e));
         return;

@@ -10,6 +10,7 @@
 
 #include <filesystem>
 #include <string>
+#include <string_view>
 #include <vector>
 
 namespace amp {
@@ -41,5 +42,9 @@ PartsLibrary loadPartsLibrary(const std::vector<std::filesystem::path>& folders)
 
 /// Read one part file into `library` (used by loadPartsLibrary and the part editor's validation).
 void loadPartFile(const std::filesystem::path& file, PartsLibrary& library);
+
+/// Read the text of one part file into `library`; `file` only names it in the problems (used by
+/// loadPartFile and the fuzz target).
+void loadPartText(std::string_view text, const std::filesystem::path& file, PartsLibrary& library);
 
 } // namespace amp

@@ -43,7 +43,7 @@ BankProblem resistiveBank(int n, double load) {
     p.devices.resize(static_cast<std::size_t>(n));
     p.load_A = load;
     p.duty = 0.9;
-    p.driveVoltage_V = 10.0;
+    p.driveVoltage_V = 11.0; // fully enhanced: R_ds(on)(T) exactly (mosfetmodel.h)
     p.driveResistance_ohm = 0.0;
     p.pulldown_ohm = 0.0;
     p.legResistance_ohm = 0.0;

@@ -164,9 +164,11 @@ class TestBankModels : public QObject {
     }
 
     void deepTriodeMatchesRdsOn() {
-        // At the specified gate voltage and a small V_DS the channel + drift is R_ds(on)(T):
-        // I = V/(R_drift + R_ch) solved by bisection here, compared to R_ds(on) (1e-3, the triode
-        // V_DS² term at 10 mV is below that).
+        // Fully enhanced (1 V above the specified gate voltage) and at a small V_DS the channel +
+        // drift is R_ds(on)(T): I = V/(R_drift + R_ch) solved by bisection here, compared to
+        // R_ds(on) (1e-3, the triode V_DS² term at 10 mV is below that). At the specified gate
+        // voltage itself the channel is a few % short of full enhancement (the knee), so the device
+        // is at most 2 % above R_ds(on) there.
         MosfetParams p;
         const MosfetModel m = MosfetModel::make(p);
         for (double tC : {25.0, 100.0, 150.0}) {
@@ -176,9 +178,16 @@ class TestBankModels : public QObject {
             for (int i = 0; i < 200; ++i) {
                 const double i0 = 0.5 * (lo + hi);
                 const double vch = v - i0 * m.driftResistance(t);
-                (m.channelCurrent(p.rdsOnSpecGate_V, vch, t) > i0 ? lo : hi) = i0;
+                (m.channelCurrent(p.rdsOnSpecGate_V + 1.0, vch, t) > i0 ? lo : hi) = i0;
             }
             QVERIFY(test::relDiff(v / lo, m.onResistance(t)) < 1e-3);
+            double lo2 = 0.0, hi2 = 100.0;
+            for (int i = 0; i < 200; ++i) {
+                const double i0 = 0.5 * (lo2 + hi2);
+                const double vch = v - i0 * m.driftResistance(t);
+                (m.channelCurrent(p.rdsOnSpecGate_V, vch, t) > i0 ? lo2 : hi2) = i0;
+            }
+            QVERIFY(v / lo2 >= m.onResistance(t) && v / lo2 < 1.02 * m.onResistance(t));
         }
     }
 

@@ -228,7 +228,7 @@ class TestBankNetwork : public QObject {
         // I_k·(R_ds(on),k(T_k) + R_ballast,k + R_leg,k) is the same for every k (Ohm's law; 0.5 %
         // for the square-law channel's V_DS² term and the pull-down divider). Currents sum to the load.
         BankProblem p = mosfetBank(4, 120.0);
-        p.driveVoltage_V = 10.0; // = the specified gate voltage
+        p.driveVoltage_V = 11.0; // fully enhanced: above the specified 10 V plus the knee (mosfetmodel.h)
         p.pulldown_ohm = 0.0;
         p.driveResistance_ohm = 0.0;
         const double dev[4] = {-0.1, 0.0, 0.05, 0.2};
@@ -300,7 +300,7 @@ class TestBankNetwork : public QObject {
         //   λ = D·r·I_k²·dR/dT·(R_jc + R_cs + N·R_sa),  dR/dT = a·R(T)/T,
         // and the differential mode is negative (a hotter device sheds current). 1 %.
         BankProblem p = mosfetBank(4, 160.0);
-        p.driveVoltage_V = 10.0;
+        p.driveVoltage_V = 11.0; // fully enhanced (mosfetmodel.h)
         p.pulldown_ohm = 0.0;
         p.driveResistance_ohm = 0.0;
         p.legResistance_ohm = 0.0;

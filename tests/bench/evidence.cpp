@@ -1,0 +1,169 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "evidence.h"
+
+#include "core/engine/evaluate.h"
+#include "core/physics/chopper.h"
+#include "core/physics/copper.h"
+#include "core/physics/diode_conduction.h"
+#include "core/physics/mosfet_rdson.h"
+#include "core/physics/motor.h"
+#include "reference/chopperreference.h"
+
+#include <algorithm>
+#include <atomic>
+#include <chrono>
+#include <cmath>
+#include <thread>
+#include <vector>
+
+namespace amp::bench {
+
+namespace {
+
+using Clock = std::chrono::steady_clock;
+
+double micros(Clock::duration d) { return std::chrono::duration<double, std::micro>(d).count(); }
+
+double median(std::vector<double> v) {
+    std::sort(v.begin(), v.end());
+    return v.empty() ? 0.0 : v[v.size() / 2];
+}
+
+double rel(double a, double b, double floor) { return std::abs(a - b) / std::max(std::abs(b), floor); }
+
+} // namespace
+
+double evaluateMedian_us(const Design& design, int runs) {
+    std::vector<double> t;
+    t.reserve(static_cast<std::size_t>(runs));
+    volatile double sink = 0.0;
+    for (int i = 0; i < runs; ++i) {
+        const auto a = Clock::now();
+        const Results r = evaluate(design);
+        t.push_back(micros(Clock::now() - a));
+        sink = sink + r.maxTotalLoss_W;
+    }
+    return median(t);
+}
+
+double sweep10k_ms(const Design& design, int* threadsUsed) {
+    Design one = design;
+    if (one.dutyProfile.size() > 1)
+        one.dutyProfile.resize(1);
+    constexpr int kCounts = 50, kFrequencies = 200;
+    const int threads = std::max(1u, std::thread::hardware_concurrency());
+    if (threadsUsed != nullptr)
+        *threadsUsed = threads;
+    std::atomic<int> next{0};
+    std::atomic<long> solved{0};
+    const auto a = Clock::now();
+    std::vector<std::thread> pool;
+    for (int t = 0; t < threads; ++t) {
+        pool.emplace_back([&] {
+            Design d = one;
+            for (int i = next++; i < kCounts * kFrequencies; i = next++) {
+                d.bank.count = 1 + i / kFrequencies;
+                normalizeBank(d.bank);
+                d.pwm.frequency_Hz = 2000.0 + 38000.0 * (i % kFrequencies) / (kFrequencies - 1);
+                const Results r = evaluate(d);
+                if (!r.operatingPoints.empty() && r.operatingPoints.front().valid)
+                    ++solved;
+            }
+        });
+    }
+    for (auto& th : pool)
+        th.join();
+    return micros(Clock::now() - a) / 1000.0;
+}
+
+std::optional<ReferenceFigures> referenceFigures(const Design& d) {
+    if (d.bank.device.kind != "mosfet")
+        return std::nullopt;
+    const Results res = evaluate(d);
+    ReferenceFigures out;
+    double bestCurrent = -1.0;
+    ChopperCircuit bestEngine;
+    ChopperSupply bestSupply;
+    double bestDuty = 0.0;
+    reference::CycleCircuit bestRef;
+    for (const auto& p : res.operatingPoints) {
+        if (!p.valid || p.devices.empty() || p.conductionMode != "continuous")
+            continue;
+        // The circuit of this point with the on-resistances at the junction temperatures the engine
+        // found (as in tests/core/test_reference_chopper.cpp).
+        ChopperCircuit e;
+        e.frequency_Hz = d.pwm.frequency_Hz;
+        e.inductance_H = d.motor.inductance_H;
+        e.loadResistance_ohm = makeMotorModel(d.motor).armatureResistance_ohm +
+                               copper::conductorResistance(d.wiring.motorCableLength_m, d.wiring.motorCable_mm2,
+                                                           d.wiring.cableTemperature_C) +
+                               (d.reversing.present ? 2.0 * d.reversing.contactor.contactResistance_ohm : 0.0);
+        e.backEmf_V = p.backEmf_V;
+        double g = 0.0;
+        for (std::size_t k = 0; k < p.devices.size() && k < d.bank.devices.size(); ++k) {
+            const auto& dev = d.bank.devices[k];
+            g += 1.0 / (rdsOn(d.bank.device.mosfet, p.devices[k].tj_C) * (1.0 + dev.rdsOnDeviation) +
+                        std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm) +
+                        std::max(0.0, d.bank.legResistance_ohm + dev.legResistanceDeviation_ohm));
+        }
+        e.switchResistance_ohm = 1.0 / g;
+        e.diodeDrop_V = diodeThreshold(d.bank.freewheelDiode, p.freewheelDiode.tj_C);
+        e.diodeResistance_ohm = d.bank.freewheelDiode.rd_ohm / std::max(1, d.bank.diodeCount);
+        const ChopperSupply supply{d.supply.nominal_V,
+                                   d.supply.internalResistance_ohm +
+                                       copper::conductorResistance(d.wiring.batteryCableLength_m, d.wiring.batteryCable_mm2,
+                                                                   d.wiring.cableTemperature_C)};
+        reference::CycleCircuit c;
+        c.batteryVoltage_V = supply.voltage_V;
+        c.batteryResistance_ohm = supply.resistance_ohm;
+        c.frequency_Hz = e.frequency_Hz;
+        c.duty = p.duty;
+        c.inductance_H = e.inductance_H;
+        c.loadResistance_ohm = e.loadResistance_ohm;
+        c.backEmf_V = e.backEmf_V;
+        c.switchResistance_ohm = e.switchResistance_ohm;
+        c.diodeDrop_V = e.diodeDrop_V;
+        c.diodeResistance_ohm = e.diodeResistance_ohm;
+        const reference::CycleResult r = reference::simulateChopper(c);
+        const ChopperSolution s = chopperAtDuty(e, supply, p.duty);
+        if (!r.converged || !s.waveform.valid)
+            continue;
+        const auto& w = s.waveform;
+        const double fl = 1e-3 * std::max(1.0, r.motorAverage_A);
+        const double swLoss = e.switchResistance_ohm * w.switchRms_A * w.switchRms_A;
+        const double dLoss = e.diodeDrop_V * w.diodeAverage_A + e.diodeResistance_ohm * w.diodeRms_A * w.diodeRms_A;
+        out.maxRelError = std::max({out.maxRelError, rel(w.motorAverage_A, r.motorAverage_A, fl),
+                                    rel(w.switchAverage_A, r.switchAverage_A, fl), rel(w.switchRms_A, r.switchRms_A, fl),
+                                    rel(w.diodeAverage_A, r.diodeAverage_A, fl), rel(w.diodeRms_A, r.diodeRms_A, fl),
+                                    rel(w.ripplePeakToPeak_A, r.ripplePeakToPeak_A, fl),
+                                    rel(swLoss, r.switchLoss_W, 1e-3), rel(dLoss, r.diodeLoss_W, 1e-3)});
+        ++out.points;
+        if (p.motorCurrent_A > bestCurrent) {
+            bestCurrent = p.motorCurrent_A;
+            bestEngine = e;
+            bestSupply = supply;
+            bestDuty = p.duty;
+            bestRef = c;
+        }
+    }
+    if (out.points == 0)
+        return std::nullopt;
+    std::vector<double> te, tr;
+    volatile double sink = 0.0;
+    for (int i = 0; i < 2001; ++i) {
+        const auto a = Clock::now();
+        sink = sink + chopperAtDuty(bestEngine, bestSupply, bestDuty).waveform.switchRms_A;
+        te.push_back(micros(Clock::now() - a));
+    }
+    for (int i = 0; i < 21; ++i) {
+        const auto a = Clock::now();
+        sink = sink + reference::simulateChopper(bestRef).switchRms_A;
+        tr.push_back(micros(Clock::now() - a));
+    }
+    out.engine_us = median(te);
+    out.reference_us = median(tr);
+    out.speedup = out.engine_us > 0.0 ? out.reference_us / out.engine_us : 0.0;
+    return out;
+}
+
+} // namespace amp::bench
