@@ -74,9 +74,10 @@ std::vector<double> sweepFrequencies_Hz(const Design& design) {
 
 Results fullEvaluation(const Design& design) {
     // The engine's slow parts, which the quick evaluation leaves out: the duty-profile transient
-    // and the power-cycling life.
+    // and the power-cycling life, and the bank's studies (runaway load, minimum ballast, spread).
     EvaluateOptions options;
     options.thermalTransient = true;
+    options.bankStudies = true;
     return evaluate(design, options);
 }
 

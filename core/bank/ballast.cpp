@@ -8,7 +8,9 @@ namespace amp {
 
 namespace {
 
-bool passes(const BankSolution& s, double target) { return s.stable && s.maxMinCurrentRatio <= target; }
+bool passes(const BankSolution& s, double target) {
+    return s.stable && s.maxMinCurrentRatio <= target;
+}
 
 void fill(BallastSearch& r, const BankProblem& p, double ohm, const BankSolution& s) {
     r.ballast_ohm = ohm;
@@ -104,7 +106,8 @@ BallastSearch findMinimumBallast(const BankProblem& problem, double target, doub
     // 2. It shares but is not stable there: look a little higher for a value that is both.
     const double sharing = hi;
     double below = hi;
-    for (double ohm = hi * 1.05; ohm <= std::min(4.0 * sharing, maxBallast_ohm) * (1.0 + 1e-12); ohm *= 1.05) {
+    for (double ohm = hi * 1.05; ohm <= std::min(4.0 * sharing, maxBallast_ohm) * (1.0 + 1e-12);
+         ohm *= 1.05) {
         const BankSolution t = solveWith(ohm);
         if (passes(t, target)) {
             double a = below, b = ohm;

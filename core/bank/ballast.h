@@ -33,9 +33,9 @@ struct BallastSearch {
     std::optional<double> ballast_ohm;  ///< empty when no value up to the limit works
     std::vector<double> ballastPower_W; ///< per device, average, at that value
     double totalBallastPower_W = 0.0;
-    double efficiencyCost = 0.0;        ///< ballast power / (V_bus·duty·I)
-    BankSolution solution;              ///< the bank with that ballast (or at the limit)
-    std::string reason;                 ///< why not found, or a note
+    double efficiencyCost = 0.0; ///< ballast power / (V_bus·duty·I)
+    BankSolution solution;       ///< the bank with that ballast (or at the limit)
+    std::string reason;          ///< why not found, or a note
     int solves = 0;
 };
 

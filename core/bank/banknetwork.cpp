@@ -18,8 +18,7 @@ namespace amp::detail {
 
 namespace {
 
-template <class S>
-struct LegOut {
+template <class S> struct LegOut {
     std::array<S, 4> r{};
     S ig, ic, pDev, pBallast, pLeg, pDrive, vDev, vControl;
 };
@@ -49,8 +48,7 @@ struct MosfetLeg {
     double leg_ohm = 0.0;
     double pulldown_ohm = 0.0;
 
-    template <class S>
-    void eval(const S& vg, const S& vc, const S* u, const S& t, LegOut<S>& o) const {
+    template <class S> void eval(const S& vg, const S& vc, const S* u, const S& t, LegOut<S>& o) const {
         const S& i = u[0];
         const double rs = ballast_ohm + leg_ohm;
         S ig(0.0);
@@ -102,8 +100,7 @@ struct MosfetLeg {
         eval(vg, vc, u, t, o);
         const double vov = model.overdrive(o.vControl, t);
         const double vch = o.vDev - u[0] * model.driftResistance(t);
-        if (model.channelCurrent(o.vControl, vch, t) <= 1e-9 * std::max(1.0, std::abs(u[0])) &&
-            vov < 0.05)
+        if (model.channelCurrent(o.vControl, vch, t) <= 1e-9 * std::max(1.0, std::abs(u[0])) && vov < 0.05)
             return "off";
         return vch >= vov ? "saturation" : "ohmic";
     }
@@ -121,8 +118,7 @@ struct BipolarLeg {
     double ballast_ohm = 0.0;
     double leg_ohm = 0.0;
 
-    template <class S>
-    void eval(const S& vg, const S& vc, const S* u, const S& t, LegOut<S>& o) const {
+    template <class S> void eval(const S& vg, const S& vc, const S* u, const S& t, LegOut<S>& o) const {
         S ic, ib;
         q.intrinsic(u[0], u[1], t, ic, ib);
         const S ie = ic + ib;
@@ -131,7 +127,8 @@ struct BipolarLeg {
         const S vb = ve + u[0];
         o.r[0] = vg - ib * (gate_ohm + q.rb_ohm) - vb;
         o.r[1] = vc - ic * q.rc_ohm - (vb - u[1]);
-        o.pDev = ic * (u[0] - u[1]) + ib * u[0] + ic * ic * q.rc_ohm + ib * ib * q.rb_ohm + ie * ie * q.re_ohm;
+        o.pDev =
+            ic * (u[0] - u[1]) + ib * u[0] + ic * ic * q.rc_ohm + ib * ib * q.rb_ohm + ie * ie * q.re_ohm;
         o.pBallast = ie * ie * ballast_ohm;
         o.pLeg = ie * ie * leg_ohm;
         o.pDrive = ib * ib * gate_ohm;
@@ -173,7 +170,8 @@ struct BipolarLeg {
             const double vbe = 0.5 * (lo + hi);
             double ic, ib;
             q.intrinsic(vbe, vbe - 10.0, t, ic, ib);
-            const double need = vbe + (ic + ib) * (q.re_ohm + ballast_ohm + leg_ohm) + ib * (gate_ohm + q.rb_ohm);
+            const double need =
+                vbe + (ic + ib) * (q.re_ohm + ballast_ohm + leg_ohm) + ib * (gate_ohm + q.rb_ohm);
             (need > vg ? hi : lo) = vbe;
         }
         double ic, ib;
@@ -208,8 +206,7 @@ struct DarlingtonLeg {
     double ballast_ohm = 0.0;
     double leg_ohm = 0.0;
 
-    template <class S>
-    void eval(const S& vg, const S& vc, const S* u, const S& t, LegOut<S>& o) const {
+    template <class S> void eval(const S& vg, const S& vc, const S* u, const S& t, LegOut<S>& o) const {
         const BjtModel& q1 = m.driver;
         const BjtModel& q2 = m.output;
         S ic1, ib1, ic2, ib2;
@@ -317,8 +314,7 @@ struct BankNetwork::Impl {
 
 namespace {
 
-template <class Leg>
-class TypedNetwork final : public BankNetwork::Impl {
+template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
   public:
     static constexpr int m = Leg::kUnknowns;
     using D = ad::Dual<Leg::kDual>;
@@ -346,12 +342,14 @@ class TypedNetwork final : public BankNetwork::Impl {
         m_currentRow[1] = m_feed == BankFeed::Current;
         for (int k = 0; k < n; ++k)
             for (int i = 0; i < m; ++i)
-                m_currentRow[static_cast<std::size_t>(2 + k * m + i)] = Leg::kCurrentRow[static_cast<std::size_t>(i)];
+                m_currentRow[static_cast<std::size_t>(2 + k * m + i)] =
+                    Leg::kCurrentRow[static_cast<std::size_t>(i)];
         m_out.resize(static_cast<std::size_t>(n));
         m_dT.resize(static_cast<std::size_t>(n));
     }
 
-    ElectricalPoint solve(const std::vector<double>& tj, const std::vector<double>* x0, bool sensitivity) override {
+    ElectricalPoint solve(const std::vector<double>& tj, const std::vector<double>* x0,
+                          bool sensitivity) override {
         ElectricalPoint pt;
         const bool warm = x0 && static_cast<int>(x0->size()) == m_nx && allFinite(*x0);
         std::vector<double> x = warm ? *x0 : initialGuess(tj);
@@ -419,7 +417,8 @@ class TypedNetwork final : public BankNetwork::Impl {
         Eigen::VectorXd dx(m_nx);
         for (; it <= m_maxIt; ++it) {
             if (!std::isfinite(merit)) {
-                fail(pt, BankFailure::NoConvergence, "the network equations gave a non-finite value", total += it);
+                fail(pt, BankFailure::NoConvergence, "the network equations gave a non-finite value",
+                     total += it);
                 return false;
             }
             if (residualConverged(x)) {
@@ -454,7 +453,8 @@ class TypedNetwork final : public BankNetwork::Impl {
             merit = trialMerit;
             if (m_feed == BankFeed::Current && std::abs(x[1]) > m_vAbort) {
                 std::ostringstream s;
-                s << "the bank cannot carry " << fmt(m_load) << " A with this drive: the drain/collector voltage "
+                s << "the bank cannot carry " << fmt(m_load)
+                  << " A with this drive: the drain/collector voltage "
                   << "runs past " << fmt(m_vAbort) << " V";
                 if (m_bus > 0.0)
                     s << ", far above the bus voltage " << fmt(m_bus) << " V";
@@ -487,7 +487,8 @@ class TypedNetwork final : public BankNetwork::Impl {
             return;
         for (int k = 0; k < n; ++k)
             pt.region[static_cast<std::size_t>(k)] = m_legs[static_cast<std::size_t>(k)].region(
-                pt.x[0], pt.x[1], &pt.x[static_cast<std::size_t>(2 + k * m)], tj[static_cast<std::size_t>(k)]);
+                pt.x[0], pt.x[1], &pt.x[static_cast<std::size_t>(2 + k * m)],
+                tj[static_cast<std::size_t>(k)]);
     }
 
   private:
@@ -514,7 +515,8 @@ class TypedNetwork final : public BankNetwork::Impl {
         case BankFeed::Current: {
             vc = 0.0;
             for (int k = 0; k < n; ++k)
-                vc = std::max(vc, m_legs[static_cast<std::size_t>(k)].nodeGuess(share, tj[static_cast<std::size_t>(k)]));
+                vc = std::max(vc, m_legs[static_cast<std::size_t>(k)].nodeGuess(
+                                      share, tj[static_cast<std::size_t>(k)]));
             if constexpr (Leg::kBaseCurrent)
                 vg = driveNodeGuess(share, tj);
             break;
@@ -526,7 +528,8 @@ class TypedNetwork final : public BankNetwork::Impl {
         case BankFeed::Linear: {
             double needG = 0.0;
             for (int k = 0; k < n; ++k)
-                needG = std::max(needG, m_legs[static_cast<std::size_t>(k)].gateGuess(share, tj[static_cast<std::size_t>(k)]));
+                needG = std::max(needG, m_legs[static_cast<std::size_t>(k)].gateGuess(
+                                            share, tj[static_cast<std::size_t>(k)]));
             vg = needG;
             break;
         }
@@ -536,7 +539,8 @@ class TypedNetwork final : public BankNetwork::Impl {
         for (int k = 0; k < n; ++k) {
             double s = share;
             if (m_feed == BankFeed::Voltage)
-                s = m_legs[static_cast<std::size_t>(k)].voltageFedShare(vg, vc, tj[static_cast<std::size_t>(k)]);
+                s = m_legs[static_cast<std::size_t>(k)].voltageFedShare(vg, vc,
+                                                                        tj[static_cast<std::size_t>(k)]);
             m_legs[static_cast<std::size_t>(k)].guess(s, vg, vc, tj[static_cast<std::size_t>(k)],
                                                       &x[static_cast<std::size_t>(2 + k * m)]);
         }
@@ -714,14 +718,20 @@ class TypedNetwork final : public BankNetwork::Impl {
     std::vector<std::array<double, m>> m_dT; ///< ∂r/∂T of each leg row
 };
 
-double deviceTopK(const BankProblem& p) { return toKelvin(p.part.tjMax_C) + 125.0; }
+double deviceTopK(const BankProblem& p) {
+    return toKelvin(p.part.tjMax_C) + 125.0;
+}
 
 } // namespace
 
 BankNetwork::BankNetwork(const BankProblem& p) {
     const int n = static_cast<int>(p.devices.size());
-    auto devGate = [&](const BankDevice& d) { return std::max(p.gateResistor_ohm + d.gateResistorDeviation_ohm, 0.0); };
-    auto devBallast = [&](const BankDevice& d) { return std::max(p.ballast_ohm + d.ballastDeviation_ohm, 0.0); };
+    auto devGate = [&](const BankDevice& d) {
+        return std::max(p.gateResistor_ohm + d.gateResistorDeviation_ohm, 0.0);
+    };
+    auto devBallast = [&](const BankDevice& d) {
+        return std::max(p.ballast_ohm + d.ballastDeviation_ohm, 0.0);
+    };
     auto devLeg = [&](const BankDevice& d) {
         return std::max(p.legResistance_ohm + d.legResistanceDeviation_ohm, 0.0);
     };
@@ -731,7 +741,8 @@ BankNetwork::BankNetwork(const BankProblem& p) {
         for (int k = 0; k < n; ++k) {
             const BankDevice& d = p.devices[static_cast<std::size_t>(k)];
             MosfetLeg& l = legs[static_cast<std::size_t>(k)];
-            l.model = MosfetModel::make(p.part.mosfet, d.rdsOnDeviation, d.vthDeviation_V, deviceTopK(p), raise);
+            l.model =
+                MosfetModel::make(p.part.mosfet, d.rdsOnDeviation, d.vthDeviation_V, deviceTopK(p), raise);
             l.gate_ohm = devGate(d);
             l.ballast_ohm = devBallast(d);
             l.leg_ohm = devLeg(d);
@@ -739,7 +750,8 @@ BankNetwork::BankNetwork(const BankProblem& p) {
         }
         std::vector<std::string> notes;
         if (n > 0 && legs.front().model.kRaise > 1.0)
-            notes.push_back("The part's transconductance K makes the channel alone exceed 90 % of R_ds(on); K was raised ×" +
+            notes.push_back("The part's transconductance K makes the channel alone exceed 90 % of R_ds(on); "
+                            "K was raised ×" +
                             fmt(legs.front().model.kRaise, 3) + " so the square-law region joins R_ds(on).");
         m_impl = std::make_unique<TypedNetwork<MosfetLeg>>(p, std::move(legs));
         m_impl->notes = std::move(notes);
@@ -748,7 +760,8 @@ BankNetwork::BankNetwork(const BankProblem& p) {
         for (int k = 0; k < n; ++k) {
             const BankDevice& d = p.devices[static_cast<std::size_t>(k)];
             DarlingtonLeg& l = legs[static_cast<std::size_t>(k)];
-            l.m = DarlingtonModel::make(p.part.driver, p.part.bjt, d.vbeDeviation_V, d.betaDeviation, p.earlyVoltage_V);
+            l.m = DarlingtonModel::make(p.part.driver, p.part.bjt, d.vbeDeviation_V, d.betaDeviation,
+                                        p.earlyVoltage_V);
             l.gate_ohm = devGate(d);
             l.ballast_ohm = devBallast(d);
             l.leg_ohm = devLeg(d);
@@ -770,10 +783,15 @@ BankNetwork::BankNetwork(const BankProblem& p) {
 
 BankNetwork::~BankNetwork() = default;
 
-int BankNetwork::count() const { return m_impl->n; }
-const std::vector<std::string>& BankNetwork::notes() const { return m_impl->notes; }
+int BankNetwork::count() const {
+    return m_impl->n;
+}
+const std::vector<std::string>& BankNetwork::notes() const {
+    return m_impl->notes;
+}
 
-ElectricalPoint BankNetwork::solve(const std::vector<double>& tj_K, const std::vector<double>* x0, bool sensitivity) {
+ElectricalPoint BankNetwork::solve(const std::vector<double>& tj_K, const std::vector<double>* x0,
+                                   bool sensitivity) {
     return m_impl->solve(tj_K, x0, sensitivity);
 }
 

@@ -18,10 +18,10 @@ struct ElectricalPoint {
     BankFailure failure = BankFailure::None;
     std::string reason;
     int iterations = 0;
-    std::vector<double> x;          ///< unknowns at the solution (warm start)
+    std::vector<double> x; ///< unknowns at the solution (warm start)
     double vG = 0.0;
     double vC = 0.0;
-    std::vector<double> current_A;  ///< per device
+    std::vector<double> current_A; ///< per device
     std::vector<double> voltage_V;
     std::vector<double> control_V;
     std::vector<double> drive_A;
@@ -29,10 +29,10 @@ struct ElectricalPoint {
     std::vector<double> pBallast_W; ///< on-state
     std::vector<double> pLeg_W;
     std::vector<double> pDrive_W;
-    std::vector<std::string> region;  ///< filled by fillRegions()
-    std::vector<double> sOn;        ///< N×N row-major dP_on,k/dT_j (when requested)
-    std::vector<double> dxdT;       ///< n×N row-major dX/dT_j of the unknowns (when requested)
-    double dVcdLoad = 0.0;          ///< dV_C/dI_load at fixed temperatures (current and linear feeds)
+    std::vector<std::string> region; ///< filled by fillRegions()
+    std::vector<double> sOn;         ///< N×N row-major dP_on,k/dT_j (when requested)
+    std::vector<double> dxdT;        ///< n×N row-major dX/dT_j of the unknowns (when requested)
+    double dVcdLoad = 0.0;           ///< dV_C/dI_load at fixed temperatures (current and linear feeds)
 };
 
 class BankNetwork {

@@ -16,16 +16,23 @@ namespace amp {
 
 const char* toString(BankFailure f) {
     switch (f) {
-    case BankFailure::None: return "none";
-    case BankFailure::InvalidInput: return "invalidInput";
-    case BankFailure::ThermalRunaway: return "thermalRunaway";
-    case BankFailure::CannotCarryLoad: return "cannotCarryLoad";
-    case BankFailure::NoConvergence: return "noConvergence";
+    case BankFailure::None:
+        return "none";
+    case BankFailure::InvalidInput:
+        return "invalidInput";
+    case BankFailure::ThermalRunaway:
+        return "thermalRunaway";
+    case BankFailure::CannotCarryLoad:
+        return "cannotCarryLoad";
+    case BankFailure::NoConvergence:
+        return "noConvergence";
     }
     return "none";
 }
 
-const char* toString(BankMode m) { return m == BankMode::Differential ? "differential" : "common"; }
+const char* toString(BankMode m) {
+    return m == BankMode::Differential ? "differential" : "common";
+}
 
 namespace {
 
@@ -43,16 +50,16 @@ class Checker {
         if (!std::isfinite(v)) {
             m_out.push_back({path, "is not a finite number"});
         } else if (v < lo || v > hi) {
-            m_out.push_back({path, "is " + num(v) + unit + "; it must lie between " + num(lo) + unit + " and " +
-                                       num(hi) + unit});
+            m_out.push_back({path, "is " + num(v) + unit + "; it must lie between " + num(lo) + unit +
+                                       " and " + num(hi) + unit});
         }
     }
     void above(double v, double lo, double hi, const std::string& path, const char* unit = "") {
         if (!std::isfinite(v)) {
             m_out.push_back({path, "is not a finite number"});
         } else if (v <= lo || v > hi) {
-            m_out.push_back({path, "is " + num(v) + unit + "; it must be above " + num(lo) + unit + " and at most " +
-                                       num(hi) + unit});
+            m_out.push_back({path, "is " + num(v) + unit + "; it must be above " + num(lo) + unit +
+                                       " and at most " + num(hi) + unit});
         }
     }
     void fail(const std::string& path, const std::string& message) { m_out.push_back({path, message}); }
@@ -99,9 +106,12 @@ double powerScale(const BankProblem& p, const detail::ElectricalPoint& pt) {
 
 std::string heldText(BankFeed f) {
     switch (f) {
-    case BankFeed::Current: return "bank current and duty held";
-    case BankFeed::Voltage: return "drain/collector voltage and drive held";
-    case BankFeed::Linear: return "bank current and drain/collector voltage held";
+    case BankFeed::Current:
+        return "bank current and duty held";
+    case BankFeed::Voltage:
+        return "drain/collector voltage and drive held";
+    case BankFeed::Linear:
+        return "bank current and drain/collector voltage held";
     }
     return "";
 }
@@ -163,7 +173,8 @@ struct Context {
 
 // Heat beyond conduction in device k (switching, recovery, gate drive in the die).
 double extraPower(const BankProblem& p, std::size_t k) {
-    const double extra = p.extraPowerPerDevice_W.size() == p.devices.size() ? p.extraPowerPerDevice_W[k] : 0.0;
+    const double extra =
+        p.extraPowerPerDevice_W.size() == p.devices.size() ? p.extraPowerPerDevice_W[k] : 0.0;
     return p.switchingPowerPerDevice_W + extra;
 }
 
@@ -175,7 +186,8 @@ std::vector<double> averagePower(const Context& c, const detail::ElectricalPoint
     return pw;
 }
 
-std::vector<double> thermalResidual(const Context& c, const std::vector<double>& t, const std::vector<double>& pw) {
+std::vector<double> thermalResidual(const Context& c, const std::vector<double>& t,
+                                    const std::vector<double>& pw) {
     const int n = c.th.count;
     std::vector<double> g(static_cast<std::size_t>(n));
     for (int k = 0; k < n; ++k) {
@@ -195,7 +207,8 @@ void fillDevices(const Context& c, const detail::ElectricalPoint& pt, const std:
     double total = 0.0;
     for (std::size_t k = 0; k < n && k < pt.current_A.size(); ++k)
         total += pt.current_A[k];
-    const std::vector<double> pw = pt.pDevice_W.size() == n ? averagePower(c, pt) : std::vector<double>(n, 0.0);
+    const std::vector<double> pw =
+        pt.pDevice_W.size() == n ? averagePower(c, pt) : std::vector<double>(n, 0.0);
     const double scale = powerScale(p, pt);
     sol.powerScale = scale;
     sol.incrementalResistance_ohm = pt.dVcdLoad;
@@ -268,17 +281,17 @@ void fillVerdict(const BankProblem& p, BankSolution& sol) {
     } else if (sol.stability.valid && sol.stability.dominantEigenvalue >= 1.0) {
         s << "Unstable: loop gain " << num(sol.stability.dominantEigenvalue, 3) << " ≥ 1 ("
           << (sol.stability.mode == BankMode::Differential ? "one device takes over from the others"
-                                                          : "the whole bank heats up together")
+                                                           : "the whole bank heats up together")
           << "); device " << h + 1 << " goes first.";
     } else if (sol.overTemperature) {
-        s << "Over temperature: device " << h + 1 << " reaches " << num(sol.devices[static_cast<std::size_t>(h)].tj_C, 4)
-          << " °C, above T_j,max " << num(p.part.tjMax_C, 4) << " °C.";
+        s << "Over temperature: device " << h + 1 << " reaches "
+          << num(sol.devices[static_cast<std::size_t>(h)].tj_C, 4) << " °C, above T_j,max "
+          << num(p.part.tjMax_C, 4) << " °C.";
     } else {
         s << "Stable: loop gain " << num(sol.stability.dominantEigenvalue, 3);
         if (sol.stability.loopGain > std::max(sol.stability.dominantEigenvalue, 0.0) * 1.001)
             s << " (spectral radius " << num(sol.stability.loopGain, 3) << " from negative feedback)";
-        s << ", max/min current "
-          << num(sol.maxMinCurrentRatio, 4) << ".";
+        s << ", max/min current " << num(sol.maxMinCurrentRatio, 4) << ".";
     }
     sol.verdict = s.str();
 }
@@ -292,8 +305,8 @@ bool overBus(const BankProblem& p, const detail::ElectricalPoint& pt, BankSoluti
     sol.fixedPoint = false;
     sol.stable = false;
     sol.failure = BankFailure::CannotCarryLoad;
-    sol.reason = "the bank cannot carry " + num(p.load_A) + " A with this drive: it would need " + num(pt.vC) +
-                 " V across it, more than the bus voltage " + num(p.busVoltage_V) + " V";
+    sol.reason = "the bank cannot carry " + num(p.load_A) + " A with this drive: it would need " +
+                 num(pt.vC) + " V across it, more than the bus voltage " + num(p.busVoltage_V) + " V";
     return true;
 }
 
@@ -302,8 +315,8 @@ void finishStability(const BankProblem& p, BankSolution& sol) {
     for (const auto& d : sol.devices)
         if (d.tj_C >= p.part.tjMax_C)
             sol.overTemperature = true;
-    sol.stable =
-        sol.fixedPoint && !sol.overTemperature && sol.stability.valid && sol.stability.dominantEigenvalue < 1.0;
+    sol.stable = sol.fixedPoint && !sol.overTemperature && sol.stability.valid &&
+                 sol.stability.dominantEigenvalue < 1.0;
 }
 
 } // namespace
@@ -316,7 +329,8 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
         c.fail("bank.count", "is " + std::to_string(n) + "; a bank has 1 to 256 devices");
     const SwitchPart& s = p.part;
     if (s.kind != "mosfet" && s.kind != "bipolar" && s.kind != "darlington")
-        c.fail("bank.device.kind", "is \"" + s.kind + "\"; it must be \"mosfet\", \"bipolar\" or \"darlington\"");
+        c.fail("bank.device.kind",
+               "is \"" + s.kind + "\"; it must be \"mosfet\", \"bipolar\" or \"darlington\"");
     c.above(s.currentRating_A, 0.0, 1e6, "bank.device.currentRating_A", " A");
     c.range(s.tjMax_C, 25.0, 400.0, "bank.device.tjMax_C", " °C");
     c.range(s.rthJc_KperW, 0.0, 1e3, "bank.device.rthJc_KperW", " K/W");
@@ -400,7 +414,9 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
     const auto nn = static_cast<std::size_t>(n);
     detail::BankNetwork net(p);
     sol.notes = net.notes();
-    Context c{p, buildThermalMatrices({n, p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW, p.neighbourCoupling_KperW}),
+    Context c{p,
+              buildThermalMatrices(
+                  {n, p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW, p.neighbourCoupling_KperW}),
               toKelvin(p.ambient_C), toKelvin(p.part.tjMax_C) + 125.0};
 
     // Warm start: [network unknowns..., junction temperatures (K)...].
@@ -461,7 +477,8 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
     Eigen::MatrixXd a(n, n);
     Eigen::VectorXd gv(n);
     std::vector<double> g;
-    auto solveAt = [&](const std::vector<double>& temps, detail::ElectricalPoint& out, std::vector<double>& gOut) {
+    auto solveAt = [&](const std::vector<double>& temps, detail::ElectricalPoint& out,
+                       std::vector<double>& gOut) {
         out = net.solve(temps, x.empty() ? nullptr : &x, true);
         sol.newtonIterations += out.iterations;
         if (!out.ok)
@@ -591,8 +608,9 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         sol.reason = "no electrothermal fixed point below " + num(toCelsius(c.cap_K), 4) + " °C";
     } else {
         sol.failure = BankFailure::NoConvergence;
-        sol.reason = "the electrothermal iteration did not settle in " + std::to_string(p.maxThermalIterations) +
-                     " steps (last correction " + num(lastCorrection, 3) + " K)";
+        sol.reason = "the electrothermal iteration did not settle in " +
+                     std::to_string(p.maxThermalIterations) + " steps (last correction " +
+                     num(lastCorrection, 3) + " K)";
     }
     finish(pt, t);
     fillVerdict(p, sol);
@@ -612,9 +630,8 @@ BankStability analyseStability(const BankProblem& p, const BankSolution& at) {
     const detail::ElectricalPoint pt = net.solve(t, x.empty() ? nullptr : &x, true);
     if (!pt.ok)
         return {};
-    const ThermalMatrices th =
-        buildThermalMatrices({static_cast<int>(nn), p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW,
-                              p.neighbourCoupling_KperW});
+    const ThermalMatrices th = buildThermalMatrices(
+        {static_cast<int>(nn), p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW, p.neighbourCoupling_KperW});
     std::vector<double> s(pt.sOn);
     for (double& v : s)
         v *= powerScale(p, pt);

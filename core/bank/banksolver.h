@@ -67,39 +67,39 @@ enum class BankFeed { Current, Voltage, Linear };
 
 /// Everything one electrothermal solve of a bank needs. SI units (°C in _C names).
 struct BankProblem {
-    SwitchPart part;                     ///< nominal device
-    std::vector<BankDevice> devices;     ///< one per device (size = N ≥ 1): deviations
-    double gateResistor_ohm = 4.7;       ///< external gate/base resistor per device
-    double ballast_ohm = 0.0;            ///< source/emitter ballast per device
-    double legResistance_ohm = 0.3e-3;   ///< each device's leg (busbar/trace)
-    double pulldown_ohm = 10e3;          ///< MOSFET gate pull-down (0 = none)
+    SwitchPart part;                   ///< nominal device
+    std::vector<BankDevice> devices;   ///< one per device (size = N ≥ 1): deviations
+    double gateResistor_ohm = 4.7;     ///< external gate/base resistor per device
+    double ballast_ohm = 0.0;          ///< source/emitter ballast per device
+    double legResistance_ohm = 0.3e-3; ///< each device's leg (busbar/trace)
+    double pulldown_ohm = 10e3;        ///< MOSFET gate pull-down (0 = none)
     /// Forward Early voltage V_AF of bipolar transistors (0 = none). The part data have no field
     /// for it yet; 100 V is a typical power-transistor value (from memory) and only matters when
     /// the base drive falls short of the load (quasi-linear operation, see bjtmodel.h).
     double earlyVoltage_V = 100.0;
-    double driveVoltage_V = 12.0;        ///< driver open-circuit voltage
-    double driveResistance_ohm = 2.0;    ///< shared resistance between driver and drive node
+    double driveVoltage_V = 12.0;     ///< driver open-circuit voltage
+    double driveResistance_ohm = 2.0; ///< shared resistance between driver and drive node
     BankFeed feed = BankFeed::Current;
-    double load_A = 0.0;                 ///< on-state bank current (Current, Linear)
-    double commonNode_V = 0.0;           ///< held drain/collector voltage (Voltage, Linear)
-    double busVoltage_V = 0.0;           ///< highest V_C the circuit can give (0 = no limit)
-    double duty = 1.0;                   ///< fraction of the period the bank conducts
-    double ripplePeakToPeak_A = 0.0;     ///< on-time current ripple (for the RMS factor)
+    double load_A = 0.0;             ///< on-state bank current (Current, Linear)
+    double commonNode_V = 0.0;       ///< held drain/collector voltage (Voltage, Linear)
+    double busVoltage_V = 0.0;       ///< highest V_C the circuit can give (0 = no limit)
+    double duty = 1.0;               ///< fraction of the period the bank conducts
+    double ripplePeakToPeak_A = 0.0; ///< on-time current ripple (for the RMS factor)
     /// r = I_rms²/(duty·I²) of the switch current, when known from a waveform (0 = from the
     /// triangular ripple: 1 + (ΔI_pp/I)²/12).
     double rmsFactor = 0.0;
-    double switchingPowerPerDevice_W = 0.0; ///< further heat in each junction (switching, body diode)
+    double switchingPowerPerDevice_W = 0.0;    ///< further heat in each junction (switching, body diode)
     std::vector<double> extraPowerPerDevice_W; ///< when its size is N: added to each junction's heat
-    double sinkExtraPower_W = 0.0;       ///< heat put straight on the heatsink (freewheel diode)
+    double sinkExtraPower_W = 0.0;             ///< heat put straight on the heatsink (freewheel diode)
     double ambient_C = 30.0;
-    double rthCs_KperW = 0.35;           ///< interface, case to sink, per device
-    double rthSa_KperW = 0.3;            ///< heatsink to ambient
+    double rthCs_KperW = 0.35;            ///< interface, case to sink, per device
+    double rthSa_KperW = 0.3;             ///< heatsink to ambient
     double neighbourCoupling_KperW = 0.0; ///< case to neighbouring case (0 = none)
-    bool isothermal = false;             ///< hold every junction at isothermalTj_C (no thermal solve)
+    bool isothermal = false;              ///< hold every junction at isothermalTj_C (no thermal solve)
     double isothermalTj_C = 25.0;
     std::vector<double> isothermalTjPerDevice_C; ///< when its size is N: each junction's held temperature
-    double derating = 0.5;               ///< highest share of the rated current per device
-    double sharingTarget = 1.10;         ///< accepted max/min device current ratio
+    double derating = 0.5;                       ///< highest share of the rated current per device
+    double sharingTarget = 1.10;                 ///< accepted max/min device current ratio
     int maxNewtonIterations = 100;
     int maxThermalIterations = 60;
 };
@@ -112,38 +112,38 @@ const char* toString(BankMode m); ///< "common" or "differential"
 
 /// Loop gain of the electrothermal feedback at one state.
 struct BankStability {
-    bool valid = false;               ///< computed (needs an electrical solution)
-    double loopGain = 0.0;            ///< spectral radius of Z·S
-    double dominantEigenvalue = 0.0;  ///< largest real part of an eigenvalue of Z·S (runaway ≥ 1)
+    bool valid = false;              ///< computed (needs an electrical solution)
+    double loopGain = 0.0;           ///< spectral radius of Z·S
+    double dominantEigenvalue = 0.0; ///< largest real part of an eigenvalue of Z·S (runaway ≥ 1)
     BankMode mode = BankMode::Common;
-    std::vector<double> modeShape;    ///< its eigenvector (real part), largest |component| = +1
-    std::string held;                 ///< what is held fixed while T varies
+    std::vector<double> modeShape;         ///< its eigenvector (real part), largest |component| = +1
+    std::string held;                      ///< what is held fixed while T varies
     std::vector<double> sensitivity_WperK; ///< S = dP/dT of the average junction powers, N×N row-major
 };
 
 /// One device in one solution.
 struct BankDeviceState {
-    double current_A = 0.0;       ///< on-state drain/collector current
-    double share = 0.0;           ///< of the bank's current
-    double ratingShare = 0.0;     ///< current / rated current
-    double deratedShare = 0.0;    ///< current / (derating × rated current)
-    double voltage_V = 0.0;       ///< on-state drop, drain–source or collector–emitter terminals
+    double current_A = 0.0;        ///< on-state drain/collector current
+    double share = 0.0;            ///< of the bank's current
+    double ratingShare = 0.0;      ///< current / rated current
+    double deratedShare = 0.0;     ///< current / (derating × rated current)
+    double voltage_V = 0.0;        ///< on-state drop, drain–source or collector–emitter terminals
     double controlVoltage_V = 0.0; ///< V_GS at the die (MOSFET) or V_BE at the terminals (bipolar)
-    double driveCurrent_A = 0.0;  ///< gate (pull-down) or base current
-    double onStatePower_W = 0.0;  ///< dissipated in the die while conducting
-    double conduction_W = 0.0;    ///< average over the period (duty, ripple)
-    double switching_W = 0.0;     ///< as given (switching + extra power)
-    double loss_W = 0.0;          ///< conduction + switching: the junction's heat
-    double ballast_W = 0.0;       ///< average, in the ballast resistor
-    double leg_W = 0.0;           ///< average, in the leg
-    double drive_W = 0.0;         ///< average, in the gate/base resistor
+    double driveCurrent_A = 0.0;   ///< gate (pull-down) or base current
+    double onStatePower_W = 0.0;   ///< dissipated in the die while conducting
+    double conduction_W = 0.0;     ///< average over the period (duty, ripple)
+    double switching_W = 0.0;      ///< as given (switching + extra power)
+    double loss_W = 0.0;           ///< conduction + switching: the junction's heat
+    double ballast_W = 0.0;        ///< average, in the ballast resistor
+    double leg_W = 0.0;            ///< average, in the leg
+    double drive_W = 0.0;          ///< average, in the gate/base resistor
     double tj_C = 0.0;
     double tcase_C = 0.0;
-    std::string region;           ///< "ohmic", "saturation" (MOSFET), "saturated", "active" (bipolar), "off"
+    std::string region; ///< "ohmic", "saturation" (MOSFET), "saturated", "active" (bipolar), "off"
 };
 
 struct BankSolution {
-    bool converged = false;       ///< an electrical (and, unless isothermal, thermal) solution
+    bool converged = false; ///< an electrical (and, unless isothermal, thermal) solution
     BankFailure failure = BankFailure::None;
     std::string reason;           ///< why not, in words with numbers
     bool fixedPoint = false;      ///< an electrothermal fixed point was found
@@ -151,22 +151,22 @@ struct BankSolution {
     bool stable = false;          ///< fixed point, all T_j < T_j,max and λ_d < 1
     std::string verdict;          ///< one sentence for the user
     std::vector<BankDeviceState> devices;
-    double load_A = 0.0;          ///< bank on-state current
-    double commonNode_V = 0.0;    ///< V_C
-    double driveNode_V = 0.0;     ///< V_G
+    double load_A = 0.0;       ///< bank on-state current
+    double commonNode_V = 0.0; ///< V_C
+    double driveNode_V = 0.0;  ///< V_G
     double heatsink_C = 0.0;
     double maxMinCurrentRatio = 1.0; ///< capped at 1e6 when a device carries nothing
     double maxShare = 0.0;
-    int hottest = 0;              ///< device with the highest T_j
+    int hottest = 0;                        ///< device with the highest T_j
     double incrementalResistance_ohm = 0.0; ///< dV_C/dI at the solution (current feed)
-    double powerScale = 1.0;      ///< duty·r_eff: average over on-state power
-    double deviceLoss_W = 0.0;    ///< all junctions, average
-    double ballastLoss_W = 0.0;   ///< all ballast resistors, average
+    double powerScale = 1.0;                ///< duty·r_eff: average over on-state power
+    double deviceLoss_W = 0.0;              ///< all junctions, average
+    double ballastLoss_W = 0.0;             ///< all ballast resistors, average
     BankStability stability;
-    int newtonIterations = 0;     ///< electrical Newton steps in all
+    int newtonIterations = 0; ///< electrical Newton steps in all
     int thermalIterations = 0;
     std::vector<std::string> notes;
-    std::vector<double> state;    ///< internal: network unknowns for warm starts
+    std::vector<double> state; ///< internal: network unknowns for warm starts
 };
 
 /// Every problem with the input, naming the design field (empty when valid).

@@ -14,8 +14,7 @@ namespace {
 constexpr double kExpLimit = 80.0;
 
 // exp(x), continued linearly (C¹) above x = 80 so that a wild Newton iterate never overflows.
-template <class S>
-S limitedExp(const S& x) {
+template <class S> S limitedExp(const S& x) {
     using std::exp;
     if (ad::val(x) > kExpLimit) {
         const double e = std::exp(kExpLimit);
@@ -26,7 +25,8 @@ S limitedExp(const S& x) {
 
 } // namespace
 
-BjtModel BjtModel::make(const BjtParams& p, double vbeDeviation_V, double betaDeviation, double earlyVoltage_V) {
+BjtModel BjtModel::make(const BjtParams& p, double vbeDeviation_V, double betaDeviation,
+                        double earlyVoltage_V) {
     BjtModel m;
     m.vaf_V = earlyVoltage_V > 0.0 ? earlyVoltage_V : 0.0;
     m.n = p.emissionCoefficient;
@@ -43,28 +43,24 @@ BjtModel BjtModel::make(const BjtParams& p, double vbeDeviation_V, double betaDe
     return m;
 }
 
-template <class S>
-S BjtModel::saturationCurrent(const S& t_K) const {
+template <class S> S BjtModel::saturationCurrent(const S& t_K) const {
     using std::exp;
     using std::pow;
     const S ratio = t_K / kPartReference_K;
     return is25_A * pow(ratio, xti / n) * exp((ratio - 1.0) * eg_eV / (n * thermalVoltage(t_K)));
 }
 
-template <class S>
-S BjtModel::betaForward(const S& t_K) const {
+template <class S> S BjtModel::betaForward(const S& t_K) const {
     using std::pow;
     return betaF25 * pow(t_K / kPartReference_K, xtb);
 }
 
-template <class S>
-S BjtModel::betaReverse(const S& t_K) const {
+template <class S> S BjtModel::betaReverse(const S& t_K) const {
     using std::pow;
     return betaR25 * pow(t_K / kPartReference_K, xtb);
 }
 
-template <class S>
-void BjtModel::intrinsic(const S& vbe, const S& vbc, const S& t_K, S& ic, S& ib) const {
+template <class S> void BjtModel::intrinsic(const S& vbe, const S& vbc, const S& t_K, S& ic, S& ib) const {
     using std::sqrt;
     const S nvt = n * thermalVoltage(t_K);
     const S is = saturationCurrent(t_K);
@@ -118,10 +114,10 @@ double limitJunctionStep(double vNew, double vOld, double nvt, double vcrit) {
     return vNew;
 }
 
-#define AMP_BJT_INSTANTIATE(S)                                                                       \
-    template S BjtModel::saturationCurrent<S>(const S&) const;                                      \
-    template S BjtModel::betaForward<S>(const S&) const;                                            \
-    template S BjtModel::betaReverse<S>(const S&) const;                                            \
+#define AMP_BJT_INSTANTIATE(S)                                                                               \
+    template S BjtModel::saturationCurrent<S>(const S&) const;                                               \
+    template S BjtModel::betaForward<S>(const S&) const;                                                     \
+    template S BjtModel::betaReverse<S>(const S&) const;                                                     \
     template void BjtModel::intrinsic<S>(const S&, const S&, const S&, S&, S&) const;
 
 AMP_BJT_INSTANTIATE(double)

@@ -29,20 +29,20 @@
 // Numerical guards: exponentials are continued linearly above an argument of 80 (no overflow),
 // and a conductance gmin = 1e-12 S sits across each junction, as in SPICE.
 // Ranges: I_S 1e-16…1e-6 A; β_F 1…1e4 (1e9 allowed for "ideal" tests); β_R 0.01…100;
-// I_KF ≥ 0 A (0 = none); V_AF ≥ 0 V (0 = none; power transistors ≈ 50–200 V, from memory); N 0.8…3; R_B, R_E, R_C ≥ 0 Ω; XTI 0…6; E_g 0.5…2 eV; XTB −2…4;
-// T 200…750 K.
+// I_KF ≥ 0 A (0 = none); V_AF ≥ 0 V (0 = none; power transistors ≈ 50–200 V, from memory); N 0.8…3; R_B, R_E,
+// R_C ≥ 0 Ω; XTI 0…6; E_g 0.5…2 eV; XTB −2…4; T 200…750 K.
 
 #include "core/model/parts.h"
 
 namespace amp {
 
 struct BjtModel {
-    double is25_A = 1e-11;       ///< I_S at 25 °C including this device's V_BE deviation
-    double betaF25 = 40.0;       ///< including this device's β deviation
+    double is25_A = 1e-11; ///< I_S at 25 °C including this device's V_BE deviation
+    double betaF25 = 40.0; ///< including this device's β deviation
     double betaR25 = 2.0;
-    double ikf_A = 20.0;         ///< 0 = no high-current roll-off
-    double vaf_V = 0.0;          ///< forward Early voltage, 0 = none
-    double n = 1.0;              ///< emission coefficient N
+    double ikf_A = 20.0; ///< 0 = no high-current roll-off
+    double vaf_V = 0.0;  ///< forward Early voltage, 0 = none
+    double n = 1.0;      ///< emission coefficient N
     double rb_ohm = 0.5;
     double re_ohm = 0.01;
     double rc_ohm = 0.02;
@@ -54,15 +54,11 @@ struct BjtModel {
     static BjtModel make(const BjtParams& p, double vbeDeviation_V = 0.0, double betaDeviation = 0.0,
                          double earlyVoltage_V = 0.0);
 
-    template <class S>
-    S saturationCurrent(const S& t_K) const;
-    template <class S>
-    S betaForward(const S& t_K) const; ///< low-current β_F(T)
-    template <class S>
-    S betaReverse(const S& t_K) const;
+    template <class S> S saturationCurrent(const S& t_K) const;
+    template <class S> S betaForward(const S& t_K) const; ///< low-current β_F(T)
+    template <class S> S betaReverse(const S& t_K) const;
     /// Intrinsic collector and base currents for the internal junction voltages.
-    template <class S>
-    void intrinsic(const S& vbe, const S& vbc, const S& t_K, S& ic, S& ib) const;
+    template <class S> void intrinsic(const S& vbe, const S& vbc, const S& t_K, S& ic, S& ib) const;
 
     /// Forward-active intrinsic V_BE' that carries collector current ic_A at t_K (at V_BC' = 0).
     double junctionVoltage(double ic_A, double t_K) const;

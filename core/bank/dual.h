@@ -12,8 +12,7 @@
 
 namespace amp::ad {
 
-template <int M>
-struct Dual {
+template <int M> struct Dual {
     double v = 0.0;
     std::array<double, M> d{};
 
@@ -27,46 +26,42 @@ struct Dual {
     }
 };
 
-inline double val(double x) { return x; }
-template <int M>
-double val(const Dual<M>& x) {
+inline double val(double x) {
+    return x;
+}
+template <int M> double val(const Dual<M>& x) {
     return x.v;
 }
 
-template <int M>
-Dual<M> operator-(const Dual<M>& a) {
+template <int M> Dual<M> operator-(const Dual<M>& a) {
     Dual<M> r;
     r.v = -a.v;
     for (int i = 0; i < M; ++i)
         r.d[i] = -a.d[i];
     return r;
 }
-template <int M>
-Dual<M> operator+(const Dual<M>& a, const Dual<M>& b) {
+template <int M> Dual<M> operator+(const Dual<M>& a, const Dual<M>& b) {
     Dual<M> r;
     r.v = a.v + b.v;
     for (int i = 0; i < M; ++i)
         r.d[i] = a.d[i] + b.d[i];
     return r;
 }
-template <int M>
-Dual<M> operator-(const Dual<M>& a, const Dual<M>& b) {
+template <int M> Dual<M> operator-(const Dual<M>& a, const Dual<M>& b) {
     Dual<M> r;
     r.v = a.v - b.v;
     for (int i = 0; i < M; ++i)
         r.d[i] = a.d[i] - b.d[i];
     return r;
 }
-template <int M>
-Dual<M> operator*(const Dual<M>& a, const Dual<M>& b) {
+template <int M> Dual<M> operator*(const Dual<M>& a, const Dual<M>& b) {
     Dual<M> r;
     r.v = a.v * b.v;
     for (int i = 0; i < M; ++i)
         r.d[i] = a.d[i] * b.v + a.v * b.d[i];
     return r;
 }
-template <int M>
-Dual<M> operator/(const Dual<M>& a, const Dual<M>& b) {
+template <int M> Dual<M> operator/(const Dual<M>& a, const Dual<M>& b) {
     Dual<M> r;
     r.v = a.v / b.v;
     const double inv = 1.0 / b.v;
@@ -74,46 +69,38 @@ Dual<M> operator/(const Dual<M>& a, const Dual<M>& b) {
         r.d[i] = (a.d[i] - r.v * b.d[i]) * inv;
     return r;
 }
-template <int M>
-Dual<M> operator+(const Dual<M>& a, double b) {
+template <int M> Dual<M> operator+(const Dual<M>& a, double b) {
     Dual<M> r = a;
     r.v += b;
     return r;
 }
-template <int M>
-Dual<M> operator+(double a, const Dual<M>& b) {
+template <int M> Dual<M> operator+(double a, const Dual<M>& b) {
     return b + a;
 }
-template <int M>
-Dual<M> operator-(const Dual<M>& a, double b) {
+template <int M> Dual<M> operator-(const Dual<M>& a, double b) {
     Dual<M> r = a;
     r.v -= b;
     return r;
 }
-template <int M>
-Dual<M> operator-(double a, const Dual<M>& b) {
+template <int M> Dual<M> operator-(double a, const Dual<M>& b) {
     Dual<M> r = -b;
     r.v += a;
     return r;
 }
-template <int M>
-Dual<M> operator*(const Dual<M>& a, double b) {
+template <int M> Dual<M> operator*(const Dual<M>& a, double b) {
     Dual<M> r;
     r.v = a.v * b;
     for (int i = 0; i < M; ++i)
         r.d[i] = a.d[i] * b;
     return r;
 }
-template <int M>
-Dual<M> operator*(double a, const Dual<M>& b) {
+template <int M> Dual<M> operator*(double a, const Dual<M>& b) {
     return b * a;
 }
-template <int M>
-Dual<M> operator/(const Dual<M>& a, double b) {
+template <int M> Dual<M> operator/(const Dual<M>& a, double b) {
     return a * (1.0 / b);
 }
-template <int M>
-Dual<M> operator/(double a, const Dual<M>& b) {
+template <int M> Dual<M> operator/(double a, const Dual<M>& b) {
     Dual<M> r;
     r.v = a / b.v;
     const double k = -r.v / b.v;
@@ -123,8 +110,7 @@ Dual<M> operator/(double a, const Dual<M>& b) {
 }
 
 /// Apply a scalar function with value f and derivative df at a.v (chain rule).
-template <int M>
-Dual<M> chain(const Dual<M>& a, double f, double df) {
+template <int M> Dual<M> chain(const Dual<M>& a, double f, double df) {
     Dual<M> r;
     r.v = f;
     for (int i = 0; i < M; ++i)
@@ -132,26 +118,21 @@ Dual<M> chain(const Dual<M>& a, double f, double df) {
     return r;
 }
 
-template <int M>
-Dual<M> exp(const Dual<M>& a) {
+template <int M> Dual<M> exp(const Dual<M>& a) {
     const double e = std::exp(a.v);
     return chain(a, e, e);
 }
-template <int M>
-Dual<M> log(const Dual<M>& a) {
+template <int M> Dual<M> log(const Dual<M>& a) {
     return chain(a, std::log(a.v), 1.0 / a.v);
 }
-template <int M>
-Dual<M> log1p(const Dual<M>& a) {
+template <int M> Dual<M> log1p(const Dual<M>& a) {
     return chain(a, std::log1p(a.v), 1.0 / (1.0 + a.v));
 }
-template <int M>
-Dual<M> sqrt(const Dual<M>& a) {
+template <int M> Dual<M> sqrt(const Dual<M>& a) {
     const double s = std::sqrt(a.v);
     return chain(a, s, s > 0.0 ? 0.5 / s : 0.0);
 }
-template <int M>
-Dual<M> pow(const Dual<M>& a, double p) {
+template <int M> Dual<M> pow(const Dual<M>& a, double p) {
     const double f = std::pow(a.v, p);
     return chain(a, f, a.v != 0.0 ? p * f / a.v : 0.0);
 }

@@ -12,8 +12,7 @@ namespace amp {
 namespace {
 
 // s·ln(1 + e^(x/s)) without overflow; equals x to double precision for x ≫ s.
-template <class S>
-S softplus(const S& x, const S& s) {
+template <class S> S softplus(const S& x, const S& s) {
     using std::exp;
     using std::log1p;
     const S u = x / s;
@@ -22,8 +21,7 @@ S softplus(const S& x, const S& s) {
     return s * log1p(exp(u));
 }
 
-template <class S>
-S tableFactor(const std::vector<RdsOnPoint>& table, const S& t_K) {
+template <class S> S tableFactor(const std::vector<RdsOnPoint>& table, const S& t_K) {
     const S tC = t_K - kZeroCelsius_K;
     if (table.size() == 1)
         return S(std::max(table.front().factor, 0.05));
@@ -47,8 +45,8 @@ MosfetModel MosfetModel::make(const MosfetParams& p, double rdsOnDeviation, doub
     return make(p, rdsOnDeviation, vthDeviation_V, tMax_K, consistencyRaise(p, tMax_K));
 }
 
-MosfetModel MosfetModel::make(const MosfetParams& p, double rdsOnDeviation, double vthDeviation_V, double /*tMax_K*/,
-                              double knownRaise) {
+MosfetModel MosfetModel::make(const MosfetParams& p, double rdsOnDeviation, double vthDeviation_V,
+                              double /*tMax_K*/, double knownRaise) {
     MosfetModel m;
     m.rdsOn25_ohm = p.rdsOn25_ohm;
     m.tempExponent = p.rdsOnTempExponent;
@@ -86,8 +84,7 @@ double MosfetModel::nominalOnResistance(double t_K) const {
     return rdsOn25_ohm * std::pow(t_K / kPartReference_K, tempExponent);
 }
 
-template <class S>
-MosfetModel::AtTemperature<S> MosfetModel::atTemperature(const S& t_K) const {
+template <class S> MosfetModel::AtTemperature<S> MosfetModel::atTemperature(const S& t_K) const {
     using std::pow;
     using std::sqrt;
     const S r = t_K / kPartReference_K;
@@ -126,45 +123,39 @@ S MosfetModel::channelCurrent(const AtTemperature<S>& at, const S& vgs, const S&
     return reverse ? -i : i;
 }
 
-template <class S>
-S MosfetModel::threshold(const S& t_K) const {
+template <class S> S MosfetModel::threshold(const S& t_K) const {
     return (vth25_V + vthShift_V) + vthTempCoeff_VperK * (t_K - kPartReference_K);
 }
 
-template <class S>
-S MosfetModel::channelK(const S& t_K) const {
+template <class S> S MosfetModel::channelK(const S& t_K) const {
     return atTemperature(t_K).k;
 }
 
-template <class S>
-S MosfetModel::overdrive(const S& vgs, const S& t_K) const {
+template <class S> S MosfetModel::overdrive(const S& vgs, const S& t_K) const {
     return softplus(vgs - threshold(t_K), 3.0 * thermalVoltage(t_K));
 }
 
-template <class S>
-S MosfetModel::driftResistance(const S& t_K) const {
+template <class S> S MosfetModel::driftResistance(const S& t_K) const {
     return atTemperature(t_K).drift;
 }
 
-template <class S>
-S MosfetModel::onResistance(const S& t_K) const {
+template <class S> S MosfetModel::onResistance(const S& t_K) const {
     const AtTemperature<S> at = atTemperature(t_K);
     return at.drift + 1.0 / (2.0 * at.k * (at.vovSpec + kEnhancementWidth_V));
 }
 
-template <class S>
-S MosfetModel::channelCurrent(const S& vgs, const S& vds, const S& t_K) const {
+template <class S> S MosfetModel::channelCurrent(const S& vgs, const S& vds, const S& t_K) const {
     return channelCurrent(atTemperature(t_K), vgs, vds);
 }
 
-#define AMP_MOSFET_INSTANTIATE(S)                                                                    \
-    template S MosfetModel::onResistance<S>(const S&) const;                                        \
-    template S MosfetModel::threshold<S>(const S&) const;                                           \
-    template S MosfetModel::channelK<S>(const S&) const;                                            \
-    template S MosfetModel::overdrive<S>(const S&, const S&) const;                                 \
-    template S MosfetModel::driftResistance<S>(const S&) const;                                     \
-    template S MosfetModel::channelCurrent<S>(const S&, const S&, const S&) const;                  \
-    template MosfetModel::AtTemperature<S> MosfetModel::atTemperature<S>(const S&) const;           \
+#define AMP_MOSFET_INSTANTIATE(S)                                                                            \
+    template S MosfetModel::onResistance<S>(const S&) const;                                                 \
+    template S MosfetModel::threshold<S>(const S&) const;                                                    \
+    template S MosfetModel::channelK<S>(const S&) const;                                                     \
+    template S MosfetModel::overdrive<S>(const S&, const S&) const;                                          \
+    template S MosfetModel::driftResistance<S>(const S&) const;                                              \
+    template S MosfetModel::channelCurrent<S>(const S&, const S&, const S&) const;                           \
+    template MosfetModel::AtTemperature<S> MosfetModel::atTemperature<S>(const S&) const;                    \
     template S MosfetModel::channelCurrent<S>(const AtTemperature<S>&, const S&, const S&) const;
 
 AMP_MOSFET_INSTANTIATE(double)

@@ -48,17 +48,17 @@
 namespace amp {
 
 struct MosfetModel {
-    double rdsOn25_ohm = 4e-3;   ///< nominal R_ds(on) at 25 °C, specified gate voltage
-    double tempExponent = 2.0;   ///< a
+    double rdsOn25_ohm = 4e-3;     ///< nominal R_ds(on) at 25 °C, specified gate voltage
+    double tempExponent = 2.0;     ///< a
     std::vector<RdsOnPoint> table; ///< sorted by tj_C; replaces the exponent law when not empty
     double specGate_V = 10.0;
-    double vth25_V = 3.0;        ///< nominal threshold at 25 °C
-    double vthShift_V = 0.0;     ///< this device's deviation
+    double vth25_V = 3.0;    ///< nominal threshold at 25 °C
+    double vthShift_V = 0.0; ///< this device's deviation
     double vthTempCoeff_VperK = -5e-3;
-    double k25_AperV2 = 60.0;    ///< nominal channel K at 25 °C (after kRaise)
-    double scale = 1.0;          ///< 1 + relative R_ds(on) deviation
-    double kRaise = 1.0;         ///< factor K was raised by for consistency (1 = as stated)
-    double gmin_S = 1e-9;        ///< conductance across the channel (keeps the Jacobian regular)
+    double k25_AperV2 = 60.0; ///< nominal channel K at 25 °C (after kRaise)
+    double scale = 1.0;       ///< 1 + relative R_ds(on) deviation
+    double kRaise = 1.0;      ///< factor K was raised by for consistency (1 = as stated)
+    double gmin_S = 1e-9;     ///< conductance across the channel (keeps the Jacobian regular)
     static constexpr double kEnhancementWidth_V = 0.25; ///< w of the full-enhancement knee
 
     /// Build from part data and one device's deviations. `tMax_K` is the top of the temperature
@@ -66,47 +66,38 @@ struct MosfetModel {
     static MosfetModel make(const MosfetParams& p, double rdsOnDeviation = 0.0, double vthDeviation_V = 0.0,
                             double tMax_K = 573.15);
     /// The same with the consistency factor already known (a bank computes it once per part).
-    static MosfetModel make(const MosfetParams& p, double rdsOnDeviation, double vthDeviation_V, double tMax_K,
-                            double knownRaise);
+    static MosfetModel make(const MosfetParams& p, double rdsOnDeviation, double vthDeviation_V,
+                            double tMax_K, double knownRaise);
     /// The factor K must be raised by for consistency with R_ds(on) over −40 °C … tMax_K (1 = none).
     static double consistencyRaise(const MosfetParams& p, double tMax_K);
 
     /// R_ds(on)(T) of this device at full enhancement (drift + channel), the datasheet's value.
-    template <class S>
-    S onResistance(const S& t_K) const;
+    template <class S> S onResistance(const S& t_K) const;
     /// V_th(T) of this device.
-    template <class S>
-    S threshold(const S& t_K) const;
+    template <class S> S threshold(const S& t_K) const;
     /// K(T) of this device's channel.
-    template <class S>
-    S channelK(const S& t_K) const;
+    template <class S> S channelK(const S& t_K) const;
     /// Smoothed overdrive V_ov for a given V_GS.
-    template <class S>
-    S overdrive(const S& vgs, const S& t_K) const;
+    template <class S> S overdrive(const S& vgs, const S& t_K) const;
     /// Drift resistance of this device.
-    template <class S>
-    S driftResistance(const S& t_K) const;
+    template <class S> S driftResistance(const S& t_K) const;
     /// Channel current for intrinsic V_GS and V_DS (across the channel, after the drift).
-    template <class S>
-    S channelCurrent(const S& vgs, const S& vds, const S& t_K) const;
+    template <class S> S channelCurrent(const S& vgs, const S& vds, const S& t_K) const;
 
     /// Nominal R_ds(on)(T) law of the part (no deviation), exponent or table.
     double nominalOnResistance(double t_K) const;
 
     /// Everything that depends on temperature alone, evaluated once per temperature.
-    template <class S>
-    struct AtTemperature {
-        S k;      ///< K(T) of this device
-        S vth;    ///< V_th(T) of this device
-        S drift;  ///< R_drift(T) of this device
-        S smooth; ///< softplus width s = 3·V_T
+    template <class S> struct AtTemperature {
+        S k;       ///< K(T) of this device
+        S vth;     ///< V_th(T) of this device
+        S drift;   ///< R_drift(T) of this device
+        S smooth;  ///< softplus width s = 3·V_T
         S vovSpec; ///< this device's overdrive at the specified gate voltage (the knee's start)
     };
-    template <class S>
-    AtTemperature<S> atTemperature(const S& t_K) const;
+    template <class S> AtTemperature<S> atTemperature(const S& t_K) const;
     /// Channel current with the temperature state already evaluated.
-    template <class S>
-    S channelCurrent(const AtTemperature<S>& at, const S& vgs, const S& vds) const;
+    template <class S> S channelCurrent(const AtTemperature<S>& at, const S& vgs, const S& vds) const;
 };
 
 } // namespace amp

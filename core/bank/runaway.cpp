@@ -68,7 +68,8 @@ RunawaySearch findRunawayLoad(const BankProblem& problem, double maxLoad_A, int 
             double a = haveStable ? load - maxLoad_A / scanSteps : 0.0, b = load;
             for (int k = 0; k < 30 && b - a > 1e-3 * b; ++k) {
                 const double mid = 0.5 * (a + b);
-                const BankSolution m = solveBank(problemAtLoad(problem, mid), haveStable ? &lastStable : nullptr);
+                const BankSolution m =
+                    solveBank(problemAtLoad(problem, mid), haveStable ? &lastStable : nullptr);
                 ++r.solves;
                 if (m.failure == BankFailure::CannotCarryLoad) {
                     b = mid;

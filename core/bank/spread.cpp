@@ -12,7 +12,9 @@ double RandomStream::uniform() {
     return static_cast<double>(m_engine() >> 11) * (1.0 / 9007199254740992.0);
 }
 
-double RandomStream::uniformSymmetric() { return 2.0 * uniform() - 1.0; }
+double RandomStream::uniformSymmetric() {
+    return 2.0 * uniform() - 1.0;
+}
 
 double RandomStream::normal() {
     if (m_hasSpare) {
@@ -33,9 +35,13 @@ double RandomStream::normal() {
 
 namespace {
 
-bool isNormal(const Spread& s) { return s.distribution != "uniform"; }
+bool isNormal(const Spread& s) {
+    return s.distribution != "uniform";
+}
 
-double draw(const Spread& s, RandomStream& r) { return isNormal(s) ? r.normal() : r.uniformSymmetric(); }
+double draw(const Spread& s, RandomStream& r) {
+    return isNormal(s) ? r.normal() : r.uniformSymmetric();
+}
 
 // Thermal reasons for not being stable (as opposed to a drive that cannot hold the load).
 bool thermallyUnstable(const BankSolution& s) {

@@ -68,15 +68,16 @@ struct MonteCarloResult {
 MonteCarloResult runMonteCarlo(const BankProblem& problem, const Spread& spread);
 
 struct CornerResult {
-    int favoured = 0;          ///< the device at the favourable extreme
-    double extent = 0.0;       ///< k·σ or the band, relative/volts as the parameter
-    BankProblem problem;       ///< the corner bank
+    int favoured = 0;    ///< the device at the favourable extreme
+    double extent = 0.0; ///< k·σ or the band, relative/volts as the parameter
+    BankProblem problem; ///< the corner bank
     BankSolution solution;
 };
 
 CornerResult worstCaseCorner(const BankProblem& problem, const Spread& spread, double sigmas = 3.0);
 
 /// The corner bank with device `favoured` at the favourable extreme.
-BankProblem cornerProblem(const BankProblem& problem, const Spread& spread, int favoured, double sigmas = 3.0);
+BankProblem cornerProblem(const BankProblem& problem, const Spread& spread, int favoured,
+                          double sigmas = 3.0);
 
 } // namespace amp

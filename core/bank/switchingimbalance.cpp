@@ -52,7 +52,8 @@ SwitchingImbalance estimateSwitchingImbalance(const BankProblem& p, double f, do
         const double rNom = nd * p.driveResistance_ohm + p.gateResistor_ohm + m.rgInternal_ohm;
         for (std::size_t k = 0; k < n; ++k) {
             const BankDevice& d = p.devices[k];
-            const double rk = nd * p.driveResistance_ohm + std::max(p.gateResistor_ohm + d.gateResistorDeviation_ohm, 0.0) +
+            const double rk = nd * p.driveResistance_ohm +
+                              std::max(p.gateResistor_ohm + d.gateResistorDeviation_ohm, 0.0) +
                               m.rgInternal_ohm;
             // A threshold at or above the drive never turns on: hold it at 99.9 % of the drive.
             const double vth = std::clamp(m.vth_V + d.vthDeviation_V, 1e-3, 0.999 * vdrv);
@@ -79,7 +80,8 @@ SwitchingImbalance estimateSwitchingImbalance(const BankProblem& p, double f, do
     const std::vector<double> off = leads(tOff, false);
     double best = -1.0;
     for (std::size_t k = 0; k < n; ++k) {
-        const double eOn = swOn > 0.0 ? (1.0 - 1.0 / nd) * std::clamp(on[k] / swOn, 0.0, 1.0) * r.bankEnergyOn_J : 0.0;
+        const double eOn =
+            swOn > 0.0 ? (1.0 - 1.0 / nd) * std::clamp(on[k] / swOn, 0.0, 1.0) * r.bankEnergyOn_J : 0.0;
         const double eOff =
             swOff > 0.0 ? (1.0 - 1.0 / nd) * std::clamp(off[k] / swOff, 0.0, 1.0) * r.bankEnergyOff_J : 0.0;
         r.extraPowerPerDevice_W[k] = f * (eOn + eOff);

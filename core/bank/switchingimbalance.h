@@ -33,16 +33,16 @@ namespace amp {
 struct SwitchingImbalance {
     bool applicable = false;
     std::string note;
-    int firstOn = 0;                 ///< device with the earliest turn-on
-    int lastOff = 0;                 ///< device with the latest turn-off
-    int worst = 0;                   ///< device with the largest extra energy
-    double leadOn_s = 0.0;           ///< first-on device's lead on the mean of the others
-    double lagOff_s = 0.0;           ///< last-off device's lag behind the mean of the others
-    double bankEnergyOn_J = 0.0;     ///< whole bank, per turn-on
+    int firstOn = 0;             ///< device with the earliest turn-on
+    int lastOff = 0;             ///< device with the latest turn-off
+    int worst = 0;               ///< device with the largest extra energy
+    double leadOn_s = 0.0;       ///< first-on device's lead on the mean of the others
+    double lagOff_s = 0.0;       ///< last-off device's lag behind the mean of the others
+    double bankEnergyOn_J = 0.0; ///< whole bank, per turn-on
     double bankEnergyOff_J = 0.0;
-    double extraEnergyOn_J = 0.0;    ///< worst device, per turn-on
+    double extraEnergyOn_J = 0.0; ///< worst device, per turn-on
     double extraEnergyOff_J = 0.0;
-    double extraPower_W = 0.0;       ///< worst device at the switching frequency
+    double extraPower_W = 0.0; ///< worst device at the switching frequency
     std::vector<double> extraPowerPerDevice_W;
 };
 

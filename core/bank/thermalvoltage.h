@@ -14,12 +14,15 @@ inline constexpr double kZeroCelsius_K = 273.15;
 inline constexpr double kPartReference_K = 298.15; ///< 25 °C, where part data are stated
 
 /// V_T in volts at the absolute temperature t_K (kelvin).
-template <class S>
-S thermalVoltage(const S& t_K) {
+template <class S> S thermalVoltage(const S& t_K) {
     return t_K * (kBoltzmann_JperK / kElementaryCharge_As);
 }
 
-inline double toKelvin(double t_C) { return t_C + kZeroCelsius_K; }
-inline double toCelsius(double t_K) { return t_K - kZeroCelsius_K; }
+inline double toKelvin(double t_C) {
+    return t_C + kZeroCelsius_K;
+}
+inline double toCelsius(double t_K) {
+    return t_K - kZeroCelsius_K;
+}
 
 } // namespace amp

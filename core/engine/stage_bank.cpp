@@ -37,7 +37,8 @@ double baseVoltage(const Design& d, double ic_A, double earlyVoltage_V) {
     const double t = kPartReference_K;
     const double ext = std::max(0.0, d.bank.ballast_ohm) + std::max(0.0, d.bank.legResistance_ohm);
     if (d.bank.device.kind == "darlington") {
-        const DarlingtonModel m = DarlingtonModel::make(d.bank.device.driver, d.bank.device.bjt, 0.0, 0.0, earlyVoltage_V);
+        const DarlingtonModel m =
+            DarlingtonModel::make(d.bank.device.driver, d.bank.device.bjt, 0.0, 0.0, earlyVoltage_V);
         return m.inputVoltage(ic_A, t) + ic_A * ext;
     }
     const BjtModel q = BjtModel::make(d.bank.device.bjt, 0.0, 0.0, earlyVoltage_V);
@@ -88,14 +89,16 @@ std::string baseDriveNote(const Design& d, const BankProblem& p) {
     if (d.bank.device.kind != "bipolar" && d.bank.device.kind != "darlington")
         return {};
     const double ib = designBaseCurrent(d);
-    const std::string basis = d.drive.baseDriveCurrent_A > 0.0
-                                  ? std::string("drive.baseDriveCurrent_A")
-                                  : fmt::format("{:.3g} A / forced β {:.3g}", designCollectorCurrent(d), d.drive.forcedBeta);
-    return fmt::format("base drive: {:.3g} V behind {:.3g} Ω shared{}, built for {:.3g} A of base current in all ({})",
-                       p.driveVoltage_V, p.driveResistance_ohm,
-                       p.gateResistor_ohm > 0.0 ? fmt::format(" and {:.3g} Ω per base", p.gateResistor_ohm)
-                                                : std::string(", bases tied together"),
-                       ib, basis);
+    const std::string basis =
+        d.drive.baseDriveCurrent_A > 0.0
+            ? std::string("drive.baseDriveCurrent_A")
+            : fmt::format("{:.3g} A / forced β {:.3g}", designCollectorCurrent(d), d.drive.forcedBeta);
+    return fmt::format(
+        "base drive: {:.3g} V behind {:.3g} Ω shared{}, built for {:.3g} A of base current in all ({})",
+        p.driveVoltage_V, p.driveResistance_ohm,
+        p.gateResistor_ohm > 0.0 ? fmt::format(" and {:.3g} Ω per base", p.gateResistor_ohm)
+                                 : std::string(", bases tied together"),
+        ib, basis);
 }
 
 void addBankStudies(const Design& d, const BankProblem& p, BankResult& bank) {

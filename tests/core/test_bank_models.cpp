@@ -66,7 +66,8 @@ class TestBankModels : public QObject {
         // The law it comes from, (V_BE − V_G0 − 3·V_T)/T with V_G0 = 1.11 V (Gummel–Poon
         // temperature law, exact formula recomputed), to 1e-4 relative.
         const double law = -(vbe - 1.11 - 3.0 * thermalVoltage(t)) / t;
-        QVERIFY2(test::relDiff(phi, law) < 1e-4, qPrintable(QString::number(phi) + " vs " + QString::number(law)));
+        QVERIFY2(test::relDiff(phi, law) < 1e-4,
+                 qPrintable(QString::number(phi) + " vs " + QString::number(law)));
         // references.md [calc]: V_BE 0.6 V at 300 K → −1.96 mV/K.
         const double law06 = (0.6 - 1.11 - 3.0 * thermalVoltage(300.0)) / 300.0;
         QVERIFY(std::abs(law06 * 1e3 - (-1.96)) < 0.005);

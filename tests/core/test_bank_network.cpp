@@ -93,9 +93,9 @@ BankProblem mosfetBank(int n, double load) {
 
 bool allFinite(const BankSolution& s) {
     auto f = [](double v) { return std::isfinite(v); };
-    if (!f(s.load_A) || !f(s.commonNode_V) || !f(s.driveNode_V) || !f(s.heatsink_C) || !f(s.maxMinCurrentRatio) ||
-        !f(s.maxShare) || !f(s.deviceLoss_W) || !f(s.ballastLoss_W) || !f(s.stability.loopGain) ||
-        !f(s.stability.dominantEigenvalue))
+    if (!f(s.load_A) || !f(s.commonNode_V) || !f(s.driveNode_V) || !f(s.heatsink_C) ||
+        !f(s.maxMinCurrentRatio) || !f(s.maxShare) || !f(s.deviceLoss_W) || !f(s.ballastLoss_W) ||
+        !f(s.stability.loopGain) || !f(s.stability.dominantEigenvalue))
         return false;
     for (const auto& d : s.devices)
         for (double v : {d.current_A, d.share, d.ratingShare, d.deratedShare, d.voltage_V, d.controlVoltage_V,
@@ -131,9 +131,9 @@ class TestBankNetwork : public QObject {
         QFETCH(double, i1);
         QFETCH(double, i2);
         // Test set-up where only the exponential law and R_E matter: β = 1e9, R_B = R_C = 0, no
-        // roll-off, no Early effect, bases on one node, collectors held at 10 V, 10 A forced (linear feed), both
-        // junctions held at 300 K. The V_BE deviation is stated at 25 °C; a 20 mV shift at 300 K is
-        // 20 mV × 298.15/300 at 25 °C (the I_S ratio does not depend on temperature).
+        // roll-off, no Early effect, bases on one node, collectors held at 10 V, 10 A forced (linear feed),
+        // both junctions held at 300 K. The V_BE deviation is stated at 25 °C; a 20 mV shift at 300 K is 20
+        // mV × 298.15/300 at 25 °C (the I_S ratio does not depend on temperature).
         BankProblem p;
         p.part = idealNpn(1e-12);
         p.devices.resize(2);
@@ -149,8 +149,10 @@ class TestBankNetwork : public QObject {
         p.earlyVoltage_V = 0.0;
         const BankSolution s = solveBank(p);
         QVERIFY2(s.converged, s.reason.c_str());
-        QVERIFY2(test::relDiff(s.devices[0].current_A, i1) < 0.005, qPrintable(QString::number(s.devices[0].current_A)));
-        QVERIFY2(test::relDiff(s.devices[1].current_A, i2) < 0.005, qPrintable(QString::number(s.devices[1].current_A)));
+        QVERIFY2(test::relDiff(s.devices[0].current_A, i1) < 0.005,
+                 qPrintable(QString::number(s.devices[0].current_A)));
+        QVERIFY2(test::relDiff(s.devices[1].current_A, i2) < 0.005,
+                 qPrintable(QString::number(s.devices[1].current_A)));
         // Identity: the currents sum to the load (1e-9).
         QVERIFY(test::relDiff(s.devices[0].current_A + s.devices[1].current_A, 10.0) < 1e-9);
         QCOMPARE(s.devices[0].region, std::string("active"));
@@ -204,7 +206,8 @@ class TestBankNetwork : public QObject {
         const BjtModel q = BjtModel::make(idealNpn(is25, re).bjt);
         const double phi = -(q.junctionVoltage(ic, t + 0.01) - q.junctionVoltage(ic, t - 0.01)) / 0.02;
         const double crit = thermalVoltage(t) / (24.0 * phi * 2.0 - re);
-        QVERIFY2(test::relDiff(ic, crit) < 1e-3, qPrintable(QString::number(ic) + " vs " + QString::number(crit)));
+        QVERIFY2(test::relDiff(ic, crit) < 1e-3,
+                 qPrintable(QString::number(ic) + " vs " + QString::number(crit)));
         QVERIFY2(test::relDiff(ic, 0.562) < 0.005, qPrintable(QString::number(ic)));
         // The full electrothermal solve below the threshold: a stable fixed point whose loop gain is
         // the formula V_CE·φ·R_th/(R_E + V_T/I) at its own T_j and current (1e-3).
@@ -245,8 +248,9 @@ class TestBankNetwork : public QObject {
             sum += d.current_A;
             const MosfetModel m = MosfetModel::make(p.part.mosfet, dev[k]);
             const double path = m.onResistance(toKelvin(d.tj_C)) + p.legResistance_ohm + leg[k];
-            QVERIFY2(test::relDiff(d.current_A * path, s.commonNode_V) < 0.005,
-                     qPrintable(QString::number(d.current_A * path) + " vs " + QString::number(s.commonNode_V)));
+            QVERIFY2(
+                test::relDiff(d.current_A * path, s.commonNode_V) < 0.005,
+                qPrintable(QString::number(d.current_A * path) + " vs " + QString::number(s.commonNode_V)));
             QCOMPARE(d.region, std::string("ohmic"));
         }
         QVERIFY(test::relDiff(sum, 120.0) < 1e-9);
@@ -347,7 +351,8 @@ class TestBankNetwork : public QObject {
             QVERIFY2(s.converged, s.reason.c_str());
             const auto& sm = s.stability.sensitivity_WperK;
             const double diff = sm[0] - sm[1]; // (∂P0/∂T0 − ∂P0/∂T1): the differential mode
-            const double vov = s.devices[0].controlVoltage_V - MosfetModel::make(p.part.mosfet).threshold(298.15);
+            const double vov =
+                s.devices[0].controlVoltage_V - MosfetModel::make(p.part.mosfet).threshold(298.15);
             if (load < 10.0) {
                 QVERIFY2(vov < 4.0 / 3.0 * 6e-3 * 298.15, qPrintable(QString::number(vov)));
                 QVERIFY(diff > 0.0);
@@ -396,13 +401,16 @@ class TestBankNetwork : public QObject {
                                 double sum = 0.0;
                                 for (const auto& d : sol.devices)
                                     sum += d.current_A;
-                                QVERIFY2(std::abs(sum - load) <= 1e-6 * std::max(load, 1.0), qPrintable(what));
+                                QVERIFY2(std::abs(sum - load) <= 1e-6 * std::max(load, 1.0),
+                                         qPrintable(what));
                             } else {
                                 ++failed;
                                 if (sol.failure == BankFailure::NoConvergence)
                                     ++noConvergence;
-                                if (sol.failure == BankFailure::NoConvergence || qEnvironmentVariableIsSet("AMP_VERBOSE"))
-                                    qInfo("%s: %s: %s", qPrintable(what), toString(sol.failure), sol.reason.c_str());
+                                if (sol.failure == BankFailure::NoConvergence ||
+                                    qEnvironmentVariableIsSet("AMP_VERBOSE"))
+                                    qInfo("%s: %s: %s", qPrintable(what), toString(sol.failure),
+                                          sol.reason.c_str());
                                 QVERIFY2(!sol.reason.empty(), qPrintable(what));
                                 QVERIFY(!sol.stable);
                             }
