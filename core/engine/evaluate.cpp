@@ -659,9 +659,22 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     const Design& d = *c.design;
     const std::size_t n = d.bank.devices.size();
     const double diodeR = std::max(0.0, d.bank.freewheelDiode.rthJc_KperW) + c.rthCs_KperW;
-    // First waveform and loss point from the simple model at ambient.
+    // First waveform and loss point: one chopper solve with the simple model's bank at ambient (the
+    // rounds below settle the bus current of the stage's losses with everything else).
     const std::vector<double> ambient(n, d.heatsink.ambient_C);
-    Electrical e = solveElectrical(c, demand, ambient, d.heatsink.ambient_C, {}, 0.0);
+    Electrical e;
+    {
+        std::vector<double> path(n), deviceOhm(n);
+        for (std::size_t k = 0; k < n; ++k) {
+            const double r = c.mosfet ? rdsOn(d.bank.device.mosfet, ambient[k]) * (1.0 + d.bank.devices[k].rdsOnDeviation)
+                                      : c.bipolar.resistance_ohm;
+            deviceOhm[k] = std::max(0.0, r);
+            path[k] = deviceOhm[k] + c.ballast_ohm[k] + c.leg_ohm[k];
+        }
+        const Sharing sharing = shareByConductance(path);
+        e = chopperWithBank(c, demand, c.mosfet ? 0.0 : c.bipolar.drop_V, sharing.resistance_ohm,
+                            d.heatsink.ambient_C, 0.0, sharing.share, deviceOhm, ambient);
+    }
     BankSolve s;
     s.problem = c.bankProblem;
     BankProblem& p = s.problem;
@@ -744,9 +757,9 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             f[i] = (g[i] - y[i]) / scale[i];
             fmax = std::max(fmax, std::abs(f[i]));
         }
-        // Settled to well below what the inner solves resolve (their temperatures to 1e-6 K); the
-        // first round's waveform came from the simple model, not from y.
-        if (round > 0 && fmax <= 1e-7) {
+        // Settled (relative 1e-6: the bank's losses then balance the chopper's energy to well below
+        // 1e-6 of the input power); the first round's waveform came from the simple model, not y.
+        if (round > 0 && fmax <= 1e-6) {
             settled = true;
             break;
         }
