@@ -12,6 +12,7 @@
 #include <algorithm>
 #include <atomic>
 #include <chrono>
+#include <ctime>
 #include <cmath>
 #include <thread>
 #include <vector>
@@ -29,24 +30,34 @@ double median(std::vector<double> v) {
     return v.empty() ? 0.0 : v[v.size() / 2];
 }
 
+double cpuNow_us(clockid_t clock) {
+    timespec ts{};
+    clock_gettime(clock, &ts);
+    return static_cast<double>(ts.tv_sec) * 1e6 + static_cast<double>(ts.tv_nsec) * 1e-3;
+}
+
 double rel(double a, double b, double floor) { return std::abs(a - b) / std::max(std::abs(b), floor); }
 
 } // namespace
 
-double evaluateMedian_us(const Design& design, int runs) {
-    std::vector<double> t;
+double evaluateMedian_us(const Design& design, int runs, double* cpu_us) {
+    std::vector<double> t, c;
     t.reserve(static_cast<std::size_t>(runs));
     volatile double sink = 0.0;
     for (int i = 0; i < runs; ++i) {
         const auto a = Clock::now();
+        const double ca = cpuNow_us(CLOCK_THREAD_CPUTIME_ID);
         const Results r = evaluate(design);
+        c.push_back(cpuNow_us(CLOCK_THREAD_CPUTIME_ID) - ca);
         t.push_back(micros(Clock::now() - a));
         sink = sink + r.maxTotalLoss_W;
     }
+    if (cpu_us != nullptr)
+        *cpu_us = median(c);
     return median(t);
 }
 
-double sweep10k_ms(const Design& design, int* threadsUsed) {
+double sweep10k_ms(const Design& design, int* threadsUsed, double* cpu_ms) {
     Design one = design;
     if (one.dutyProfile.size() > 1)
         one.dutyProfile.resize(1);
@@ -57,6 +68,7 @@ double sweep10k_ms(const Design& design, int* threadsUsed) {
     std::atomic<int> next{0};
     std::atomic<long> solved{0};
     const auto a = Clock::now();
+    const double ca = cpuNow_us(CLOCK_PROCESS_CPUTIME_ID);
     std::vector<std::thread> pool;
     for (int t = 0; t < threads; ++t) {
         pool.emplace_back([&] {
@@ -73,6 +85,8 @@ double sweep10k_ms(const Design& design, int* threadsUsed) {
     }
     for (auto& th : pool)
         th.join();
+    if (cpu_ms != nullptr)
+        *cpu_ms = (cpuNow_us(CLOCK_PROCESS_CPUTIME_ID) - ca) / 1000.0;
     return micros(Clock::now() - a) / 1000.0;
 }
 
