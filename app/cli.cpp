@@ -1,13 +1,19 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "app/cli.h"
 
+#include "core/checks/catalogue.h"
 #include "core/engine/evaluate.h"
 #include "core/engine/results_json.h"
 #include "core/io/datapaths.h"
 #include "core/io/partslibrary.h"
 #include "core/io/projectfile.h"
+#include "core/model/design_json.h"
 #include "core/model/fields.h"
 #include "core/units/units.h"
+
+#ifdef AMPWRIGHT_WITH_UI
+#include "ui/designsheet.h"
+#endif
 
 #include <QCommandLineParser>
 #include <QCoreApplication>
@@ -42,8 +48,16 @@ DataPaths dataPaths() {
 
 QString fmt(double v, units::Unit u, int digits = 3) { return QString::fromStdString(units::format(v, u, digits)); }
 
-// Load a design, apply --set overrides (validated like a file), report problems on stderr.
-std::optional<Design> loadWithOverrides(const QString& file, const QStringList& overrides) {
+/// The design to evaluate: one variant of a project, with --set overrides applied.
+struct Chosen {
+    Design design;
+    std::string variant;
+};
+
+// Load a project, choose the variant (the active one, or `variant` when given), apply --set
+// overrides to it (validated like a file); report problems on stderr.
+std::optional<Chosen> loadWithOverrides(const QString& file, const QStringList& overrides,
+                                        const QString& variant = {}) {
     const std::string name = QFileInfo(file).fileName().toStdString();
     auto reportAll = [&](const std::vector<Problem>& problems) {
         for (const auto& p : problems)
@@ -54,28 +68,44 @@ std::optional<Design> loadWithOverrides(const QString& file, const QStringList& 
         reportAll(loaded.problems);
         return std::nullopt;
     }
+    const Project& project = *loaded.project;
+    const Variant* chosen = &project.variants.at(project.activeIndex());
+    if (!variant.isEmpty()) {
+        chosen = project.find(variant.toStdString());
+        if (chosen == nullptr) {
+            QStringList names;
+            for (const auto& n : project.names())
+                names << "\"" + QString::fromStdString(n) + "\"";
+            err(QString::fromStdString(name) + ": --variant: there is no variant \"" + variant +
+                "\"; the variants are " + names.join(", "));
+            return std::nullopt;
+        }
+    }
     if (overrides.isEmpty())
-        return loaded.design;
-    nlohmann::json project = projectToJson(*loaded.design);
+        return Chosen{chosen->design, chosen->name};
+    nlohmann::json design = chosen->design;
     for (const auto& o : overrides) {
-        const auto problems = applyOverride(project, o.toStdString());
+        const auto problems = applyOverride(design, o.toStdString());
         if (!problems.empty()) {
             for (const auto& p : problems)
                 err(QString::fromStdString("--set " + p.path + ": " + p.message));
             return std::nullopt;
         }
     }
-    const LoadResult changed = designFromJson(project);
+    const LoadResult changed = designFromJson(design);
     if (!changed) {
         for (const auto& p : changed.problems)
             err(QString::fromStdString("--set: " + (p.path.empty() ? "" : p.path + ": ") + p.message));
         return std::nullopt;
     }
-    return changed.design;
+    return Chosen{*changed.design, chosen->name};
 }
 
 void printSummary(const Results& r) {
-    out(QString("%1  [%2]").arg(QString::fromStdString(r.design), QString::fromStdString(r.topology)));
+    out(QString("%1%2  [%3]")
+            .arg(QString::fromStdString(r.design),
+                 r.variant.empty() ? QString() : QString(" · variant \"%1\"").arg(QString::fromStdString(r.variant)),
+                 QString::fromStdString(r.topology)));
     for (const auto& op : r.operatingPoints) {
         double tjMax = 0.0;
         for (const auto& d : op.devices)
@@ -119,9 +149,10 @@ int evaluateCommand(const QStringList& args) {
     QCommandLineOption set("set", "Override a design field: path=value, e.g. bank.count=3 or "
                                   "bank.device.mosfet.rdsOn25_ohm=\"3.5 mΩ\". Repeatable.",
                            "path=value");
+    QCommandLineOption variant("variant", "Evaluate the variant <name> instead of the active one.", "name");
     QCommandLineOption quiet("quiet", "Print nothing but errors.");
     QCommandLineOption verbose("verbose", "Log details to the console.");
-    p.addOptions({json, set, quiet, verbose});
+    p.addOptions({json, set, variant, quiet, verbose});
     if (!p.parse(args)) {
         err(p.errorText());
         return 2;
@@ -135,10 +166,11 @@ int evaluateCommand(const QStringList& args) {
         err("evaluate needs exactly one design file (see ampwright evaluate --help)");
         return 2;
     }
-    const auto design = loadWithOverrides(pos[1], p.values(set));
-    if (!design)
+    const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
+    if (!chosen)
         return 1;
-    const Results results = evaluate(*design, EvaluateOptions{.thermalTransient = true});
+    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true});
+    results.variant = chosen->variant;
     if (!p.isSet(quiet))
         printSummary(results);
     if (p.isSet(json)) {
@@ -150,8 +182,80 @@ int evaluateCommand(const QStringList& args) {
     return 0;
 }
 
+// Write the design sheet; false with the reason on stderr.
+bool writeSheet(const Design& design, const Results& results, const QString& pdf, const QString& paperName) {
+#ifdef AMPWRIGHT_WITH_UI
+    QPageSize::PageSizeId paper = QPageSize::A4;
+    if (!ui::paperFromName(paperName, &paper)) {
+        err("--paper must be a4 or letter, not '" + paperName + "'");
+        return false;
+    }
+    QString reason;
+    if (!ui::writeDesignSheetPdf(design, results, pdf, paper, &reason)) {
+        err("cannot write the design sheet: " + reason);
+        return false;
+    }
+    return true;
+#else
+    (void)design;
+    (void)results;
+    (void)pdf;
+    (void)paperName;
+    err("this build has no workbench library (ui/), which renders the design sheet");
+    return false;
+#endif
+}
+
+int sheetCommand(const QStringList& args) {
+    QCommandLineParser p;
+    p.setApplicationDescription("Evaluate a design and write its printable design sheet (PDF).");
+    p.addHelpOption();
+    p.addPositionalArgument("sheet", "The command.");
+    p.addPositionalArgument("design", "The design file (.ampw).");
+    QCommandLineOption pdf("pdf", "Write the design sheet to <file>.", "file");
+    QCommandLineOption paper("paper", "Paper size: a4 (default) or letter.", "size", "a4");
+    QCommandLineOption set("set", "Override a design field: path=value (as for evaluate). Repeatable.", "path=value");
+    QCommandLineOption variant("variant", "The sheet of the variant <name> instead of the active one.", "name");
+    QCommandLineOption quiet("quiet", "Print nothing but errors.");
+    QCommandLineOption verbose("verbose", "Log details to the console.");
+    p.addOptions({pdf, paper, set, variant, quiet, verbose});
+    if (!p.parse(args)) {
+        err(p.errorText());
+        return 2;
+    }
+    if (p.isSet("help")) {
+        out(p.helpText());
+        return 0;
+    }
+    const QStringList pos = p.positionalArguments();
+    if (pos.size() != 2 || !p.isSet(pdf)) {
+        err("sheet needs one design file and --pdf OUT.pdf (see ampwright sheet --help)");
+        return 2;
+    }
+    const QString paperName = p.value(paper).trimmed().toLower();
+    if (paperName != "a4" && paperName != "letter") {
+        err("--paper must be a4 or letter, not '" + p.value(paper) + "'");
+        return 2;
+    }
+    const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
+    if (!chosen)
+        return 1;
+    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true});
+    results.variant = chosen->variant;
+    if (!writeSheet(chosen->design, results, p.value(pdf), paperName))
+        return 1;
+    if (!p.isSet(quiet))
+        out("design sheet written to " + QFileInfo(p.value(pdf)).absoluteFilePath());
+    return 0;
+}
+
 int fieldsCommand(const QStringList&) {
     out(QString::fromStdString(fieldsMarkdown()));
+    return 0;
+}
+
+int checksCommand(const QStringList&) {
+    out(QString::fromStdString(checksMarkdown()));
     return 0;
 }
 
@@ -198,7 +302,7 @@ QString demoProject() {
 }
 
 bool isCommand(const QString& word) {
-    return word == "evaluate" || word == "fields" || word == "parts";
+    return word == "evaluate" || word == "sheet" || word == "fields" || word == "parts" || word == "checks";
 }
 
 QString helpText() {
@@ -211,16 +315,23 @@ QString helpText() {
         "\n"
         "Without a command, opens the workbench on DESIGN (or the demo project). With no display\n"
         "(DISPLAY and WAYLAND_DISPLAY unset) it evaluates the design headless instead, prints a summary\n"
-        "and writes <name>-results.json in the current folder.\n"
+        "and writes <name>-results.json and <name>-sheet.pdf in the current folder.\n"
         "\n"
         "Commands:\n"
-        "  evaluate DESIGN [--json OUT] [--set path=value ...]\n"
+        "  evaluate DESIGN [--json OUT] [--variant NAME] [--set path=value ...]\n"
         "        Evaluate a design; print a summary; write the results JSON to OUT.\n"
+        "        The project's active variant, or the one named by --variant.\n"
         "        --set overrides a field by its dotted path, [i] for list items, e.g.\n"
         "        --set bank.count=3  --set dutyProfile[0].duration_s=20\n"
         "        --set bank.device.mosfet.rdsOn25_ohm=\"3.5 mΩ\"   (JSON, or a number with a unit)\n"
+        "  sheet DESIGN --pdf OUT.pdf [--paper a4|letter] [--variant NAME] [--set path=value ...]\n"
+        "        Evaluate a design and write its printable design sheet: inputs, results per\n"
+        "        operating point and device, charts, every check, the safety cautions.\n"
         "  fields\n"
         "        Print every design field with its unit, range and meaning (Markdown).\n"
+        "  checks\n"
+        "        Print the catalogue of design checks: id, what it compares, where the limit comes\n"
+        "        from and the field to change (Markdown).\n"
         "  parts [--user FOLDER]\n"
         "        List the parts library and any part file that was skipped, with the reason.\n"
         "\n"
@@ -236,16 +347,22 @@ QString helpText() {
         "licensed practice decide.\n");
 }
 
-int runHeadless(const QString& designFile, const QString& jsonOut) {
-    const auto design = loadWithOverrides(designFile, {});
-    if (!design)
+int runHeadless(const QString& designFile, const QString& jsonOut, const QString& sheetOut) {
+    const auto chosen = loadWithOverrides(designFile, {});
+    if (!chosen)
         return 1;
     out("No display: evaluating " + QFileInfo(designFile).absoluteFilePath() + " headless.");
-    const Results results = evaluate(*design, EvaluateOptions{.thermalTransient = true});
+    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true});
+    results.variant = chosen->variant;
     printSummary(results);
     if (!writeJson(results, jsonOut))
         return 1;
     out("results written to " + QFileInfo(jsonOut).absoluteFilePath());
+    if (!sheetOut.isEmpty()) {
+        if (!writeSheet(chosen->design, results, sheetOut, QStringLiteral("a4")))
+            return 1;
+        out("design sheet written to " + QFileInfo(sheetOut).absoluteFilePath());
+    }
     return 0;
 }
 
@@ -253,10 +370,14 @@ int runCommand(const QStringList& args) {
     const QString verb = args.value(1);
     if (verb == "evaluate")
         return evaluateCommand(args);
+    if (verb == "sheet")
+        return sheetCommand(args);
     if (verb == "fields")
         return fieldsCommand(args);
     if (verb == "parts")
         return partsCommand(args);
+    if (verb == "checks")
+        return checksCommand(args);
     err("unknown command '" + verb + "' (see ampwright --help)");
     return 2;
 }

@@ -8,6 +8,7 @@
 
 #ifdef AMPWRIGHT_WITH_UI
 #include <QApplication>
+#include <QGuiApplication>
 #include "ui/workbench.h"
 #endif
 
@@ -44,6 +45,17 @@ int main(int argc, char** argv) {
     QCoreApplication::setApplicationName("ampwright");
     QCoreApplication::setApplicationVersion(AMPWRIGHT_VERSION);
 
+#ifdef AMPWRIGHT_WITH_UI
+    // The design sheet lays text out with Qt's fonts: a GUI application, without a window. The
+    // offscreen platform needs no display.
+    if (args.size() > 1 && args[1] == "sheet") {
+        if (qEnvironmentVariableIsEmpty("QT_QPA_PLATFORM"))
+            qputenv("QT_QPA_PLATFORM", "offscreen");
+        QGuiApplication app(argc, argv);
+        amp::app::setupLogging(true, verbose);
+        return amp::app::runCommand(args);
+    }
+#endif
     if (args.size() > 1 && amp::app::isCommand(args[1])) {
         QCoreApplication app(argc, argv);
         amp::app::setupLogging(true, verbose);
@@ -56,12 +68,19 @@ int main(int argc, char** argv) {
         return 2;
     }
     if (!hasDisplay()) {
-        QCoreApplication app(argc, argv);
-        amp::app::setupLogging(true, verbose);
         if (file.isEmpty())
             file = amp::app::demoProject();
         const QString json = QFileInfo(file).completeBaseName() + "-results.json";
+#ifdef AMPWRIGHT_WITH_UI
+        qputenv("QT_QPA_PLATFORM", "offscreen");
+        QGuiApplication app(argc, argv);
+        amp::app::setupLogging(true, verbose);
+        return amp::app::runHeadless(file, json, QFileInfo(file).completeBaseName() + "-sheet.pdf");
+#else
+        QCoreApplication app(argc, argv);
+        amp::app::setupLogging(true, verbose);
         return amp::app::runHeadless(file, json);
+#endif
     }
 #ifdef AMPWRIGHT_WITH_UI
     QApplication app(argc, argv);

@@ -156,6 +156,7 @@ Design freshDesign() {
 DesignDocument::DesignDocument(QObject* parent) : QObject(parent), m_undo(new QUndoStack(this)) {
     connect(m_undo, &QUndoStack::cleanChanged, this, [this](bool clean) { emit modifiedChanged(!clean); });
     m_design = freshDesign();
+    m_variants = {Variant{kDefaultVariantName, m_design}};
     m_untitledName = tr("Untitled");
     reevaluate();
 }
@@ -188,7 +189,7 @@ QString DesignDocument::fieldText(const QString& path) const {
     return formatFieldValue(plain, value);
 }
 
-EditOutcome DesignDocument::setFieldText(const QString& path, const QString& text) {
+EditOutcome DesignDocument::setFieldText(const QString& path, const QString& text, const QString& commandText) {
     EditOutcome out;
     const FieldSpec* spec = findField(path.toStdString());
     if (!spec) {
@@ -256,10 +257,11 @@ EditOutcome DesignDocument::setFieldText(const QString& path, const QString& tex
         out.error = tr("%1 is a list and is edited in its own table").arg(label);
         return out;
     }
-    return setFieldValue(path, value);
+    return setFieldValue(path, value, commandText);
 }
 
-EditOutcome DesignDocument::setFieldValue(const QString& path, const nlohmann::json& value) {
+EditOutcome DesignDocument::setFieldValue(const QString& path, const nlohmann::json& value,
+                                          const QString& commandText) {
     EditOutcome out;
     const std::string pointerText = jsonPointerFor(path);
     nlohmann::json::json_pointer ptr;
@@ -305,18 +307,62 @@ EditOutcome DesignDocument::setFieldValue(const QString& path, const nlohmann::j
     const FieldSpec* spec = findField(path.toStdString());
     const QString label = spec ? labelOf(*spec) : path;
     const QString shown = spec ? formatFieldValue(*spec, value) : QString();
-    const QString text = shown.isEmpty() || shown.size() > 40 ? tr("Change %1").arg(label)
-                                                               : tr("Set %1 to %2").arg(label, shown);
+    const QString text = !commandText.isEmpty()                  ? commandText
+                         : shown.isEmpty() || shown.size() > 40 ? tr("Change %1").arg(label)
+                                                                : tr("Set %1 to %2").arg(label, shown);
     m_undo->push(new DesignEditCommand(this, m_design, std::move(nextDesign), text, path));
     out.changed = true;
     return out;
 }
 
-void DesignDocument::applyDesign(const Design& design) {
+void DesignDocument::applyDesign(const Design& design, int variant) {
+    const bool switched = variant >= 0 && variant != m_active && variant < static_cast<int>(m_variants.size());
+    if (switched)
+        m_active = variant;
     m_design = design;
+    m_variants[static_cast<std::size_t>(m_active)].design = design;
     m_json.reset();
     reevaluate();
     emit designChanged();
+    if (switched)
+        emit variantsChanged();
+}
+
+void DesignDocument::applyVariants(const std::vector<Variant>& variants, int active) {
+    m_variants = variants;
+    m_active = std::clamp(active, 0, static_cast<int>(m_variants.size()) - 1);
+    m_design = m_variants[static_cast<std::size_t>(m_active)].design;
+    m_json.reset();
+    reevaluate();
+    emit designChanged();
+    emit variantsChanged();
+}
+
+Project DesignDocument::project() const {
+    Project p;
+    p.variants = m_variants;
+    p.variants[static_cast<std::size_t>(m_active)].design = m_design;
+    p.active = p.variants[static_cast<std::size_t>(m_active)].name;
+    return p;
+}
+
+QStringList DesignDocument::variantNames() const {
+    QStringList out;
+    for (const auto& v : m_variants)
+        out << toQ(v.name);
+    return out;
+}
+
+QString DesignDocument::activeVariantName() const { return toQ(m_variants[static_cast<std::size_t>(m_active)].name); }
+
+bool DesignDocument::switchVariant(int index) {
+    if (index < 0 || index >= static_cast<int>(m_variants.size()))
+        return false;
+    if (index == m_active)
+        return true;
+    m_variants[static_cast<std::size_t>(m_active)].design = m_design;
+    applyDesign(m_variants[static_cast<std::size_t>(index)].design, index);
+    return true;
 }
 
 void DesignDocument::reevaluate() {
@@ -341,17 +387,19 @@ QString DesignDocument::displayName() const {
 
 bool DesignDocument::isModified() const { return !m_undo->isClean(); }
 
-void DesignDocument::takeDesign(Design design, const QString& filePath, const QString& untitledName) {
+void DesignDocument::takeProject(Project project, const QString& filePath, const QString& untitledName) {
     m_undo->clear();
     m_undo->setClean();
     m_filePath = filePath;
     m_untitledName = untitledName;
-    applyDesign(design);
+    if (project.variants.empty())
+        project = singleVariantProject(freshDesign());
+    applyVariants(project.variants, static_cast<int>(project.activeIndex()));
     emit fileChanged();
     emit modifiedChanged(false);
 }
 
-void DesignDocument::newDesign() { takeDesign(freshDesign(), {}, tr("Untitled")); }
+void DesignDocument::newDesign() { takeProject(singleVariantProject(freshDesign()), {}, tr("Untitled")); }
 
 LoadOutcome DesignDocument::load(const QString& file) {
     LoadOutcome out;
@@ -362,14 +410,14 @@ LoadOutcome DesignDocument::load(const QString& file) {
         out.problems << QString::fromUtf8(e.what());
         return out;
     }
-    if (!loaded.design) {
+    if (!loaded.project) {
         for (const auto& p : loaded.problems)
             out.problems << problemLine(p);
         if (out.problems.isEmpty())
             out.problems << tr("the file could not be read");
         return out;
     }
-    takeDesign(std::move(*loaded.design), QFileInfo(file).absoluteFilePath(), {});
+    takeProject(std::move(*loaded.project), QFileInfo(file).absoluteFilePath(), {});
     out.ok = true;
     return out;
 }
@@ -387,7 +435,7 @@ LoadOutcome DesignDocument::loadAsCopy(const QString& file, const QString& untit
 QString DesignDocument::save(const QString& file) {
     SaveResult saved;
     try {
-        saved = saveProject(m_design, std::filesystem::path(file.toStdString()));
+        saved = saveProject(project(), std::filesystem::path(file.toStdString()));
     } catch (const std::exception& e) {
         return QString::fromUtf8(e.what());
     }

@@ -5,6 +5,7 @@
 // undoable command, and every change is followed by the quick evaluation (amp::evaluate).
 
 #include "core/engine/results.h"
+#include "core/io/projectfile.h"
 #include "core/model/design.h"
 
 #include <nlohmann/json_fwd.hpp>
@@ -52,14 +53,25 @@ class DesignDocument : public QObject {
     /// Parse `text` for the field at `path` (units, range, choices) and set it. An invalid entry
     /// leaves the design unchanged and returns the message; an entry equal to the current value
     /// is accepted without pushing a command.
-    EditOutcome setFieldText(const QString& path, const QString& text);
+    EditOutcome setFieldText(const QString& path, const QString& text, const QString& commandText = {});
     /// Set a field (or a whole sub-object such as "bank.device") to a JSON value. The result is
     /// validated like a project file (field ranges, then cross-field rules) before it is taken.
-    EditOutcome setFieldValue(const QString& path, const nlohmann::json& value);
+    /// `commandText` names the edit on the undo stack (default: "Set <label> to <value>").
+    EditOutcome setFieldValue(const QString& path, const nlohmann::json& value, const QString& commandText = {});
     /// The field's current value as the workbench shows it ("16 kHz", "6", "lowSideChopper").
     QString fieldText(const QString& path) const;
     /// The field's current JSON value (null for an unknown path).
     nlohmann::json fieldValue(const QString& path) const;
+
+    // --- variants (ui/variants.h) --------------------------------------------------------------
+    /// Every variant, the active one with the design as edited.
+    Project project() const;
+    QStringList variantNames() const;
+    int activeVariant() const { return m_active; }
+    QString activeVariantName() const;
+    /// Make another variant the active one (not an edit: the undo stack is shared and its
+    /// commands know their variant). Returns false for an index out of range.
+    bool switchVariant(int index);
 
     // --- results ---------------------------------------------------------------------------
     /// The latest results, or nullptr when the evaluation failed (see evaluationError()).
@@ -87,15 +99,23 @@ class DesignDocument : public QObject {
     void resultsChanged(); ///< after every evaluation
     void fileChanged();    ///< the file path or display name changed
     void modifiedChanged(bool modified);
+    void variantsChanged(); ///< a variant was added, removed, renamed or made active
 
   private:
     friend class DesignEditCommand;
-    void applyDesign(const Design& design); ///< used by the undo commands
-    void takeDesign(Design design, const QString& filePath, const QString& untitledName);
+    friend class VariantCommand;
+    /// Used by the undo commands: set the design of `variant` (-1: the active one), making that
+    /// variant active first.
+    void applyDesign(const Design& design, int variant = -1);
+    /// Used by the variant commands: replace every variant and choose the active one.
+    void applyVariants(const std::vector<Variant>& variants, int active);
+    void takeProject(Project project, const QString& filePath, const QString& untitledName);
     void reevaluate();
     const nlohmann::json& designJson() const;
 
-    Design m_design;
+    Design m_design;                 ///< the active variant's design
+    std::vector<Variant> m_variants; ///< every variant; the active entry's design is m_design
+    int m_active = 0;
     QUndoStack* m_undo = nullptr;
     std::optional<Results> m_results;
     QString m_evaluationError;

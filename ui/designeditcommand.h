@@ -2,7 +2,8 @@
 #pragma once
 // One undoable change of the design. It keeps the whole design before and after the edit, so that
 // undo restores side effects exactly (a smaller bank count drops per-device entries; undo brings
-// them back as they were).
+// them back as they were). It also keeps the variant it was made in: undo and redo make that
+// variant active again before they apply (one undo stack for all variants, see ui/variants.h).
 
 #include "core/model/design.h"
 
@@ -21,12 +22,15 @@ class DesignEditCommand : public QUndoCommand {
     void redo() override;
     /// The field the edit was made in ("" for whole-design changes).
     QString fieldPath() const { return m_fieldPath; }
+    /// The variant the edit was made in (index into the document's variants).
+    int variant() const { return m_variant; }
 
   private:
     DesignDocument* m_document;
     Design m_before;
     Design m_after;
     QString m_fieldPath;
+    int m_variant = -1;
 };
 
 } // namespace amp::ui

@@ -196,6 +196,20 @@ QString FieldEditor::tooltipFor(const FieldSpec& spec) {
 }
 
 QString FieldEditor::choiceLabel(const std::string& choice) {
+    // Abbreviations the trade writes in capitals.
+    if (choice == "mosfet")
+        return QStringLiteral("MOSFET");
+    if (choice == "pvc" || choice == "xlpe" || choice == "tvs")
+        return toQ(choice).toUpper();
+    // Pairs read as pairs.
+    if (choice == "torqueSpeed")
+        return tr("Torque & speed");
+    if (choice == "currentSpeed")
+        return tr("Current & speed");
+    if (choice == "currentDuty")
+        return tr("Current & duty");
+    if (choice == "diodeZener")
+        return tr("Diode + Zener");
     QString out;
     for (const QChar c : toQ(choice)) {
         if (c.isUpper() && !out.isEmpty())

@@ -22,6 +22,13 @@ class FindingsList : public QTableWidget {
 
   signals:
     void fieldRequested(const QString& path);
+
+  protected:
+    void showEvent(QShowEvent* event) override;
+
+  private:
+    void fitRows(); ///< row heights for the wrapped messages at the present column width
+    bool m_rowsFitted = false;
 };
 
 } // namespace amp::ui

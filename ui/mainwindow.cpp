@@ -2,24 +2,36 @@
 #include "ui/mainwindow.h"
 
 #include "ui/bankview.h"
+#include "ui/chartsview.h"
 #include "ui/designdocument.h"
 #include "ui/devicetable.h"
 #include "ui/fieldeditor.h"
 #include "ui/findingslist.h"
 #include "ui/format.h"
 #include "ui/palette.h"
+#include "ui/partpicker.h"
 #include "ui/pointtable.h"
+#include "ui/profileeditor.h"
+#include "ui/recentfiles.h"
 #include "ui/sectionpage.h"
 #include "ui/sections.h"
+#include "ui/sheetactions.h"
+#include "ui/variants.h"
 #include "ui/workbench.h"
 
 #include <QAction>
 #include <QApplication>
 #include <QCloseEvent>
+#include <QComboBox>
+#include <QDragEnterEvent>
+#include <QDropEvent>
+#include <QMimeData>
+#include <QScrollArea>
 #include <QDir>
 #include <QFileDialog>
 #include <QFileInfo>
 #include <QLabel>
+#include <QLineEdit>
 #include <QListWidget>
 #include <QMenuBar>
 #include <QMessageBox>
@@ -56,7 +68,11 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent), m_document(new De
     m_evalLabel->setObjectName(QStringLiteral("evaluationState"));
     m_tallyLabel = new QLabel(this);
     statusBar()->addWidget(m_evalLabel, 1);
+    statusBar()->addPermanentWidget(m_charts->statusWidget());
+    statusBar()->addPermanentWidget(new QLabel(tr("Variant"), this));
+    statusBar()->addPermanentWidget(makeVariantSwitcher(m_document, this));
     statusBar()->addPermanentWidget(m_tallyLabel);
+    setAcceptDrops(true);
 
     connect(m_document, &DesignDocument::designChanged, this, [this] { refreshEditors(false); });
     connect(m_document, &DesignDocument::resultsChanged, this, &MainWindow::showResults);
@@ -68,7 +84,16 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent), m_document(new De
         updateTitle();
     });
     connect(m_document, &DesignDocument::modifiedChanged, this, [this] { updateTitle(); });
+    connect(m_document, &DesignDocument::variantsChanged, this, [this] {
+        refreshEditors(true); // another variant: refused entries of the one before do not apply
+        updateTitle();
+    });
 
+    // A design file dropped anywhere on the window opens it; line edits would otherwise take the
+    // drop as text.
+    for (auto* line : findChildren<QLineEdit*>())
+        line->setAcceptDrops(false);
+    restoreWindowState(this);
     updateTitle();
     showResults();
 }
@@ -81,6 +106,13 @@ void MainWindow::buildMenus() {
     newAction->setShortcuts(QKeySequence::New);
     QAction* openAction = file->addAction(tr("&Open…"), this, &MainWindow::open);
     openAction->setShortcuts(QKeySequence::Open);
+    QMenu* recent = file->addMenu(tr("&Recent designs"));
+    connect(recent, &QMenu::aboutToShow, this, [this, recent] {
+        fillRecentMenu(recent, [this](const QString& path) {
+            if (maybeSave())
+                openFile(path);
+        });
+    });
     m_examplesMenu = file->addMenu(tr("Open an e&xample"));
     connect(m_examplesMenu, &QMenu::aboutToShow, this, [this] {
         m_examplesMenu->clear();
@@ -104,6 +136,8 @@ void MainWindow::buildMenus() {
     if (saveAsAction->shortcuts().isEmpty()) // some platforms define none
         saveAsAction->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_S));
     file->addSeparator();
+    addDesignSheetActions(file, m_document, this);
+    file->addSeparator();
     QAction* quit = file->addAction(tr("&Quit"), this, &QWidget::close);
     quit->setShortcuts(QKeySequence::Quit);
 
@@ -114,6 +148,10 @@ void MainWindow::buildMenus() {
     redo->setShortcuts(QKeySequence::Redo);
     edit->addAction(undo);
     edit->addAction(redo);
+
+    QMenu* variants = menuBar()->addMenu(tr("&Variants"));
+    connect(variants, &QMenu::aboutToShow, this, [this, variants] { fillVariantMenu(variants, m_document, this); });
+    fillVariantMenu(variants, m_document, this); // so that the actions exist before the first show
 
     QMenu* help = menuBar()->addMenu(tr("&Help"));
     help->addAction(tr("&About Ampwright"), this, [this] {
@@ -152,10 +190,27 @@ void MainWindow::buildCentre() {
         item->setSizeHint(QSize(0, 34));
         item->setToolTip(section.summary);
         auto* page = new SectionPage(m_document, section, m_pages);
+        attachPartBars(page, m_document);
         m_pages->addWidget(page);
         m_sectionPages.push_back(page);
     }
-    // Duty profile and wiring pages (tables of their own) join the rail here.
+    // The duty profile (a table of its own) goes before the wiring page.
+    auto* profileScroll = new QScrollArea(m_pages);
+    profileScroll->setObjectName(QStringLiteral("page:profile"));
+    profileScroll->setWidgetResizable(true);
+    profileScroll->setFrameShape(QFrame::NoFrame);
+    m_profile = new ProfileEditor(m_document);
+    profileScroll->setWidget(m_profile);
+    m_profilePage = profileScroll;
+    int profileAt = m_rail->count();
+    for (int i = 0; i < static_cast<int>(m_sectionPages.size()); ++i)
+        if (m_sectionPages[static_cast<std::size_t>(i)]->section().id == QLatin1String("wiring"))
+            profileAt = i;
+    m_pages->insertWidget(profileAt, m_profilePage);
+    auto* profileItem = new QListWidgetItem(tr("Duty profile"));
+    profileItem->setSizeHint(QSize(0, 34));
+    profileItem->setToolTip(tr("The operating points the drive runs through, with their durations."));
+    m_rail->insertItem(profileAt, profileItem);
     int railWidth = 0;
     for (int i = 0; i < m_rail->count(); ++i)
         railWidth = std::max(railWidth, m_rail->fontMetrics().horizontalAdvance(m_rail->item(i)->text()));
@@ -191,7 +246,8 @@ void MainWindow::buildCentre() {
     m_deviceTable = new DeviceTable(m_detailTabs);
     m_detailTabs->addTab(m_findings, tr("Findings"));
     m_detailTabs->addTab(m_deviceTable, tr("Per device"));
-    // Loss and temperature charts join these tabs.
+    m_charts = new ChartsView(m_document, this);
+    m_charts->addTabsTo(m_detailTabs);
     connect(m_findings, &FindingsList::fieldRequested, this, &MainWindow::focusField);
     column->addWidget(m_detailTabs, 1);
 
@@ -204,7 +260,11 @@ void MainWindow::buildCentre() {
 }
 
 void MainWindow::updateTitle() {
-    setWindowTitle(tr("%1[*] — Ampwright").arg(m_document->displayName()));
+    // The variant is named once there is more than one.
+    const QString variant = m_document->variantNames().size() > 1
+                                ? QStringLiteral(" · ") + m_document->activeVariantName()
+                                : QString();
+    setWindowTitle(tr("%1%2[*] — Ampwright").arg(m_document->displayName(), variant));
     setWindowModified(m_document->isModified());
 }
 
@@ -228,6 +288,7 @@ void MainWindow::showResults() {
         m_pointTable->clearResults();
         m_deviceTable->clearPoint();
         m_findings->setChecks({});
+        m_charts->showQuick(-1);
         return;
     }
     m_evalLabel->setPalette(QPalette());
@@ -259,6 +320,7 @@ void MainWindow::showResults() {
         }
     }
     m_pointTable->setResults(design, *results, m_selectedPoint);
+    m_charts->showQuick(m_selectedPoint);
     m_findings->setChecks(results->checks);
     m_detailTabs->setTabText(0, tr("Findings (%1)").arg(FindingsList::tally(results->checks)));
 
@@ -297,9 +359,14 @@ FieldEditor* MainWindow::fieldEditor(const QString& path) const {
 }
 
 bool MainWindow::focusField(const QString& path) {
+    if (path.startsWith(QLatin1String("dutyProfile")) && m_profile->focusField(path)) {
+        m_rail->setCurrentRow(m_pages->indexOf(m_profilePage));
+        m_profile->focusField(path); // again, now that the page is shown
+        return true;
+    }
     for (std::size_t i = 0; i < m_sectionPages.size(); ++i) {
         if (auto* e = m_sectionPages[i]->editor(path)) {
-            m_rail->setCurrentRow(static_cast<int>(i));
+            m_rail->setCurrentRow(m_pages->indexOf(m_sectionPages[i]));
             m_sectionPages[i]->ensureWidgetVisible(e);
             e->input()->setFocus(Qt::OtherFocusReason);
             return true;
@@ -338,10 +405,26 @@ bool MainWindow::maybeSave() {
 }
 
 void MainWindow::closeEvent(QCloseEvent* event) {
-    if (maybeSave())
+    if (maybeSave()) {
+        saveWindowState(this);
         event->accept();
-    else
+    } else {
         event->ignore();
+    }
+}
+
+void MainWindow::dragEnterEvent(QDragEnterEvent* event) {
+    if (!droppedProjectFile(event->mimeData()).isEmpty())
+        event->acceptProposedAction();
+}
+
+void MainWindow::dropEvent(QDropEvent* event) {
+    const QString file = droppedProjectFile(event->mimeData());
+    if (file.isEmpty())
+        return;
+    event->acceptProposedAction();
+    if (maybeSave())
+        openFile(file);
 }
 
 void MainWindow::newFile() {
@@ -366,6 +449,7 @@ bool MainWindow::openFile(const QString& path) {
         showLoadProblems(path, outcome.problems);
         return false;
     }
+    addRecentFile(path);
     statusBar()->showMessage(tr("Opened %1").arg(QDir::toNativeSeparators(path)), 4000);
     return true;
 }
@@ -427,6 +511,7 @@ bool MainWindow::saveTo(const QString& path) {
                              tr("%1 could not be saved: %2").arg(QDir::toNativeSeparators(path), error));
         return false;
     }
+    addRecentFile(path);
     statusBar()->showMessage(tr("Saved %1").arg(QDir::toNativeSeparators(path)), 4000);
     return true;
 }

@@ -13,11 +13,15 @@ class QListWidget;
 class QStackedWidget;
 class QTabWidget;
 class QMenu;
+class QDragEnterEvent;
+class QDropEvent;
 
 namespace amp::ui {
 
 class BankView;
+class ChartsView;
 class DesignDocument;
+class ProfileEditor;
 class DeviceTable;
 class FieldEditor;
 class FindingsList;
@@ -52,6 +56,8 @@ class MainWindow : public QMainWindow {
     PointTable* pointTable() const { return m_pointTable; }
     DeviceTable* deviceTable() const { return m_deviceTable; }
     FindingsList* findingsList() const { return m_findings; }
+    ChartsView* charts() const { return m_charts; }
+    ProfileEditor* profileEditor() const { return m_profile; }
     QString evaluationStatus() const;
 
   public slots:
@@ -69,6 +75,9 @@ class MainWindow : public QMainWindow {
     /// Whether unsaved changes may be dropped: asks, and saves when told to.
     bool maybeSave();
     void closeEvent(QCloseEvent* event) override;
+    /// A dragged .ampw file is taken (opened after the unsaved-changes question).
+    void dragEnterEvent(QDragEnterEvent* event) override;
+    void dropEvent(QDropEvent* event) override;
 
   private:
     void buildMenus();
@@ -82,11 +91,14 @@ class MainWindow : public QMainWindow {
     QListWidget* m_rail = nullptr;
     QStackedWidget* m_pages = nullptr;
     std::vector<SectionPage*> m_sectionPages;
+    ProfileEditor* m_profile = nullptr;
+    QWidget* m_profilePage = nullptr; ///< the scroll area around m_profile
     BankView* m_bankView = nullptr;
     PointTable* m_pointTable = nullptr;
     DeviceTable* m_deviceTable = nullptr;
     FindingsList* m_findings = nullptr;
     QTabWidget* m_detailTabs = nullptr;
+    ChartsView* m_charts = nullptr;
     QLabel* m_pointsCaption = nullptr;
     QLabel* m_evalLabel = nullptr;
     QLabel* m_tallyLabel = nullptr;

@@ -58,6 +58,8 @@ QSize PointTable::sizeHint() const {
 
 void PointTable::setResults(const Design& design, const Results& results, int selected) {
     const QSignalBlocker block(this);
+    // Size the columns once after filling, not after every cell (ResizeToContents re-measures).
+    horizontalHeader()->setSectionResizeMode(QHeaderView::Fixed);
     setRowCount(static_cast<int>(results.operatingPoints.size()));
     const double tjMax = design.bank.device.tjMax_C;
     for (int row = 0; row < rowCount(); ++row) {
@@ -103,6 +105,7 @@ void PointTable::setResults(const Design& design, const Results& results, int se
         if (op.conductionMode != "continuous")
             mode->setForeground(colours::severity(Severity::Warning));
     }
+    horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
     if (rowCount() > 0)
         selectRow(std::clamp(selected, 0, rowCount() - 1));
     updateGeometry();

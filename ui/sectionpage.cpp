@@ -35,7 +35,7 @@ SectionPage::SectionPage(DesignDocument* document, const SectionSpec& section, Q
     column->addWidget(summary);
 
     auto addGroup = [&](const QString& name, const std::vector<const FieldSpec*>& fields,
-                        std::function<bool(const Design&)> visibleWhen) {
+                        std::function<bool(const Design&)> visibleWhen, const QString& prefix) {
         if (fields.empty())
             return; // the field table has nothing here (yet)
         auto* box = new QGroupBox(name, body);
@@ -53,11 +53,11 @@ SectionPage::SectionPage(DesignDocument* document, const SectionSpec& section, Q
             m_editors.push_back(editor);
         }
         column->addWidget(box);
-        m_groups.push_back({box, std::move(visibleWhen)});
+        m_groups.push_back({box, std::move(visibleWhen), prefix});
     };
     for (const auto& g : section.groups)
-        addGroup(g.title, fieldsWithParent(g.prefix), g.visibleWhen);
-    addGroup(tr("More"), unlistedFields(section), {});
+        addGroup(g.title, groupFields(g), g.visibleWhen, g.prefix);
+    addGroup(tr("More"), unlistedFields(section), {}, QString());
     if (m_editors.empty()) {
         auto* none = new QLabel(tr("No fields of this section are in the field table."), body);
         none->setWordWrap(true);
@@ -73,6 +73,13 @@ void SectionPage::refresh(bool force) {
         e->refresh(force);
     for (const auto& g : m_groups)
         g.box->setVisible(!g.visibleWhen || g.visibleWhen(m_document->design()));
+}
+
+QGroupBox* SectionPage::groupBox(const QString& prefix) const {
+    for (const auto& g : m_groups)
+        if (g.prefix == prefix)
+            return g.box;
+    return nullptr;
 }
 
 FieldEditor* SectionPage::editor(const QString& path) const {

@@ -26,11 +26,14 @@ class SectionPage : public QScrollArea {
     void refresh(bool force);
     FieldEditor* editor(const QString& path) const;
     const std::vector<FieldEditor*>& editors() const { return m_editors; }
+    /// The first group box of fields under `prefix` ("bank.device"), or nullptr.
+    QGroupBox* groupBox(const QString& prefix) const;
 
   private:
     struct Group {
         QGroupBox* box;
         std::function<bool(const Design&)> visibleWhen;
+        QString prefix;
     };
     DesignDocument* m_document;
     SectionSpec m_section;

@@ -52,6 +52,25 @@ std::vector<SectionSpec> buildSections() {
                  tr("Direction change by swapping the armature leads, never under load."),
                  {{QStringLiteral("reversing"), tr("Change-over"), {}},
                   {QStringLiteral("reversing.contactor"), tr("Contactor ratings"), {}}}});
+    auto keyHas = [](std::initializer_list<const char*> words) {
+        QStringList list;
+        for (const char* w : words)
+            list << QString::fromLatin1(w);
+        return [list](const QString& key) {
+            for (const auto& w : list)
+                if (key.contains(w, Qt::CaseInsensitive))
+                    return true;
+            return false;
+        };
+    };
+    s.push_back({QStringLiteral("wiring"), tr("Wiring & protection"),
+                 tr("What sits between the battery, the controller and the motor: cables, the bus capacitors, "
+                    "the main contactor with its pre-charge, and the fuse."),
+                 {{QStringLiteral("wiring"), tr("Cables"), {}, keyHas({"cable"})},
+                  {QStringLiteral("wiring"), tr("Bus capacitors"), {}, keyHas({"capacit", "esr", "loop", "ripple"})},
+                  {QStringLiteral("wiring.mainContactor"), tr("Main contactor"), {}, {}},
+                  {QStringLiteral("wiring"), tr("Pre-charge"), {}, keyHas({"precharge"})},
+                  {QStringLiteral("wiring"), tr("Fuse and short circuit"), {}, keyHas({"fuse", "i2t", "withstand"})}}});
     s.push_back({QStringLiteral("sheet"), tr("Title block"),
                  tr("Names and notes printed on the design sheet."),
                  {{QStringLiteral("meta"), tr("Design"), {}}}});
@@ -78,6 +97,16 @@ std::vector<const FieldSpec*> fieldsWithParent(const QString& prefix) {
     return out;
 }
 
+std::vector<const FieldSpec*> groupFields(const GroupSpec& group) {
+    std::vector<const FieldSpec*> out;
+    for (const FieldSpec* f : fieldsWithParent(group.prefix)) {
+        const QString path = QString::fromStdString(f->path);
+        if (!group.includes || group.includes(path.mid(path.lastIndexOf(QLatin1Char('.')) + 1)))
+            out.push_back(f);
+    }
+    return out;
+}
+
 std::vector<const FieldSpec*> unlistedFields(const SectionSpec& section) {
     std::vector<const FieldSpec*> out;
     for (const auto& f : designFields()) {
@@ -87,9 +116,10 @@ std::vector<const FieldSpec*> unlistedFields(const SectionSpec& section) {
         if (sectionForField(path) != &section)
             continue;
         const QString parent = parentPath(path);
+        const QString key = path.mid(parent.size() + 1);
         bool listed = false;
         for (const auto& g : section.groups)
-            listed = listed || g.prefix == parent;
+            listed = listed || (g.prefix == parent && (!g.includes || g.includes(key)));
         if (!listed)
             out.push_back(&f);
     }

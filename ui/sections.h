@@ -21,6 +21,9 @@ struct GroupSpec {
     QString prefix; ///< parent path of the group's fields, e.g. "bank.device.mosfet"
     QString title;
     std::function<bool(const Design&)> visibleWhen; ///< empty: always shown
+    /// Which fields under `prefix` the group takes, by key ("busCapacitance_F"); empty: all.
+    /// Lets one object's fields be split into several groups (wiring: cables, capacitors, ...).
+    std::function<bool(const QString& key)> includes = {};
 };
 
 struct SectionSpec {
@@ -35,6 +38,9 @@ const std::vector<SectionSpec>& editorSections();
 
 /// The scalar fields (no lists, no list items) whose parent path is exactly `prefix`.
 std::vector<const FieldSpec*> fieldsWithParent(const QString& prefix);
+
+/// The fields a group shows: fieldsWithParent(prefix) filtered by its `includes`.
+std::vector<const FieldSpec*> groupFields(const GroupSpec& group);
 
 /// Scalar fields below any of the section's group prefixes that no group lists directly
 /// (shown in a trailing "More" group so that no field of the table goes missing).

@@ -3,6 +3,7 @@
 
 #include "ui/designdocument.h"
 #include "ui/mainwindow.h"
+#include "ui/recentfiles.h"
 #include "ui/recovery.h"
 
 #include <QApplication>
@@ -35,8 +36,9 @@ QString demoProjectPath() {
 int runWorkbench(QApplication& app, const QString& fileToOpen) {
     if (QCoreApplication::applicationName().isEmpty())
         QCoreApplication::setApplicationName(QStringLiteral("Ampwright"));
-    MainWindow window;
-    window.resize(1440, 900);
+    MainWindow window; // restores the geometry of the last session, if any
+    if (!hasSavedWindowState())
+        window.resize(1440, 900);
     window.show();
     if (!fileToOpen.isEmpty()) {
         window.openFile(fileToOpen); // on failure the problems are shown over a fresh design

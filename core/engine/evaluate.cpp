@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/evaluate.h"
+#include "core/engine/stage_losses.h"
 #include "core/engine/stage_protection.h"
 
 #include "core/engine/stage_thermal.h"
@@ -208,6 +209,7 @@ struct Context {
     int diodes = 1;
     std::vector<double> ballast_ohm;    // per device
     std::vector<double> leg_ohm;        // per device
+    LossPlan losses;                    // switching, drive, topology (engine/stage_losses.h)
 };
 
 Context makeContext(const Design& d) {
@@ -229,6 +231,7 @@ Context makeContext(const Design& d) {
     c.bipolar = bipolarOnState(d.bank.device);
     c.rthCs_KperW = interfaceResistance(d.bank.interface);
     c.diodes = std::max(1, d.bank.diodeCount);
+    c.losses = planLosses(d);
     c.heatsink = HeatsinkModel(d);
     for (const auto& dev : d.bank.devices) {
         c.ballast_ohm.push_back(std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm));
@@ -259,9 +262,13 @@ struct Electrical {
     std::vector<double> conduction_W;   // per device
     double diodeThreshold_V = 0.0;
     double diodeLoss_W = 0.0;           // all freewheel diodes
+    LossPoint losses;                   // switching, drive, recovery; every bank of the topology
+    double busExtraUsed_A = 0.0;        // the bus current for those losses this solve assumed
+    double busExtra_A = 0.0;            // the bus current they draw (V_bus·I = their power)
 };
 
-Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C) {
+Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C,
+                           const std::vector<double>& otherTj_C, double busExtra_A) {
     const Design& d = *c.design;
     const std::size_t n = d.bank.devices.size();
     Electrical e;
@@ -286,48 +293,108 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
     circuit.switchResistance_ohm = e.sharing.resistance_ohm;
     circuit.diodeDrop_V = e.diodeThreshold_V;
     circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
-    switch (demand.hold) {
-    case Hold::CurrentAtEmf:
-        e.chopper = chopperForCurrent(circuit, c.supply, demand.current_A, d.pwm.maxDuty);
-        break;
-    case Hold::CurrentAtDuty:
-        e.chopper = chopperEmfForCurrent(circuit, c.supply, demand.duty, demand.current_A);
-        break;
-    case Hold::DutyAtEmf:
-        e.chopper = chopperAtDuty(circuit, c.supply, demand.duty);
-        break;
+    adaptStandIn(c.losses, d, e.sharing.resistance_ohm, e.switchDrop_V,
+                 tj_C.empty() ? d.heatsink.ambient_C : *std::max_element(tj_C.begin(), tj_C.end()), circuit);
+    // The stage's losses draw their bus current from the battery too: V_bus = V − R·(I_sw + I_x).
+    // I_x depends on V_bus only weakly (the edge energies scale with it): a few passes settle it.
+    double extra = busExtra_A;
+    for (int pass = 0; pass < 20; ++pass) {
+        ChopperSupply supply = c.supply;
+        supply.voltage_V -= supply.resistance_ohm * extra;
+        e.busExtraUsed_A = extra;
+        switch (demand.hold) {
+        case Hold::CurrentAtEmf:
+            e.chopper = chopperForCurrent(circuit, supply, demand.current_A, d.pwm.maxDuty);
+            break;
+        case Hold::CurrentAtDuty:
+            e.chopper = chopperEmfForCurrent(circuit, supply, demand.duty, demand.current_A);
+            break;
+        case Hold::DutyAtEmf:
+            e.chopper = chopperAtDuty(circuit, supply, demand.duty);
+            break;
+        }
+        const auto& w = e.chopper.waveform;
+        e.conduction_W.resize(n);
+        for (std::size_t k = 0; k < n; ++k) {
+            const double avg = e.sharing.share[k] * w.switchAverage_A;
+            const double rms = e.sharing.share[k] * w.switchRms_A;
+            e.conduction_W[k] = e.switchDrop_V * avg + e.device_ohm[k] * rms * rms;
+        }
+        e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
+
+        LossPointInput li;
+        li.busVoltage_V = e.chopper.busVoltage_V;
+        li.motorCurrent_A = w.motorAverage_A;
+        li.duty = w.duty;
+        li.minCurrent_A = w.iMin_A;
+        li.maxCurrent_A = w.iMax_A;
+        li.capacitorRms_A = w.capacitorRms_A;
+        li.onDrop_V = e.switchDrop_V;
+        li.share = e.sharing.share;
+        li.resistance_ohm = e.device_ohm;
+        li.ballast_ohm = c.ballast_ohm;
+        li.leg_ohm = c.leg_ohm;
+        li.tj_C = tj_C;
+        li.otherTj_C = otherTj_C;
+        li.diodeTj_C = tjDiode_C;
+        e.losses = computeLossPoint(c.losses, d, li);
+        if (e.losses.computesConduction) { // synchronous topologies: the stage has every bank's conduction
+            for (std::size_t k = 0; k < n && k < e.losses.banks.front().size(); ++k)
+                e.conduction_W[k] = e.losses.banks.front()[k].conduction_W;
+            e.diodeLoss_W = 0.0;
+        }
+        const double busPower = e.losses.busPower_W(standInConduction(circuit, w));
+        e.busExtra_A = e.chopper.busVoltage_V > 0.0 ? busPower / e.chopper.busVoltage_V : 0.0;
+        if (std::abs(e.busExtra_A - extra) <= 1e-12 * std::max(1.0, std::abs(extra)))
+            break;
+        extra = e.busExtra_A;
     }
-    const auto& w = e.chopper.waveform;
-    e.conduction_W.resize(n);
-    for (std::size_t k = 0; k < n; ++k) {
-        const double avg = e.sharing.share[k] * w.switchAverage_A;
-        const double rms = e.sharing.share[k] * w.switchRms_A;
-        e.conduction_W[k] = e.switchDrop_V * avg + e.device_ohm[k] * rms * rms;
-    }
-    e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
     return e;
+}
+
+// Heat in each device's junction: its conduction and what the loss stage adds (which holds the
+// conduction itself for the synchronous topologies).
+std::vector<double> junctionHeat(const Electrical& e) {
+    const auto& lp = e.losses;
+    std::vector<double> device(e.conduction_W.size());
+    for (std::size_t k = 0; k < device.size(); ++k) {
+        const double extra = lp.banks.empty() || k >= lp.banks.front().size() ? 0.0 : lp.banks.front()[k].junction_W;
+        device[k] = (lp.computesConduction ? 0.0 : e.conduction_W[k]) + extra;
+    }
+    return device;
 }
 
 ThermalChainResult solveThermal(const Context& c, const Electrical& e) {
     const Design& d = *c.design;
     ThermalChainInput in;
     in.ambient_C = d.heatsink.ambient_C;
-    double heat_W = e.diodeLoss_W; // into the sink: R_th,sa may depend on it (natural convection)
-    for (const double p : e.conduction_W)
+    const auto& lp = e.losses;
+    const std::vector<double> device = junctionHeat(e);
+    double heat_W = e.diodeLoss_W + lp.freewheelRecovery_W; // into the sink: R_th,sa may depend on it
+    for (const double p : device)
         heat_W += p;
+    for (std::size_t b = 1; b < lp.banks.size(); ++b)
+        for (const auto& dl : lp.banks[b])
+            heat_W += dl.junction_W;
     in.rthSa_KperW = std::max(0.0, c.heatsink.rthSa(heat_W));
-    for (const double p : e.conduction_W)
+    for (const double p : device)
         in.branches.push_back({p, std::max(0.0, d.bank.device.rthJc_KperW), c.rthCs_KperW, 1});
-    in.branches.push_back({e.diodeLoss_W / c.diodes, std::max(0.0, d.bank.freewheelDiode.rthJc_KperW), c.rthCs_KperW,
-                           c.diodes});
+    in.branches.push_back({(e.diodeLoss_W + lp.freewheelRecovery_W) / c.diodes,
+                           std::max(0.0, d.bank.freewheelDiode.rthJc_KperW), c.rthCs_KperW, c.diodes});
+    // The topology's other banks after the diode, device by device.
+    for (std::size_t b = 1; b < lp.banks.size(); ++b)
+        for (const auto& dl : lp.banks[b])
+            in.branches.push_back({dl.junction_W, std::max(0.0, d.bank.device.rthJc_KperW), c.rthCs_KperW, 1});
     return solveThermalChain(in);
 }
 
-// One pass of the electrothermal map: temperatures → losses → temperatures. The last entry is
-// the freewheel diodes' junction.
-std::vector<double> thermalMap(const Context& c, const Demand& demand, const std::vector<double>& t) {
-    const std::vector<double> devices(t.begin(), t.end() - 1);
-    const auto e = solveElectrical(c, demand, devices, t.back());
+// One pass of the electrothermal map: temperatures → losses → temperatures. The state holds the
+// devices, then the freewheel diodes' junction, then the devices of the topology's other banks.
+std::vector<double> thermalMap(const Context& c, const Demand& demand, const std::vector<double>& t, double busExtra_A) {
+    const std::size_t n = c.design->bank.devices.size();
+    const std::vector<double> devices(t.begin(), t.begin() + static_cast<std::ptrdiff_t>(n));
+    const std::vector<double> others(t.begin() + static_cast<std::ptrdiff_t>(n + 1), t.end());
+    const auto e = solveElectrical(c, demand, devices, t[n], others, busExtra_A);
     return solveThermal(c, e).junction_C;
 }
 
@@ -346,15 +413,16 @@ void sourceLosses(const Context& c, const Results& r, std::size_t point, const s
         demand.hold = Hold::DutyAtEmf;
         demand.duty = c.design->pwm.maxDuty;
     }
-    const auto e = solveElectrical(c, demand, std::vector<double>(tj.begin(), tj.end() - 1), tj.back());
-    p = e.conduction_W;
-    p.push_back(e.diodeLoss_W / c.diodes);
+    // The other banks of a synchronous topology are taken at the solved bank's temperature here.
+    const auto e = solveElectrical(c, demand, std::vector<double>(tj.begin(), tj.end() - 1), tj.back(), {}, 0.0);
+    p = junctionHeat(e);
+    p.push_back((e.diodeLoss_W + e.losses.freewheelRecovery_W) / c.diodes);
 }
 
 struct BankSolve {
     Electrical electrical;
     ThermalChainResult thermal;
-    std::vector<double> temperatures;   // devices, then diode
+    std::vector<double> temperatures;   // devices, then diode, then the other banks
     BankResult bank;
     int iterations = 0;
 };
@@ -365,16 +433,19 @@ BankSolve solveBank(const Context& c, const Demand& demand) {
     const Design& d = *c.design;
     const std::size_t n = d.bank.devices.size();
     BankSolve s;
-    std::vector<double> t(n + 1, d.heatsink.ambient_C);
+    std::vector<double> t(n + 1 + static_cast<std::size_t>(c.losses.banks - 1) * n, d.heatsink.ambient_C);
     bool converged = false;
     bool runaway = false;
+    double busExtra = 0.0; // the stage's bus current (settled inside each electrical solve)
     for (int it = 0; it < kMaxIterations; ++it) {
         s.iterations = it + 1;
-        const std::vector<double> devices(t.begin(), t.end() - 1);
-        s.electrical = solveElectrical(c, demand, devices, t.back());
+        const std::vector<double> devices(t.begin(), t.begin() + static_cast<std::ptrdiff_t>(n));
+        const std::vector<double> others(t.begin() + static_cast<std::ptrdiff_t>(n + 1), t.end());
+        s.electrical = solveElectrical(c, demand, devices, t[n], others, busExtra);
         s.thermal = solveThermal(c, s.electrical);
         std::vector<double> next = s.thermal.junction_C;
         double delta = 0.0;
+        busExtra = s.electrical.busExtra_A; // warm start for the next pass
         for (std::size_t k = 0; k < next.size(); ++k) {
             if (!finite(next[k]) || next[k] > kRunawayLimit_C)
                 runaway = true;
@@ -397,7 +468,7 @@ BankSolve solveBank(const Context& c, const Demand& demand) {
         b.maxMinCurrentRatio = *lo > 0.0 ? *hi / *lo : 0.0;
     }
     auto hottest = [&]() {
-        const auto it = std::max_element(s.temperatures.begin(), s.temperatures.end() - 1);
+        const auto it = std::max_element(s.temperatures.begin(), s.temperatures.begin() + static_cast<std::ptrdiff_t>(n));
         return static_cast<int>(it - s.temperatures.begin());
     };
     if (runaway) {
@@ -423,11 +494,11 @@ BankSolve solveBank(const Context& c, const Demand& demand) {
     // holds fixed (the motor current, or the duty at stall without a limit).
     const std::size_t m = n + 1;
     Eigen::MatrixXd jac(static_cast<Eigen::Index>(m), static_cast<Eigen::Index>(m));
-    const std::vector<double> base = thermalMap(c, demand, t);
+    const std::vector<double> base = thermalMap(c, demand, t, busExtra);
     for (std::size_t j = 0; j < m; ++j) {
         std::vector<double> tp = t;
         tp[j] += kJacobianStep_K;
-        const std::vector<double> moved = thermalMap(c, demand, tp);
+        const std::vector<double> moved = thermalMap(c, demand, tp, busExtra);
         for (std::size_t i = 0; i < m; ++i)
             jac(static_cast<Eigen::Index>(i), static_cast<Eigen::Index>(j)) = (moved[i] - base[i]) / kJacobianStep_K;
     }
@@ -636,7 +707,7 @@ void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t in
 // ---------------------------------------------------------------------------------------------
 // One duty-profile segment.
 
-OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::size_t index) {
+OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::size_t index, std::vector<Check>& checks) {
     const Design& d = *c.design;
     OperatingPointResult op;
     op.name = seg.name.empty() ? fmt::format("Segment {}", index + 1) : seg.name;
@@ -730,7 +801,7 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     const double iAvg = w.motorAverage_A;
     const double iRms = w.motorRms_A;
     op.motorCurrent_A = iAvg;
-    op.batteryCurrent_A = ch.batteryCurrent_A;
+    op.batteryCurrent_A = ch.batteryCurrent_A + e.busExtraUsed_A; // + what the switching losses draw
     op.duty = w.duty;
     op.speed_rpm = speed_radps / kRadPerSecPerRpm;
     op.backEmf_V = ch.backEmf_V;
@@ -746,8 +817,8 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     op.diodeAverageCurrent_A = w.diodeAverage_A;
     op.diodeRmsCurrent_A = w.diodeRms_A;
     op.capacitorRmsCurrent_A = w.capacitorRms_A;
-    op.inputPower_W = ch.busVoltage_V * ch.batteryCurrent_A;
-    op.batteryLoss_W = ch.batteryCurrent_A * ch.batteryCurrent_A * c.supply.resistance_ohm;
+    op.inputPower_W = ch.busVoltage_V * op.batteryCurrent_A;
+    op.batteryLoss_W = op.batteryCurrent_A * op.batteryCurrent_A * c.supply.resistance_ohm;
 
     const MotorPower mp = motorPower(c.motor, iAvg, iRms, speed_radps);
     op.torque_Nm = mp.torque_Nm;
@@ -782,9 +853,23 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     op.freewheelDiode.averageCurrent_A = w.diodeAverage_A;
     op.freewheelDiode.rmsCurrent_A = w.diodeRms_A;
     op.freewheelDiode.loss_W = e.diodeLoss_W;
-    op.freewheelDiode.tj_C = s.thermal.junction_C.back();
+    op.freewheelDiode.tj_C = s.thermal.junction_C[n];
+    if (e.losses.computesConduction) { // no freewheel diodes: the synchronous banks carry that current
+        op.freewheelDiode.averageCurrent_A = 0.0;
+        op.freewheelDiode.rmsCurrent_A = 0.0;
+    }
+    {
+        const std::vector<double> otherTj(s.thermal.junction_C.begin() + static_cast<std::ptrdiff_t>(n + 1),
+                                          s.thermal.junction_C.end());
+        const std::vector<double> otherTcase(s.thermal.case_C.begin() + static_cast<std::ptrdiff_t>(n + 1),
+                                             s.thermal.case_C.end());
+        recordLossPoint(e.losses, otherTj, otherTcase, op, checks);
+        op.bankLoss_W = 0.0;
+        for (const auto& dv : op.devices)
+            op.bankLoss_W += dv.loss_W + dv.ballast_W + dv.leg_W;
+    }
     op.totalLoss_W = op.bankLoss_W + op.freewheelDiode.loss_W;
-    if (op.inputPower_W > 1e-9)
+    if (op.inputPower_W > 1e-9 && op.motorCurrent_A > 0.0) // null when no current flows
         op.efficiency = op.motorInputPower_W / op.inputPower_W;
     op.heatsinkTemperature_C = s.thermal.heatsink_C;
     op.bank = s.bank;
@@ -809,27 +894,24 @@ Results evaluate(const Design& input, const EvaluateOptions& options) {
         r.warnings.push_back("the design has invalid fields; no operating point was computed");
         return r;
     }
-    if (d.pwm.topology != "lowSideChopper") {
-        r.warnings.push_back(fmt::format("topology \"{}\" is computed as a low-side chopper until its own model lands",
-                                         d.pwm.topology));
-        r.checks.push_back(makeCheck("model.topology", Severity::Warning, 0.0, 0.0, "", "engine coverage",
-                                     fmt::format("the {} topology is not modelled yet; the results are those of a "
-                                                 "low-side chopper with the same bank",
-                                                 d.pwm.topology),
-                                     "Set pwm.topology to lowSideChopper or wait for the topology's model",
-                                     "pwm.topology", ""));
+    const Context context = makeContext(d);
+    if (!context.losses.problems.empty()) {
+        for (const auto& p : context.losses.problems)
+            r.checks.push_back(makeCheck("design.input", Severity::Fail, 0.0, 0.0, "", "field ranges", p.message,
+                                         "Correct the field", p.path, ""));
+        r.warnings.push_back("the design has invalid fields; no operating point was computed");
+        return r;
     }
-    r.warnings.push_back("device losses are conduction losses only: switching, gate-drive and recovery losses are "
-                         "not computed yet");
+    r.warnings.insert(r.warnings.end(), context.losses.notes.begin(), context.losses.notes.end());
+    r.checks.insert(r.checks.end(), context.losses.checks.begin(), context.losses.checks.end());
     if (d.bank.device.kind == "mosfet")
         r.warnings.push_back("the MOSFETs are taken as fully enhanced by the gate drive");
     if (d.dutyProfile.empty())
         r.warnings.push_back("the duty profile is empty: no operating point to evaluate");
 
-    const Context context = makeContext(d);
     bool any = false;
     for (std::size_t i = 0; i < d.dutyProfile.size(); ++i) {
-        OperatingPointResult op = evaluateSegment(context, d.dutyProfile[i], i);
+        OperatingPointResult op = evaluateSegment(context, d.dutyProfile[i], i, r.checks);
         if (!op.notes.empty() && op.devices.empty()) {
             // The segment could not be set up: its reasons are input problems.
             for (const auto& note : op.notes)

@@ -31,6 +31,7 @@ struct Check {
 
 /// Per-device results in one operating point.
 struct DeviceResult {
+    std::string bank = "switch";    ///< bank role: "switch" (chopper), "high"/"low", "highA"/"lowA"/"highB"/"lowB"
     double current_A = 0.0;         ///< average current while the switch conducts (motor share)
     double averageCurrent_A = 0.0;  ///< over the PWM period
     double rmsCurrent_A = 0.0;      ///< over the PWM period
@@ -42,7 +43,8 @@ struct DeviceResult {
     double diode_W = 0.0;           ///< body diode (synchronous topologies)
     double ballast_W = 0.0;
     double leg_W = 0.0;             ///< in the device's leg (busbar/trace); not on the heatsink
-    double drive_W = 0.0;           ///< gate resistor / base drive dissipated at the device
+    double drive_W = 0.0;           ///< gate/base drive dissipated in the die (internal gate resistance,
+                                    ///< base-emitter); the driver's own and its resistors' share are not here
     double loss_W = 0.0;            ///< device total (without ballast)
     double tj_C = 0.0;
     double tcase_C = 0.0;
@@ -94,6 +96,9 @@ struct OperatingPointResult {
     double diodeAverageCurrent_A = 0.0;
     double diodeRmsCurrent_A = 0.0;
     double capacitorRmsCurrent_A = 0.0;
+    double busCapacitorRipple_A = 0.0; ///< RMS in the bus capacitors, with the battery cable's share
+    double overshoot_V = 0.0;       ///< turn-off L·di/dt above the bus (clamped at breakdown)
+    double avalancheEnergy_J = 0.0; ///< clamped energy per turn-off (0 when the peak stays below breakdown)
     double inputPower_W = 0.0;      ///< at the bus: busVoltage × batteryCurrent
     double batteryLoss_W = 0.0;     ///< in the battery's internal resistance and battery cable
     double motorInputPower_W = 0.0; ///< at the controller's motor output: cable, contacts, motor

@@ -31,6 +31,7 @@ json number(const std::optional<double>& v, const std::string& where) {
 
 json deviceJson(const DeviceResult& d, const std::string& where) {
     json j;
+    j["bank"] = d.bank;
     j["current_A"] = number(d.current_A, where + ".current_A");
     j["averageCurrent_A"] = number(d.averageCurrent_A, where + ".averageCurrent_A");
     j["rmsCurrent_A"] = number(d.rmsCurrent_A, where + ".rmsCurrent_A");
@@ -89,6 +90,9 @@ json pointJson(const OperatingPointResult& p, const std::string& where) {
     put("diodeAverageCurrent_A", p.diodeAverageCurrent_A);
     put("diodeRmsCurrent_A", p.diodeRmsCurrent_A);
     put("capacitorRmsCurrent_A", p.capacitorRmsCurrent_A);
+    put("busCapacitorRipple_A", p.busCapacitorRipple_A);
+    put("overshoot_V", p.overshoot_V);
+    put("avalancheEnergy_J", p.avalancheEnergy_J);
     put("inputPower_W", p.inputPower_W);
     put("batteryLoss_W", p.batteryLoss_W);
     put("motorInputPower_W", p.motorInputPower_W);

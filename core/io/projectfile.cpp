@@ -24,10 +24,54 @@ namespace amp {
 
 using nlohmann::json;
 
+namespace {
+
+/// 1 -> 2: the bare design becomes the one variant "Main" of a project.
+void wrapDesignAsVariant(json& project) {
+    json design = project;
+    design.erase("formatVersion");
+    json wrapped = json::object();
+    wrapped["formatVersion"] = project.value("formatVersion", 1);
+    wrapped["activeVariant"] = kDefaultVariantName;
+    wrapped["variants"] = json::array({json{{"name", kDefaultVariantName}, {"design", std::move(design)}}});
+    project = std::move(wrapped);
+}
+
+} // namespace
+
 MigrationChain defaultMigrations() {
-    // Version 1 is the first format: no steps yet. Each later version adds one step here
-    // (from = N rewrites N into N + 1) with a fixture of version N under tests/data/migrations/.
-    return MigrationChain{kProjectFormatVersion, {}};
+    // Each step rewrites version N into N + 1 (from = N), with a fixture of version N under
+    // tests/data/migrations/.
+    return MigrationChain{kProjectFormatVersion,
+                          {{1, "format 1 -> 2: the design becomes the variant \"Main\"", wrapDesignAsVariant}}};
+}
+
+const Variant* Project::find(std::string_view name) const {
+    for (const auto& v : variants)
+        if (v.name == name)
+            return &v;
+    return nullptr;
+}
+
+std::size_t Project::activeIndex() const {
+    for (std::size_t i = 0; i < variants.size(); ++i)
+        if (variants[i].name == active)
+            return i;
+    return 0;
+}
+
+std::vector<std::string> Project::names() const {
+    std::vector<std::string> out;
+    for (const auto& v : variants)
+        out.push_back(v.name);
+    return out;
+}
+
+Project singleVariantProject(const Design& design, std::string name) {
+    Project p;
+    p.active = name;
+    p.variants.push_back({std::move(name), design});
+    return p;
 }
 
 namespace {
@@ -54,11 +98,11 @@ LoadResult failure(std::string path, std::string message) {
 
 } // namespace
 
-LoadResult designFromJson(const json& project) {
+LoadResult designFromJson(const json& designJson) {
     LoadResult result;
-    if (!project.is_object())
-        return failure("", "the project must be a JSON object");
-    json body = project;
+    if (!designJson.is_object())
+        return failure("", "the design must be a JSON object");
+    json body = designJson;
     body.erase("formatVersion");
     result.problems = validateDesignJson(body);
     if (!result.problems.empty())
@@ -74,6 +118,95 @@ LoadResult designFromJson(const json& project) {
     result.problems = validateDesign(design);
     if (result.problems.empty())
         result.design = std::move(design);
+    return result;
+}
+
+namespace {
+
+constexpr std::size_t kMaxVariants = 64;
+
+std::string prefixed(const std::string& prefix, const std::string& path) {
+    if (prefix.empty())
+        return path;
+    return path.empty() ? prefix : prefix + "." + path;
+}
+
+} // namespace
+
+LoadResult projectFromJson(const json& project) {
+    LoadResult result;
+    if (!project.is_object())
+        return failure("", "the project must be a JSON object");
+    auto problem = [&](std::string path, std::string message) {
+        result.problems.push_back({std::move(path), std::move(message)});
+    };
+    for (const auto& [key, value] : project.items())
+        if (key != "formatVersion" && key != "activeVariant" && key != "variants")
+            problem(key, "unknown field '" + key + "' (a project holds formatVersion, activeVariant and variants)");
+    const auto variants = project.find("variants");
+    if (variants == project.end())
+        return failure("variants", "missing: a project lists its variants, each with a name and a design");
+    if (!variants->is_array())
+        return failure("variants", std::string("must be a list of variants, found ") + variants->type_name());
+    if (variants->empty())
+        return failure("variants", "the list is empty: a project needs at least one variant");
+    if (variants->size() > kMaxVariants)
+        return failure("variants", std::to_string(variants->size()) + " variants; at most " +
+                                       std::to_string(kMaxVariants) + " are allowed");
+
+    Project out;
+    const bool single = variants->size() == 1;
+    for (std::size_t i = 0; i < variants->size(); ++i) {
+        const json& v = (*variants)[i];
+        const std::string at = "variants[" + std::to_string(i) + "]";
+        if (!v.is_object()) {
+            problem(at, "must be a group with a name and a design");
+            continue;
+        }
+        for (const auto& [key, value] : v.items())
+            if (key != "name" && key != "design")
+                problem(at + "." + key, "unknown field '" + key + "' (a variant holds name and design)");
+        std::string name;
+        const auto n = v.find("name");
+        if (n == v.end() || !n->is_string() || n->get<std::string>().find_first_not_of(" \t") == std::string::npos) {
+            problem(at + ".name", "every variant needs a name (text that is not empty)");
+        } else {
+            name = n->get<std::string>();
+            if (out.find(name) != nullptr)
+                problem(at + ".name", "the name '" + name + "' is used by an earlier variant; names must differ");
+        }
+        const auto d = v.find("design");
+        if (d == v.end()) {
+            problem(at + ".design", "missing: the variant has no design");
+            continue;
+        }
+        // A project of one variant names its fields as the design does ("supply.nominal_V"),
+        // as a format-1 file did; with several, the variant is part of the path.
+        const std::string prefix = single ? std::string() : at + ".design";
+        LoadResult one = designFromJson(*d);
+        for (auto& p : one.problems)
+            problem(prefixed(prefix, p.path), std::move(p.message));
+        if (one.design)
+            out.variants.push_back({name, std::move(*one.design)});
+    }
+    if (const auto a = project.find("activeVariant"); a != project.end()) {
+        if (!a->is_string())
+            problem("activeVariant", "must be the name of a variant, found " + a->dump());
+        else if (result.problems.empty() && out.find(a->get<std::string>()) == nullptr) {
+            std::string names;
+            for (const auto& v : out.variants)
+                names += (names.empty() ? "" : ", ") + v.name;
+            problem("activeVariant", "'" + a->get<std::string>() + "' is not one of the variants (" + names + ")");
+        } else {
+            out.active = a->get<std::string>();
+        }
+    }
+    if (!result.problems.empty())
+        return result;
+    if (out.active.empty())
+        out.active = out.variants.front().name; // documented default: the first variant
+    result.design = out.activeDesign();
+    result.project = std::move(out);
     return result;
 }
 
@@ -131,7 +264,7 @@ LoadResult parseProject(std::string_view text, const MigrationChain& chain) {
         project["formatVersion"] = v + 1;
         applied.push_back(step->description);
     }
-    LoadResult result = designFromJson(project);
+    LoadResult result = projectFromJson(project);
     result.fileVersion = fileVersion;
     result.migrationsApplied = std::move(applied);
     return result;
@@ -148,11 +281,18 @@ LoadResult loadProject(const std::filesystem::path& file, const MigrationChain& 
     return parseProject(ss.str(), chain);
 }
 
-json projectToJson(const Design& design) {
-    json j = design;
+json projectToJson(const Project& project) {
+    json j = json::object();
     j["formatVersion"] = kProjectFormatVersion;
+    j["activeVariant"] = project.active;
+    json list = json::array();
+    for (const auto& v : project.variants)
+        list.push_back(json{{"name", v.name}, {"design", v.design}});
+    j["variants"] = std::move(list);
     return j;
 }
+
+json projectToJson(const Design& design) { return projectToJson(singleVariantProject(design)); }
 
 SaveResult writeFileAtomically(const std::filesystem::path& file, std::string_view text,
                                const SaveOptions& options) {
@@ -227,8 +367,12 @@ SaveResult writeFileAtomically(const std::filesystem::path& file, std::string_vi
     }
 }
 
+SaveResult saveProject(const Project& project, const std::filesystem::path& file, const SaveOptions& options) {
+    return writeFileAtomically(file, projectToJson(project).dump(2) + "\n", options);
+}
+
 SaveResult saveProject(const Design& design, const std::filesystem::path& file, const SaveOptions& options) {
-    return writeFileAtomically(file, projectToJson(design).dump(2) + "\n", options);
+    return saveProject(singleVariantProject(design), file, options);
 }
 
 namespace {

@@ -61,6 +61,8 @@ struct Pwm {
     double currentLimit_A = 200.0;      ///< controller current limit (0 = none)
     double maxDuty = 0.98;
     double deadTime_s = 500e-9;         ///< synchronous topologies only
+    std::string fullBridgeModulation = "unipolar"; ///< full bridge: "unipolar" or "bipolar" PWM
+    double brakingCutoutDelay_s = 0.0;  ///< braking goes on this long after the battery is lost (bus rise)
     bool operator==(const Pwm&) const = default;
 };
 
@@ -73,6 +75,7 @@ struct Drive {
     double pulldown_ohm = 10e3;         ///< gate pull-down per device (0 = none)
     double baseDriveCurrent_A = 0.0;    ///< bipolar/Darlington: total base current (0 = from forced β)
     double forcedBeta = 10.0;           ///< bipolar: I_C/I_B the drive is designed for
+    double shortCircuitResponse_s = 0.0; ///< time the driver's short-circuit protection needs (0 = none stated)
     bool operator==(const Drive&) const = default;
 };
 
@@ -220,6 +223,29 @@ struct Wiring {
     bool operator==(const Wiring&) const = default;
 };
 
+/// Bus capacitor bank and the power layout's inductances (turn-off overshoot, cable ringing).
+struct PowerLayout {
+    int capacitorCount = 0;             ///< bus capacitors fitted (0 = as many as the ripple needs)
+    double capacitorRippleRating_A = 2.5; ///< RMS ripple rating per capacitor
+    double capacitorEsr_ohm = 0.03;     ///< ESR per capacitor at the PWM frequency
+    double capacitorVoltageRating_V = 100.0;
+    double capacitorDerating = 0.8;     ///< highest fraction of the voltage rating in use
+    double capacitorThermalResistance_KperW = 15.0; ///< per capacitor, hot spot to ambient
+    double capacitorMaxTemperature_C = 105.0;
+    double capacitorInductance_H = 3e-9; ///< ESL of the capacitor bank as the loop sees it (one ESL / number in parallel)
+    double commutationLoopInductance_H = 0.0; ///< capacitor → bank → diode loop (0 = from the layout below)
+    std::string loopLayout = "platePair"; ///< "platePair" (laminated bars, board planes) or "wirePair" (round conductors)
+    double loopLength_m = 0.05;         ///< loop conductor length, one way
+    double loopConductorRadius_m = 1.5e-3; ///< wirePair
+    double loopSpacing_m = 8e-3;        ///< wirePair: centre spacing
+    double loopPlateWidth_m = 20e-3;    ///< platePair
+    double loopPlateSeparation_m = 0.5e-3; ///< platePair: insulation between the plates
+    double packageInductance_H = 7e-9;  ///< lead inductance per device
+    double batteryCableSpacing_m = 10e-3; ///< centre spacing of the battery cable pair
+    double overshootDerating = 0.8;     ///< highest fraction of the device rating the turn-off peak may reach
+    bool operator==(const PowerLayout&) const = default;
+};
+
 /// A complete design.
 struct Design {
     Meta meta;
@@ -233,6 +259,7 @@ struct Design {
     std::vector<Segment> dutyProfile;
     Wiring wiring;
     ThermalStudy thermal;               ///< optional: defaults apply to older files
+    PowerLayout layout;
     bool operator==(const Design&) const = default;
 };
 

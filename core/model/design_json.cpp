@@ -58,10 +58,10 @@ AMP_JSON(Motor, kind, armatureResistance20_ohm, windingTemperature_C,
                                                 rotorInertia_kgm2, loadInertia_kgm2, demagCurrent_A,
                                                 magnetisation)
 AMP_JSON(Pwm, frequency_Hz, topology, currentLimit_A, maxDuty,
-                                                deadTime_s)
+                                                deadTime_s, fullBridgeModulation, brakingCutoutDelay_s)
 AMP_JSON(Drive, supply_V, minSupply_V, driverResistance_ohm,
                                                 driverPeakCurrent_A, pulldown_ohm, baseDriveCurrent_A,
-                                                forcedBeta)
+                                                forcedBeta, shortCircuitResponse_s)
 AMP_JSON(BankDevice, rdsOnDeviation, vthDeviation_V, vbeDeviation_V,
                                                 betaDeviation, gateResistorDeviation_ohm,
                                                 ballastDeviation_ohm, legResistanceDeviation_ohm)
@@ -90,8 +90,16 @@ AMP_JSON(Wiring, batteryCableLength_m, batteryCable_mm2,
                                                 prechargeResistor_ohm, prechargeTime_s, prechargeFraction,
                                                 fuseRating_A, fuseVoltage_V, fuseBreaking_A, fuseI2t_A2s,
                                                 bankWithstandI2t_A2s, allowedCableDrop, cableInsulation)
+AMP_JSON(PowerLayout, capacitorCount, capacitorRippleRating_A, capacitorEsr_ohm,
+                                                capacitorVoltageRating_V, capacitorDerating,
+                                                capacitorThermalResistance_KperW, capacitorMaxTemperature_C,
+                                                capacitorInductance_H, commutationLoopInductance_H, loopLayout,
+                                                loopLength_m, loopConductorRadius_m, loopSpacing_m,
+                                                loopPlateWidth_m, loopPlateSeparation_m, packageInductance_H,
+                                                batteryCableSpacing_m,
+                                                overshootDerating)
 AMP_JSON(Design, meta, supply, motor, pwm, drive, bank, heatsink,
-                                                reversing, dutyProfile, wiring, thermal)
+                                                reversing, dutyProfile, wiring, thermal, layout)
 
 void normalizeBank(Bank& bank) {
     if (bank.count < 0)

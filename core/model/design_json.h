@@ -60,6 +60,8 @@ void to_json(nlohmann::json& j, const Segment& v);
 void from_json(const nlohmann::json& j, Segment& v);
 void to_json(nlohmann::json& j, const Wiring& v);
 void from_json(const nlohmann::json& j, Wiring& v);
+void to_json(nlohmann::json& j, const PowerLayout& v);
+void from_json(const nlohmann::json& j, PowerLayout& v);
 void to_json(nlohmann::json& j, const Design& v);
 void from_json(const nlohmann::json& j, Design& v);
 

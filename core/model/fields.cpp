@@ -440,6 +440,12 @@ Table buildDesignFields() {
             true),
         num("pwm.deadTime_s", Unit::Second, 0.0, 1e-4, "Dead time",
             "Synchronous topologies: both switches off between transitions; 100 ns – 2 µs."),
+        choice("pwm.fullBridgeModulation", {"unipolar", "bipolar"}, "Full-bridge PWM",
+               "Full bridge only: \"unipolar\" (legs switched apart, the motor sees 0/+V at twice the "
+               "carrier) or \"bipolar\" (diagonals together, the motor sees ±V: twice the ripple)."),
+        num("pwm.brakingCutoutDelay_s", Unit::Second, 0.0, 10.0, "Braking cut-out delay",
+            "Synchronous topologies: how long braking goes on after the battery is lost before the "
+            "controller stops it; sets the bus rise. 0 = at once (only the armature's energy); 1–10 ms typical."),
 
         num("drive.supply_V", Unit::Volt, 1.0, 100.0, "Drive voltage",
             "Gate/base driver output high level at nominal battery voltage; 10–15 V for MOSFETs."),
@@ -455,6 +461,9 @@ Table buildDesignFields() {
             "Bipolar/Darlington banks: total base current; 0 = from the forced β."),
         num("drive.forcedBeta", Unit::None, 1.0, 1000.0, "Forced β",
             "Bipolar banks: I_C/I_B the drive is designed for; 5–20 for hard saturation."),
+        num("drive.shortCircuitResponse_s", Unit::Second, 0.0, 1e-3, "Short-circuit response",
+            "Time the driver's short-circuit (desaturation) protection needs to turn the bank off; checked "
+            "against the part's withstand time. 0 = none stated; 2–10 µs typical."),
 
         whole("bank.count", 1.0, 64.0, "Devices in parallel", "Number of switches in parallel in the bank; 1–64."),
         list("bank.devices", 0, 64, "Per-device deviations",
@@ -661,6 +670,45 @@ Table buildDesignFields() {
             "α in the power-cycling law; about −5 (Held et al. 1997) (optional; default −5)."),
         num("thermal.lifeActivation_eV", Unit::ElectronVolt, 0.0, 5.0, "Activation energy E_a",
             "E_a in the power-cycling law; about 0.8 eV (Held et al. 1997) (optional; default 0.8 eV)."),
+        whole("layout.capacitorCount", 0.0, 1000.0, "Bus capacitors",
+              "Number of bus capacitors fitted; 0 = as many as the ripple current needs."),
+        num("layout.capacitorRippleRating_A", Unit::Ampere, 0.0, 1000.0, "Capacitor ripple rating",
+            "RMS ripple-current rating of one capacitor at its rated temperature and frequency; 1–5 A for "
+            "electrolytics.", true),
+        num("layout.capacitorEsr_ohm", Unit::Ohm, 0.0, 10.0, "Capacitor ESR",
+            "Equivalent series resistance of one capacitor at the PWM frequency; 10–100 mΩ."),
+        num("layout.capacitorVoltageRating_V", Unit::Volt, 1.0, 2000.0, "Capacitor voltage rating",
+            "Rated DC voltage of one capacitor (one series string)."),
+        num("layout.capacitorDerating", Unit::None, 0.05, 1.0, "Capacitor voltage derating",
+            "Highest fraction of the capacitor rating the highest bus voltage may reach; 0.8 is common practice."),
+        num("layout.capacitorThermalResistance_KperW", Unit::KelvinPerWatt, 0.0, 1000.0,
+            "Capacitor thermal resistance", "Hot spot to ambient of one capacitor; 10–40 K/W for can sizes."),
+        num("layout.capacitorMaxTemperature_C", Unit::Celsius, 0.0, 200.0, "Capacitor rated temperature",
+            "Rated hot-spot temperature; 85 or 105 °C."),
+        num("layout.capacitorInductance_H", Unit::Henry, 0.0, 1e-6, "Capacitor bank ESL",
+            "Series inductance of the bus capacitor bank as the commutation loop sees it: one capacitor's ESL "
+            "(10–30 nH for electrolytics) over the number in parallel next to the bank; 1–10 nH."),
+        num("layout.commutationLoopInductance_H", Unit::Henry, 0.0, 1e-5, "Commutation-loop inductance",
+            "Capacitor → bank → freewheel diode loop, if measured or known; 0 = from the layout fields. "
+            "10–50 nH for a compact layout."),
+        choice("layout.loopLayout", {"platePair", "wirePair"}, "Loop conductors",
+               "\"platePair\" (laminated busbars or board planes) or \"wirePair\" (round conductors side by side)."),
+        num("layout.loopLength_m", Unit::Metre, 0.0, 10.0, "Loop length",
+            "Length of the commutation loop's conductors, one way; 0.03–0.3 m.", true),
+        num("layout.loopConductorRadius_m", Unit::Metre, 0.0, 0.1, "Loop conductor radius",
+            "Wire pair: conductor radius.", true),
+        num("layout.loopSpacing_m", Unit::Metre, 0.0, 1.0, "Loop spacing",
+            "Wire pair: centre spacing of the conductors (at least twice the radius).", true),
+        num("layout.loopPlateWidth_m", Unit::Metre, 0.0, 1.0, "Busbar width", "Plate pair: busbar width.", true),
+        num("layout.loopPlateSeparation_m", Unit::Metre, 0.0, 0.1, "Busbar separation",
+            "Plate pair: insulation thickness between the two plates; 0.1–1 mm.", true),
+        num("layout.packageInductance_H", Unit::Henry, 0.0, 1e-6, "Package inductance",
+            "Lead inductance of one device in the loop; TO-220-class packages 5–10 nH (common practice)."),
+        num("layout.batteryCableSpacing_m", Unit::Metre, 0.0, 1.0, "Battery cable spacing",
+            "Centre spacing of the battery cable pair (sets its inductance and the capacitors' share of the "
+            "ripple).", true),
+        num("layout.overshootDerating", Unit::None, 0.1, 1.0, "Overshoot derating",
+            "Highest fraction of the device voltage rating the turn-off peak may reach; 0.8 is common practice."),
     };
     append(t, "", rest);
     append(t, "wiring.mainContactor.", designPart("contactor"));
@@ -1147,6 +1195,21 @@ std::vector<Problem> validateDesign(const Design& d) {
                                                  " leaves no on-time: two dead times per period must be shorter "
                                                  "than the period " +
                                                  fmt(period, Unit::Second)});
+    }
+    // Conductor pairs cannot overlap (the inductance formulas need d ≥ 2r).
+    const auto& lay = d.layout;
+    if (lay.commutationLoopInductance_H <= 0.0 && lay.loopLayout == "wirePair" &&
+        lay.loopSpacing_m < 2.0 * lay.loopConductorRadius_m)
+        out.push_back({"layout.loopSpacing_m", "the loop conductors' centre spacing " + fmt(lay.loopSpacing_m, Unit::Metre) +
+                                                   " is less than twice their radius " +
+                                                   fmt(lay.loopConductorRadius_m, Unit::Metre) + ": they would overlap"});
+    if (d.wiring.batteryCable_mm2 > 0.0) {
+        const double radius = std::sqrt(d.wiring.batteryCable_mm2 * 1e-6 / 3.14159265358979323846);
+        if (lay.batteryCableSpacing_m < 2.0 * radius)
+            out.push_back({"layout.batteryCableSpacing_m",
+                           "the battery cables' centre spacing " + fmt(lay.batteryCableSpacing_m, Unit::Metre) +
+                               " is less than their diameter " + fmt(2.0 * radius, Unit::Metre) +
+                               " (bare copper of wiring.batteryCable_mm2): they would overlap"});
     }
     if (d.pwm.topology == "lowSideChopper" && d.bank.diodeCount < 1)
         out.push_back({"bank.diodeCount", "a low-side chopper needs at least one freewheel diode"});

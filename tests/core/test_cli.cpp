@@ -42,7 +42,7 @@ class TestCli : public QObject {
     void help() {
         const Run r = run({"--help"});
         QCOMPARE(r.code, 0);
-        for (const char* word : {"evaluate", "--json", "--set", "fields", "parts"})
+        for (const char* word : {"evaluate", "--json", "--set", "--variant", "fields", "parts"})
             QVERIFY2(r.out.contains(word), word);
     }
 
@@ -116,6 +116,49 @@ class TestCli : public QObject {
         QVERIFY2(r.code == 0, qPrintable(r.err));
         QVERIFY(r.out.contains("No display"));
         QVERIFY(QFile::exists(QString::fromStdString((dir / "garden-cart-results.json").string())));
+    }
+
+    void variantOption() {
+        // A project with two variants: "Main" (the demo, active) and "Eight devices" (bank.count 8).
+        const auto dir = amp::test::tempDir();
+        json project = readJson(demo());
+        json second = project.at("variants")[0];
+        second["name"] = "Eight devices";
+        second["design"]["bank"]["count"] = 8;
+        second["design"]["bank"].erase("devices"); // filled with nominal devices to the count
+        project["variants"].push_back(second);
+        const QString file = QString::fromStdString((dir / "two.ampw").string());
+        {
+            QFile f(file);
+            QVERIFY(f.open(QIODevice::WriteOnly));
+            f.write(QByteArray::fromStdString(project.dump(2)));
+        }
+        const int mainCount = project["variants"][0]["design"]["bank"]["count"].get<int>();
+        QVERIFY(mainCount != 8);
+
+        const QString active = QString::fromStdString((dir / "active.json").string());
+        const Run ra = run({"evaluate", file, "--json", active});
+        QVERIFY2(ra.code == 0, qPrintable(ra.err));
+        const json a = readJson(active);
+        QCOMPARE(QString::fromStdString(a.at("variant").get<std::string>()), QString("Main"));
+        QCOMPARE(a.at("operatingPoints")[0].at("devices").size(), std::size_t(mainCount));
+
+        const QString named = QString::fromStdString((dir / "named.json").string());
+        const Run rn = run({"evaluate", file, "--variant", "Eight devices", "--json", named, "--set", "pwm.frequency_Hz=20k"});
+        QVERIFY2(rn.code == 0, qPrintable(rn.err));
+        QVERIFY(rn.out.contains("Eight devices"));
+        const json n = readJson(named);
+        QCOMPARE(QString::fromStdString(n.at("variant").get<std::string>()), QString("Eight devices"));
+        QCOMPARE(n.at("operatingPoints")[0].at("devices").size(), std::size_t{8});
+        // Same shape as without --variant: the same keys at the top level.
+        for (const auto& [key, value] : a.items())
+            QVERIFY2(n.contains(key), key.c_str());
+        QCOMPARE(n.size(), a.size());
+
+        const Run bad = run({"evaluate", file, "--variant", "Nine"});
+        QCOMPARE(bad.code, 1);
+        QVERIFY2(bad.err.contains("Nine") && bad.err.contains("\"Main\"") && bad.err.contains("\"Eight devices\""),
+                 qPrintable(bad.err));
     }
 
     void unknownCommandOption() {

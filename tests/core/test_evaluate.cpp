@@ -4,6 +4,7 @@
 // discontinuous conduction, runaway, bad input, and the results JSON contract.
 
 #include "core/engine/evaluate.h"
+#include "core/io/projectfile.h"
 #include "core/engine/results_json.h"
 #include "core/model/design_json.h"
 #include "support/testsupport.h"
@@ -11,6 +12,8 @@
 #include <nlohmann/json.hpp>
 
 #include <QtTest>
+
+#include <stdexcept>
 
 #include <cmath>
 #include <functional>
@@ -24,10 +27,11 @@ using nlohmann::json;
 namespace {
 
 Design loadDemo() {
-    json j = json::parse(test::readText(test::demoDir() / "garden-cart.ampw"));
-    j.erase("formatVersion");
-    Design d = j.get<Design>();
-    normalizeBank(d.bank);
+    // Through the project loader: the demo is a format-2 project (its active variant is the design).
+    const LoadResult r = loadProject(test::demoDir() / "garden-cart.ampw");
+    if (!r)
+        throw std::runtime_error("garden-cart demo does not load: " + describe(r.problems));
+    Design d = *r.design;
     // The demo's heatsink is a plate-fin geometry; these checks vary and recompute the stated
     // R_th,sa (the demo's part states the geometry's value). Geometry mode: test_thermal_stage.
     d.heatsink.mode = "stated";

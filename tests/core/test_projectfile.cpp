@@ -8,6 +8,7 @@
 #include <QtTest>
 
 #include <filesystem>
+#include <functional>
 #include <stdexcept>
 
 using namespace amp;
@@ -32,8 +33,11 @@ class TestProjectFile : public QObject {
             const LoadResult second = loadProject(file);
             QVERIFY2(second, describe(second.problems).c_str());
             QVERIFY2(*first.design == *second.design, entry.path().string().c_str());
+            QVERIFY2(*first.project == *second.project, entry.path().string().c_str());
             // Saving what was loaded gives the same JSON again (no drift in defaults or order).
-            QCOMPARE(projectToJson(*second.design).dump(), projectToJson(*first.design).dump());
+            QCOMPARE(projectToJson(*second.project).dump(), projectToJson(*first.project).dump());
+            // Shipped demos are written in the current format.
+            QCOMPARE(first.fileVersion, kProjectFormatVersion);
         }
         QVERIFY(demos >= 1);
     }
@@ -97,8 +101,9 @@ class TestProjectFile : public QObject {
     void everyProblemIsReported() {
         // Two bad fields in one file: both are reported, not only the first.
         nlohmann::json j = projectToJson(sampleDesign());
-        j["supply"]["nominal_V"] = -1;
-        j["pwm"]["frequency_Hz"] = -5;
+        nlohmann::json& design = j["variants"][0]["design"];
+        design["supply"]["nominal_V"] = -1;
+        design["pwm"]["frequency_Hz"] = -5;
         const LoadResult r = parseProject(j.dump());
         QVERIFY(!r);
         QVERIFY(r.problems.size() >= 2);
@@ -114,36 +119,144 @@ class TestProjectFile : public QObject {
     }
 
     void migrationChainRunsEachStep() {
-        // A test-only chain: version 1 -> 2 moves the notes into the title's revision field, and
-        // 2 -> 3 marks the notes, so both steps must run, in order.
-        MigrationChain chain;
-        chain.current = 3;
-        chain.steps.push_back({1, "test step 1->2", [](nlohmann::json& j) { j["meta"]["revision"] = "B"; }});
+        // A test-only chain on top of the real 1 -> 2 step: 2 -> 3 sets the revision and 3 -> 4
+        // copies it into the notes, so every step must run, in order.
+        MigrationChain chain = defaultMigrations();
+        chain.current = 4;
         chain.steps.push_back({2, "test step 2->3", [](nlohmann::json& j) {
-                                   j["meta"]["notes"] = j["meta"]["revision"].get<std::string>() + " migrated";
+                                   j["variants"][0]["design"]["meta"]["revision"] = "B";
                                }});
-        Design d = sampleDesign();
+        chain.steps.push_back({3, "test step 3->4", [](nlohmann::json& j) {
+                                   auto& meta = j["variants"][0]["design"]["meta"];
+                                   meta["notes"] = meta["revision"].get<std::string>() + " migrated";
+                               }});
+        // A format-1 file: the bare design beside its formatVersion.
+        nlohmann::json v1 = sampleDesign();
+        v1["formatVersion"] = 1;
         const auto file = test::tempDir() / "v1.ampw";
-        QVERIFY(saveProject(d, file));
+        QVERIFY(writeFileAtomically(file, v1.dump(2)));
         const LoadResult r = loadProject(file, chain);
         QVERIFY2(r, describe(r.problems).c_str());
         QCOMPARE(r.fileVersion, 1);
-        QCOMPARE(r.migrationsApplied.size(), std::size_t{2});
+        QCOMPARE(r.migrationsApplied.size(), std::size_t{3});
         QCOMPARE(QString::fromStdString(r.design->meta.notes), QString("B migrated"));
         // load -> migrate -> save -> reload gives the same design.
         const auto again = test::tempDir() / "v1-migrated.ampw";
-        QVERIFY(saveProject(*r.design, again));
+        QVERIFY(saveProject(*r.project, again));
         const LoadResult reloaded = loadProject(again);
         QVERIFY(reloaded);
         QVERIFY(*reloaded.design == *r.design);
 
         // A gap in the chain is an error, not a silent skip.
-        MigrationChain gap;
-        gap.current = 3;
-        gap.steps.push_back(chain.steps[0]);
+        MigrationChain gap = chain;
+        gap.steps.erase(gap.steps.begin() + 1); // no 2 -> 3
         const LoadResult broken = loadProject(file, gap);
         QVERIFY(!broken);
         QVERIFY(QString::fromStdString(broken.problems.at(0).message).contains("no migration"));
+    }
+
+    void formatOneFixtureMigrates() {
+        // tests/data/migrations/v1-garden-cart.ampw is the garden-cart demo as it was shipped in
+        // format 1 (a bare design). Load -> migrate -> save -> reload: one variant "Main" holding
+        // exactly the design of the format-1 file, and the same design as the demo of today.
+        const auto fixture = test::dataDir() / "migrations" / "v1-garden-cart.ampw";
+        const auto raw = nlohmann::json::parse(test::readText(fixture));
+        QCOMPARE(raw.at("formatVersion").get<int>(), 1);
+        QVERIFY(!raw.contains("variants"));
+
+        const LoadResult r = loadProject(fixture);
+        QVERIFY2(r, describe(r.problems).c_str());
+        QCOMPARE(r.fileVersion, 1);
+        QCOMPARE(r.migrationsApplied.size(), std::size_t{1});
+        QCOMPARE(r.project->variants.size(), std::size_t{1});
+        QCOMPARE(QString::fromStdString(r.project->variants[0].name), QString(kDefaultVariantName));
+        QCOMPARE(QString::fromStdString(r.project->active), QString(kDefaultVariantName));
+        // The design is the format-1 object itself, read directly.
+        nlohmann::json bare = raw;
+        bare.erase("formatVersion");
+        const LoadResult direct = designFromJson(bare);
+        QVERIFY2(direct, describe(direct.problems).c_str());
+        QVERIFY(*r.design == *direct.design);
+        QCOMPARE(QString::fromStdString(r.design->meta.title), QString::fromStdString(raw["meta"]["title"].get<std::string>()));
+        QCOMPARE(r.design->bank.count, raw["bank"]["count"].get<int>());
+
+        const auto saved = test::tempDir() / "migrated.ampw";
+        QVERIFY(saveProject(*r.project, saved));
+        const auto onDisk = nlohmann::json::parse(test::readText(saved));
+        QCOMPARE(onDisk.at("formatVersion").get<int>(), 2);
+        QCOMPARE(QString::fromStdString(onDisk.at("activeVariant").get<std::string>()), QString("Main"));
+        QCOMPARE(onDisk.at("variants").size(), std::size_t{1});
+        const LoadResult reloaded = loadProject(saved);
+        QVERIFY(reloaded);
+        QCOMPARE(reloaded.fileVersion, 2);
+        QVERIFY(reloaded.migrationsApplied.empty());
+        QVERIFY(*reloaded.project == *r.project);
+
+        const LoadResult demo = loadProject(test::demoDir() / "garden-cart.ampw");
+        QVERIFY(demo);
+        QVERIFY(*demo.design == *r.design);
+    }
+
+    void variantsRoundTrip() {
+        Project p = singleVariantProject(sampleDesign());
+        Variant eight{"Eight devices", sampleDesign()};
+        eight.design.bank.count = 8;
+        normalizeBank(eight.design.bank);
+        p.variants.push_back(eight);
+        p.active = "Eight devices";
+        const auto file = test::tempDir() / "variants.ampw";
+        QVERIFY(saveProject(p, file));
+        const LoadResult r = loadProject(file);
+        QVERIFY2(r, describe(r.problems).c_str());
+        QVERIFY(*r.project == p);
+        QCOMPARE(r.design->bank.count, 8); // the active variant
+        QCOMPARE(r.project->activeIndex(), std::size_t{1});
+
+        // Without activeVariant the first variant is active (documented default).
+        nlohmann::json j = projectToJson(p);
+        j.erase("activeVariant");
+        const LoadResult first = parseProject(j.dump());
+        QVERIFY(first);
+        QCOMPARE(QString::fromStdString(first.project->active), QString(kDefaultVariantName));
+        QCOMPARE(first.design->bank.count, sampleDesign().bank.count);
+    }
+
+    void variantProblemsNameTheVariant() {
+        Project p = singleVariantProject(sampleDesign());
+        p.variants.push_back({"Second", sampleDesign()});
+        nlohmann::json j = projectToJson(p);
+        j["variants"][1]["design"]["supply"]["nominal_V"] = -1;
+        LoadResult r = parseProject(j.dump());
+        QVERIFY(!r);
+        QCOMPARE(QString::fromStdString(r.problems.at(0).path), QString("variants[1].design.supply.nominal_V"));
+
+        // Structural faults of the variant list, each at its own path.
+        struct Case {
+            const char* what;
+            std::function<void(nlohmann::json&)> spoil;
+            const char* path;
+            const char* fragment;
+        };
+        const std::vector<Case> cases{
+            {"duplicate name", [](nlohmann::json& x) { x["variants"][1]["name"] = "Main"; }, "variants[1].name",
+             "earlier"},
+            {"empty name", [](nlohmann::json& x) { x["variants"][0]["name"] = " "; }, "variants[0].name", "name"},
+            {"no design", [](nlohmann::json& x) { x["variants"][1].erase("design"); }, "variants[1].design",
+             "missing"},
+            {"empty list", [](nlohmann::json& x) { x["variants"] = nlohmann::json::array(); }, "variants", "empty"},
+            {"unknown active", [](nlohmann::json& x) { x["activeVariant"] = "Nine"; }, "activeVariant", "Second"},
+            {"unknown key", [](nlohmann::json& x) { x["variantz"] = 1; }, "variantz", "unknown"},
+        };
+        for (const auto& c : cases) {
+            nlohmann::json spoiled = projectToJson(p);
+            c.spoil(spoiled);
+            const LoadResult bad = parseProject(spoiled.dump());
+            QVERIFY2(!bad, c.what);
+            bool found = false;
+            for (const auto& pr : bad.problems)
+                found = found || (pr.path == c.path && pr.message.find(c.fragment) != std::string::npos);
+            QVERIFY2(found, (std::string(c.what) + ": " + describe(bad.problems)).c_str());
+        }
     }
 
     void atomicSaveKeepsOldFileOnFailure_data() {
@@ -192,7 +305,7 @@ class TestProjectFile : public QObject {
     }
 
     void overrides() {
-        nlohmann::json j = projectToJson(sampleDesign());
+        nlohmann::json j = sampleDesign(); // overrides act on one variant's design
         QVERIFY(applyOverride(j, "bank.count=3").empty());
         QVERIFY(applyOverride(j, "dutyProfile[0].duration_s=20").empty());
         QVERIFY(applyOverride(j, "bank.device.mosfet.rdsOn25_ohm=3.5 mΩ").empty());
@@ -231,7 +344,7 @@ class TestProjectFile : public QObject {
     void badOverrides() {
         QFETCH(QString, assignment);
         QFETCH(QString, path);
-        nlohmann::json j = projectToJson(sampleDesign());
+        nlohmann::json j = sampleDesign();
         const auto problems = applyOverride(j, assignment.toStdString());
         QVERIFY2(!problems.empty(), assignment.toStdString().c_str());
         QCOMPARE(QString::fromStdString(problems[0].path), path);
@@ -239,7 +352,7 @@ class TestProjectFile : public QObject {
     }
 
     void overrideOutOfRangeIsCaughtByValidation() {
-        nlohmann::json j = projectToJson(sampleDesign());
+        nlohmann::json j = sampleDesign();
         QVERIFY(applyOverride(j, "supply.nominal_V=-5").empty()); // a well-formed value ...
         const LoadResult r = designFromJson(j);                    // ... that validation refuses
         QVERIFY(!r);

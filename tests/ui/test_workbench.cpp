@@ -13,6 +13,9 @@
 #include "core/model/fields.h"
 #include "support/testsupport.h"
 #include "ui/bankview.h"
+#include "ui/chartpanel.h"
+#include "ui/chartsview.h"
+#include "ui/evaluationrunner.h"
 #include "ui/devicetable.h"
 #include "ui/designdocument.h"
 #include "ui/fieldeditor.h"
@@ -31,6 +34,7 @@
 #include <QScrollArea>
 #include <QSignalSpy>
 #include <QStackedWidget>
+#include <QStandardPaths>
 #include <QTabWidget>
 #include <QTest>
 #include <QTimer>
@@ -84,10 +88,12 @@ class TestWorkbench : public QObject {
     void discardPromptGuardsUnsavedChanges();
     void findingJumpsToItsField();
     void screenshotOfDemo();
+    void screenshotsOfCharts();
     void entryPointOpensDemoOrFile();
 };
 
 void TestWorkbench::initTestCase() {
+    QStandardPaths::setTestModeEnabled(true); // recent files and window state: Qt's test location
     test::installLogGuard();
     QVERIFY2(QFileInfo::exists(demoFile()), qPrintable(demoFile()));
 }
@@ -485,6 +491,56 @@ void TestWorkbench::screenshotOfDemo() {
         QVERIFY(page && page->widget());
         QVERIFY(page->widget()->grab().save(out.filePath("page-" + id + ".png"))); // the whole page
     }
+}
+
+void TestWorkbench::screenshotsOfCharts() {
+    // Every chart page with every shipped demo, after the slow run has delivered.
+    const QDir demos(QString::fromStdString(test::demoDir().string()));
+    const QStringList files = demos.entryList({"*.ampw"}, QDir::Files, QDir::Name);
+    QVERIFY(!files.isEmpty());
+    const QDir out(QStringLiteral(AMPWRIGHT_BINARY_DIR "/screenshots"));
+    QVERIFY(QDir().mkpath(out.path()));
+    QStringList written;
+    for (const QString& f : files) {
+        MainWindow window;
+        window.resize(1440, 900);
+        window.show();
+        QVERIFY(QTest::qWaitForWindowExposed(&window));
+        QVERIFY2(window.openExample(demos.absoluteFilePath(f)), qPrintable(f));
+        QVERIFY(window.charts()->runner()->waitUntilIdle(180000));
+        QVERIFY(window.charts()->runner()->isCurrent());
+        auto* tabs = window.findChild<QTabWidget*>("detailTabs");
+        QVERIFY(tabs);
+        const QString stem = QFileInfo(f).completeBaseName();
+        std::vector<QWidget*> pages;
+        for (ChartPanel* p : window.charts()->panels()) {
+            QWidget* page = window.charts()->pageOf(p);
+            if (std::find(pages.begin(), pages.end(), page) == pages.end())
+                pages.push_back(page);
+        }
+        for (QWidget* page : pages) {
+            tabs->setCurrentWidget(page);
+            QCoreApplication::processEvents();
+            const QString name = tabs->tabText(tabs->currentIndex()).toLower().replace(' ', '-');
+            const QString file = out.filePath(QStringLiteral("charts-%1-%2.png").arg(stem, name));
+            QVERIFY(window.grab().save(file));
+            written << file;
+        }
+        // The sweeps' other views (efficiency, loss): both panels follow the choice.
+        ChartPanel* sweep = window.charts()->countSweep();
+        tabs->setCurrentWidget(window.charts()->pageOf(sweep));
+        for (int view = 1; view < sweep->data().views.size(); ++view) {
+            sweep->setCurrentView(view);
+            QCOMPARE(window.charts()->frequencySweep()->currentView(), view);
+            QCoreApplication::processEvents();
+            const QString file = out.filePath(QStringLiteral("charts-%1-sweeps-%2.png")
+                                                  .arg(stem, sweep->data().views[view].toLower().replace(' ', '-')));
+            QVERIFY(window.grab().save(file));
+            written << file;
+        }
+        sweep->setCurrentView(0);
+    }
+    qInfo("chart screenshots: %s", qPrintable(written.join(", ")));
 }
 
 void TestWorkbench::entryPointOpensDemoOrFile() {

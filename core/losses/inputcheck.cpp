@@ -1,0 +1,59 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "core/losses/inputcheck.h"
+
+#include <cmath>
+#include <cstdio>
+
+namespace amp::losses {
+
+std::string num(double value) {
+    if (std::isnan(value))
+        return "NaN";
+    if (std::isinf(value))
+        return value > 0 ? "infinity" : "-infinity";
+    char buffer[32];
+    std::snprintf(buffer, sizeof buffer, "%.4g", value);
+    return buffer;
+}
+
+bool InputCheck::finite(std::string_view field, double value, std::string_view meaning) {
+    if (std::isfinite(value))
+        return true;
+    fail(field, std::string(meaning) + " must be a finite number, got " + num(value));
+    return false;
+}
+
+bool InputCheck::positive(std::string_view field, double value, std::string_view meaning) {
+    if (!finite(field, value, meaning))
+        return false;
+    if (value > 0.0)
+        return true;
+    fail(field, std::string(meaning) + " must be greater than zero, got " + num(value));
+    return false;
+}
+
+bool InputCheck::nonNegative(std::string_view field, double value, std::string_view meaning) {
+    if (!finite(field, value, meaning))
+        return false;
+    if (value >= 0.0)
+        return true;
+    fail(field, std::string(meaning) + " must not be negative, got " + num(value));
+    return false;
+}
+
+bool InputCheck::inRange(std::string_view field, double value, double min, double max,
+                         std::string_view meaning) {
+    if (!finite(field, value, meaning))
+        return false;
+    if (value >= min && value <= max)
+        return true;
+    fail(field, std::string(meaning) + " must lie between " + num(min) + " and " + num(max) + ", got " +
+                    num(value));
+    return false;
+}
+
+void InputCheck::fail(std::string_view field, std::string message) {
+    m_problems.push_back(Problem{std::string(field), std::move(message)});
+}
+
+} // namespace amp::losses

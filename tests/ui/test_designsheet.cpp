@@ -1,0 +1,347 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+// The printed design sheet, read back as a person would: the PDF's page count and size with
+// pdfinfo, its text with pdftotext (poppler-utils). The numbers to find come from the results JSON
+// that `ampwright evaluate --json` writes for the same design, formatted the way the sheet prints
+// them (units::format with kSheetDigits).
+#include "core/checks/cautions.h"
+#include "core/engine/evaluate.h"
+#include "core/io/projectfile.h"
+#include "core/units/units.h"
+#include "support/testsupport.h"
+#include "ui/designdocument.h"
+#include "ui/designsheet.h"
+#include "ui/mainwindow.h"
+#include "ui/sheetactions.h"
+
+#include <QAction>
+#include <QMenuBar>
+#include <QPrinter>
+#include <QtTest>
+
+#include <nlohmann/json.hpp>
+
+#include <filesystem>
+
+using namespace amp;
+using nlohmann::json;
+
+namespace {
+
+QString tool(const QString& name) { return QStandardPaths::findExecutable(name); }
+
+// Run a program; its standard output, or a null string when it failed.
+QString capture(const QString& program, const QStringList& args, int* code = nullptr,
+                const QProcessEnvironment& env = QProcessEnvironment::systemEnvironment(), const QString& dir = {}) {
+    QProcess p;
+    p.setProcessEnvironment(env);
+    if (!dir.isEmpty())
+        p.setWorkingDirectory(dir);
+    p.start(program, args);
+    if (!p.waitForFinished(120000))
+        return {};
+    if (code)
+        *code = p.exitCode();
+    return QString::fromUtf8(p.readAllStandardOutput());
+}
+
+// Compatibility forms folded (ligatures such as "ﬁ" that pdftotext returns, no-break spaces),
+// a line broken after a hyphen joined again, and every run of white space made one space: a
+// phrase wrapped over two lines still matches.
+QString normalised(const QString& text) {
+    QString t = text.normalized(QString::NormalizationForm_KC);
+    t.replace(QStringLiteral("-\n"), QStringLiteral("-"));
+    return t.simplified();
+}
+
+struct Pdf {
+    int pages = 0;
+    QString pageSize; // "595 x 842 pts (A4)"
+    QString text;     // normalised
+    QStringList pageTexts;
+};
+
+Pdf readPdf(const QString& file) {
+    Pdf pdf;
+    const QString info = capture(tool("pdfinfo"), {file});
+    for (const QString& line : info.split('\n')) {
+        if (line.startsWith("Pages:"))
+            pdf.pages = line.section(':', 1).trimmed().toInt();
+        if (line.startsWith("Page size:"))
+            pdf.pageSize = line.section(':', 1).trimmed();
+    }
+    // -raw keeps the order in which the text was drawn, so a wrapped table cell stays together.
+    const QString raw = capture(tool("pdftotext"), {"-raw", "-enc", "UTF-8", file, "-"});
+    pdf.text = normalised(raw);
+    for (const QString& page : raw.split(QChar('\f')))
+        pdf.pageTexts << normalised(page);
+    return pdf;
+}
+
+Design demo() {
+    const LoadResult loaded = loadProject(test::demoDir() / "garden-cart.ampw");
+    if (!loaded)
+        qFatal("the demo does not load");
+    return *loaded.design;
+}
+
+QString sheetNumber(double v, units::Unit u) {
+    return normalised(QString::fromStdString(units::format(v, u, ui::kSheetDigits)));
+}
+
+QString q(const std::string& s) { return QString::fromStdString(s); }
+
+// What the command line and the printed sheet compute: everything, the transient included.
+Results evaluateAll(const Design& d) { return evaluate(d, EvaluateOptions{.thermalTransient = true}); }
+
+} // namespace
+
+class TestDesignSheet : public QObject {
+    Q_OBJECT
+    std::filesystem::path m_dir;
+
+    QString out(const QString& name) const { return QString::fromStdString((m_dir / name.toStdString()).string()); }
+
+    Pdf render(const Design& d, const QString& name, QPageSize::PageSizeId paper = QPageSize::A4) {
+        const Results r = evaluateAll(d);
+        QString error;
+        const bool ok = ui::writeDesignSheetPdf(d, r, out(name), paper, &error);
+        if (!ok)
+            qWarning("%s", qPrintable(error));
+        return ok ? readPdf(out(name)) : Pdf{};
+    }
+
+  private slots:
+    void initTestCase() {
+        test::installLogGuard();
+        QVERIFY2(!tool("pdftotext").isEmpty() && !tool("pdfinfo").isEmpty(),
+                 "pdftotext and pdfinfo (poppler-utils) are needed: packaging/setup.sh installs them");
+        m_dir = test::tempDir();
+    }
+    void cleanupTestCase() { QCOMPARE(test::unexpectedErrorLogs(), 0); }
+
+    void demoSheetHasEverySectionAndNumberedPages() {
+        const Design d = demo();
+        const Pdf pdf = render(d, "demo-a4.pdf");
+        QVERIFY2(pdf.pages >= 2, qPrintable(QString::number(pdf.pages)));
+        QVERIFY2(pdf.pageSize.contains("595 x 842"), qPrintable(pdf.pageSize)); // ISO 216 A4 in points
+        const QStringList sections = ui::designSheetSections(d, evaluateAll(d));
+        // The sections the demo's sheet has (a solved design with a reversing contactor), named
+        // here rather than taken from the code under test.
+        for (const char* always : {"What this sheet is", "At a glance", "Inputs", "Results by operating point",
+                                   "Devices of the bank", "Current and temperature per device", "Where the losses go",
+                                   "Junction temperatures over the duty profile", "Heatsink and power cycling",
+                                   "Contactors, fuse and cables", "Reversal sequence", "Checks", "Safety cautions",
+                                   "Limits of this record"})
+            QVERIFY2(sections.contains(always), always);
+        for (const QString& s : sections)
+            QVERIFY2(pdf.text.contains(s), qPrintable("missing heading: " + s));
+        // Each numbered heading is in the text once: a block moved to the next page is not also
+        // drawn (clipped, but extractable) at the foot of the page before.
+        for (int i = 0; i < sections.size(); ++i) {
+            const QString numbered = QString("%1 %2").arg(i + 1).arg(sections[i]);
+            QVERIFY2(pdf.text.count(numbered) == 1, qPrintable(numbered));
+        }
+        // The title block.
+        for (const std::string& v : {d.meta.title, d.meta.author, d.meta.revision})
+            QVERIFY2(pdf.text.contains(normalised(q(v))), v.c_str());
+        // Header and footer on every page, "page k of N" with N from pdfinfo.
+        QCOMPARE(pdf.pageTexts.size() - 1, pdf.pages); // pdftotext ends every page with a form feed
+        for (int k = 1; k <= pdf.pages; ++k) {
+            const QString& page = pdf.pageTexts[k - 1];
+            QVERIFY2(page.contains(QString("page %1 of %2").arg(k).arg(pdf.pages)), qPrintable(page.left(200)));
+            QVERIFY2(page.contains(normalised(q(d.meta.title) + " — design sheet")), qPrintable(page.left(200)));
+        }
+        QCOMPARE(pdf.pageTexts.last(), QString()); // nothing after the last form feed
+    }
+
+    void keyNumbersOfTheResultsJson() {
+        // The results JSON from the command line, the same door a user takes.
+        const QString json = out("demo-results.json");
+        int code = -1;
+        capture(AMPWRIGHT_CLI, {"evaluate", QString::fromStdString((test::demoDir() / "garden-cart.ampw").string()),
+                                "--json", json, "--quiet"},
+                &code);
+        QCOMPARE(code, 0);
+        const auto j = json::parse(test::readText(json.toStdString()));
+        const Pdf pdf = render(demo(), "demo-numbers.pdf");
+        using units::Unit;
+        const QString tj = sheetNumber(j.at("maxJunction_C").get<double>(), Unit::Celsius);
+        QVERIFY2(pdf.text.contains(tj), qPrintable(tj));
+        const QString loss = sheetNumber(j.at("maxTotalLoss_W").get<double>(), Unit::Watt);
+        QVERIFY2(pdf.text.contains(loss), qPrintable(loss));
+        const QString transient = sheetNumber(j.at("transient").at("tjMax_C").get<double>(), Unit::Celsius);
+        QVERIFY2(pdf.text.contains(transient), qPrintable(transient));
+        int devices = 0;
+        for (const auto& op : j.at("operatingPoints")) {
+            const QString opLoss = sheetNumber(op.at("totalLoss_W").get<double>(), Unit::Watt);
+            QVERIFY2(pdf.text.contains(opLoss), qPrintable(opLoss));
+            for (const auto& dv : op.at("devices")) {
+                const QString i = sheetNumber(dv.at("current_A").get<double>(), Unit::Ampere);
+                QVERIFY2(pdf.text.contains(i), qPrintable(q(op.at("name").get<std::string>()) + ": " + i));
+                const QString t = sheetNumber(dv.at("tj_C").get<double>(), Unit::Celsius);
+                QVERIFY2(pdf.text.contains(t), qPrintable(t));
+                ++devices;
+            }
+        }
+        QVERIFY(devices >= 6);
+        // Every check is printed with its reading (a lost block of the layout would drop one).
+        for (const auto& c : j.at("checks"))
+            QVERIFY2(pdf.text.contains(normalised(q(c.at("message").get<std::string>()))),
+                     c.at("message").get<std::string>().c_str());
+    }
+
+    void failedChecksAndCautionsArePrinted() {
+        // One device on a small heatsink, magnets limited to 150 A: the junction, derating, lead
+        // and demagnetisation checks fail (see test_checks_catalogue for the estimates).
+        Design d = demo();
+        d.bank.count = 1;
+        d.heatsink.mode = "stated";
+        d.heatsink.part.rthSa_KperW = 5.0;
+        d.motor.demagCurrent_A = 150.0;
+        d.heatsink.exposed = true;
+        const Results r = evaluateAll(d);
+        QStringList failed;
+        for (const auto& c : r.checks)
+            if (c.severity == Severity::Fail)
+                failed << q(c.id);
+        failed.removeDuplicates();
+        QVERIFY2(failed.size() >= 4, qPrintable(failed.join(", ")));
+        const Pdf pdf = render(d, "failing.pdf");
+        QVERIFY(pdf.pages >= 2);
+        for (const QString& id : failed)
+            QVERIFY2(pdf.text.contains(id), qPrintable(id));
+        QVERIFY(pdf.text.contains("FAIL"));
+        const auto cautions = cautionsFor(d, r);
+        QVERIFY(cautions.size() >= 3);
+        for (const auto& c : cautions) {
+            QVERIFY2(pdf.text.contains(normalised(q(c.title))), c.title.c_str());
+            QVERIFY2(pdf.text.contains(normalised(q(c.text))), c.text.c_str());
+        }
+        QVERIFY(pdf.text.contains("licensed practice decide"));
+    }
+
+    void hazardousVoltageOnlyAboveSixtyVolts() {
+        // No basic protection is needed up to 60 V DC in dry locations (IEC 60364-4-41 §414.4.5,
+        // from memory): the demo's 57.6 V bus has no such caution, a 72 V pack charged to 84 V has.
+        const Pdf low = render(demo(), "low-voltage.pdf");
+        QVERIFY(low.pages >= 2);
+        QVERIFY(!low.text.contains("Hazardous DC voltage"));
+        Design high = demo();
+        high.supply.nominal_V = 72.0;
+        high.supply.max_V = 84.0;
+        high.supply.min_V = 62.0;
+        const Pdf pdf = render(high, "high-voltage.pdf");
+        QVERIFY(pdf.text.contains("Hazardous DC voltage"));
+        QVERIFY(pdf.text.contains(sheetNumber(84.0, units::Unit::Volt) + ", above 60 V"));
+    }
+
+    void everyDemoOnA4AndLetter() {
+        int demos = 0;
+        for (const auto& e : std::filesystem::directory_iterator(test::demoDir())) {
+            if (e.path().extension() != ".ampw")
+                continue;
+            const LoadResult loaded = loadProject(e.path());
+            QVERIFY2(loaded, e.path().string().c_str());
+            const QString stem = QString::fromStdString(e.path().stem().string());
+            const Pdf a4 = render(*loaded.design, stem + "-a4.pdf", QPageSize::A4);
+            QVERIFY2(a4.pages >= 2, qPrintable(stem));
+            const Pdf letter = render(*loaded.design, stem + "-letter.pdf", QPageSize::Letter);
+            QVERIFY2(letter.pages >= 2, qPrintable(stem));
+            QVERIFY2(letter.pageSize.contains("612 x 792"), qPrintable(letter.pageSize)); // 8.5 × 11 in
+            QVERIFY(letter.text.contains(QString("page %1 of %1").arg(letter.pages)));
+            ++demos;
+        }
+        QVERIFY(demos >= 1);
+    }
+
+    void designWithoutResultsStillPrints() {
+        // A design the engine refuses: the sheet records the inputs and the failed input check and
+        // leaves out the sections that need results.
+        Design d = demo();
+        d.supply.nominal_V = -48.0;
+        const Results r = evaluateAll(d);
+        QVERIFY(r.operatingPoints.empty());
+        const QStringList sections = ui::designSheetSections(d, r);
+        QVERIFY(!sections.contains("Devices of the bank"));
+        QVERIFY(!sections.contains("Where the losses go"));
+        const Pdf pdf = render(d, "refused.pdf");
+        QVERIFY(pdf.pages >= 1);
+        QVERIFY(pdf.text.contains("design.input"));
+        QVERIFY(pdf.text.contains("supply.nominal_V"));
+        QVERIFY(!pdf.text.contains("Devices of the bank"));
+        for (const QString& s : sections)
+            QVERIFY2(pdf.text.contains(s), qPrintable(s));
+    }
+
+    void unwritableFileIsReported() {
+        QString error;
+        const Design d = demo();
+        QVERIFY(!ui::writeDesignSheetPdf(d, evaluateAll(d), "/nonexistent-folder/x.pdf", QPageSize::A4, &error));
+        QVERIFY2(error.contains("/nonexistent-folder"), qPrintable(error));
+    }
+
+    void workbenchExportsAndPreviews() {
+        ui::MainWindow window;
+        QVERIFY(window.document()->load(QString::fromStdString((test::demoDir() / "garden-cart.ampw").string())));
+        // Both actions sit in the File menu.
+        QMenu* file = nullptr;
+        for (QAction* a : window.menuBar()->actions())
+            if (a->menu() && a->text().remove('&') == "File")
+                file = a->menu();
+        QVERIFY(file);
+        QStringList names;
+        for (QAction* a : file->actions())
+            names << a->objectName();
+        QVERIFY2(names.contains("designSheetPreview") && names.contains("designSheetExport"), qPrintable(names.join(",")));
+        const QString pdf = out("workbench.pdf");
+        QVERIFY(ui::exportDesignSheet(window.document(), &window, pdf, QPageSize::Letter));
+        const Pdf read = readPdf(pdf);
+        QVERIFY(read.pages >= 2);
+        QVERIFY(read.pageSize.contains("612 x 792"));
+        QVERIFY(read.text.contains(normalised(q(window.document()->design().meta.title))));
+        // The preview paints on a QPrinter: the same renderer, here sent to a PDF file.
+        QPrinter printer(QPrinter::HighResolution);
+        printer.setOutputFormat(QPrinter::PdfFormat);
+        printer.setOutputFileName(out("printer.pdf"));
+        printer.setPageSize(QPageSize(QPageSize::A4));
+        const int pages = ui::renderDesignSheet(&printer, window.document()->design(), *window.document()->results());
+        QVERIFY(pages >= 2);
+        QCOMPARE(readPdf(out("printer.pdf")).pages, pages);
+    }
+
+    void commandLineSheet() {
+        QProcessEnvironment env = QProcessEnvironment::systemEnvironment();
+        env.remove("DISPLAY");
+        env.remove("WAYLAND_DISPLAY");
+        env.remove("QT_QPA_PLATFORM");
+        const QString demoFile = QString::fromStdString((test::demoDir() / "garden-cart.ampw").string());
+        int code = -1;
+        const QString help = capture(AMPWRIGHT_CLI, {"--help"}, &code, env);
+        QCOMPARE(code, 0);
+        for (const char* word : {"sheet", "--pdf", "--paper", "checks", "-sheet.pdf"})
+            QVERIFY2(help.contains(word), word);
+        const QString pdf = out("cli-letter.pdf");
+        const QString text = capture(AMPWRIGHT_CLI,
+                                     {"sheet", demoFile, "--pdf", pdf, "--paper", "letter", "--set", "bank.count=4"},
+                                     &code, env);
+        QCOMPARE(code, 0);
+        QVERIFY2(text.contains("design sheet written to"), qPrintable(text));
+        const Pdf read = readPdf(pdf);
+        QVERIFY(read.pages >= 2);
+        QVERIFY(read.pageSize.contains("612 x 792"));
+        QVERIFY(read.text.contains("four MOSFETs in parallel")); // the --set reached the sheet
+        capture(AMPWRIGHT_CLI, {"sheet", demoFile, "--pdf", out("x.pdf"), "--paper", "a3"}, &code, env);
+        QCOMPARE(code, 2);
+        capture(AMPWRIGHT_CLI, {"sheet", demoFile}, &code, env);
+        QCOMPARE(code, 2);
+        // Without a display the plain run writes the sheet beside the results JSON.
+        const QString dir = QString::fromStdString(test::tempDir().string());
+        const QString headless = capture(AMPWRIGHT_CLI, {demoFile}, &code, env, dir);
+        QCOMPARE(code, 0);
+        QVERIFY2(headless.contains("garden-cart-sheet.pdf"), qPrintable(headless));
+        QVERIFY(readPdf(dir + "/garden-cart-sheet.pdf").pages >= 2);
+    }
+};
+
+QTEST_MAIN(TestDesignSheet)
+#include "test_designsheet.moc"

@@ -1,0 +1,189 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "ui/chartsview.h"
+
+#include "ui/chartpanel.h"
+#include "ui/designdocument.h"
+#include "ui/evaluationrunner.h"
+
+#include <QHBoxLayout>
+#include <QLabel>
+#include <QProgressBar>
+#include <QTabWidget>
+#include <QVBoxLayout>
+
+namespace amp::ui {
+
+namespace {
+
+QWidget* pageWith(std::initializer_list<ChartPanel*> panels, QWidget* parent) {
+    auto* page = new QWidget(parent);
+    auto* row = new QHBoxLayout(page);
+    row->setContentsMargins(0, 4, 0, 0);
+    row->setSpacing(10);
+    for (ChartPanel* p : panels) {
+        p->setParent(page);
+        row->addWidget(p, 1);
+    }
+    return page;
+}
+
+} // namespace
+
+ChartsView::ChartsView(DesignDocument* document, QWidget* parentWidget)
+    : QObject(parentWidget), m_document(document), m_runner(new EvaluationRunner(document, this)) {
+    m_current = new ChartPanel(parentWidget);
+    m_current->setObjectName(QStringLiteral("chartDeviceCurrent"));
+    m_temperature = new ChartPanel(parentWidget);
+    m_temperature->setObjectName(QStringLiteral("chartDeviceTemperature"));
+    m_losses = new ChartPanel(parentWidget);
+    m_losses->setObjectName(QStringLiteral("chartLosses"));
+    m_profile = new ChartPanel(parentWidget);
+    m_profile->setObjectName(QStringLiteral("chartProfile"));
+    m_countSweep = new ChartPanel(parentWidget);
+    m_countSweep->setObjectName(QStringLiteral("chartCountSweep"));
+    m_frequencySweep = new ChartPanel(parentWidget);
+    m_frequencySweep->setObjectName(QStringLiteral("chartFrequencySweep"));
+    m_spread = new ChartPanel(parentWidget);
+    m_spread->setObjectName(QStringLiteral("chartSpread"));
+
+    m_sharingPage = pageWith({m_current, m_temperature}, parentWidget);
+    m_lossPage = pageWith({m_losses}, parentWidget);
+    m_profilePage = pageWith({m_profile}, parentWidget);
+    m_sweepPage = pageWith({m_countSweep, m_frequencySweep}, parentWidget);
+    m_spreadPage = pageWith({m_spread}, parentWidget);
+    for (QWidget* page : {m_sharingPage, m_lossPage, m_profilePage, m_sweepPage, m_spreadPage})
+        page->hide();
+
+    // The two sweeps show the same quantity.
+    connect(m_countSweep, &ChartPanel::viewChanged, m_frequencySweep, &ChartPanel::setCurrentView);
+    connect(m_frequencySweep, &ChartPanel::viewChanged, m_countSweep, &ChartPanel::setCurrentView);
+
+    m_status = new QWidget(parentWidget);
+    m_status->setObjectName(QStringLiteral("slowEvaluationState"));
+    auto* statusRow = new QHBoxLayout(m_status);
+    statusRow->setContentsMargins(0, 0, 6, 0);
+    statusRow->setSpacing(6);
+    m_statusLabel = new QLabel(m_status);
+    // Wide enough for the longest state, so the status bar does not squeeze it to a letter.
+    m_statusLabel->setMinimumWidth(
+        m_statusLabel->fontMetrics().horizontalAdvance(tr("Profile and sweeps: sweep: 16 switches (30 of 30)")));
+    m_progress = new QProgressBar(m_status);
+    m_progress->setMaximumWidth(140);
+    m_progress->setMaximumHeight(14);
+    m_progress->setTextVisible(false);
+    m_progress->hide();
+    statusRow->addWidget(m_statusLabel);
+    statusRow->addWidget(m_progress);
+
+    connect(m_runner, &EvaluationRunner::started, this, [this] {
+        m_progress->setRange(0, 0); // busy until the first report gives the step count
+        m_progress->show();
+        m_statusLabel->setText(tr("Profile and sweeps: starting"));
+        markSlowOutdated();
+    });
+    connect(m_runner, &EvaluationRunner::progressChanged, this, [this](int done, int total, const QString& what) {
+        m_progress->setRange(0, std::max(total, 1));
+        m_progress->setValue(done);
+        m_statusLabel->setText(tr("Profile and sweeps: %1 (%2 of %3)").arg(what).arg(done).arg(total));
+    });
+    connect(m_runner, &EvaluationRunner::finished, this, [this] {
+        m_progress->hide();
+        const SlowResults* r = m_runner->latest();
+        m_statusLabel->setText(r ? tr("Profile and sweeps up to date (%1 s)").arg(QString::number(r->seconds, 'f', 1))
+                                 : QString());
+        showSlow();
+    });
+    showSlow();
+}
+
+ChartsView::~ChartsView() = default;
+
+void ChartsView::addTabsTo(QTabWidget* tabs) {
+    tabs->addTab(m_sharingPage, tr("Sharing"));
+    tabs->addTab(m_lossPage, tr("Losses"));
+    tabs->addTab(m_profilePage, tr("Over the profile"));
+    tabs->addTab(m_sweepPage, tr("Sweeps"));
+    tabs->addTab(m_spreadPage, tr("Spread"));
+}
+
+std::vector<ChartPanel*> ChartsView::panels() const {
+    return {m_current, m_temperature, m_losses, m_profile, m_countSweep, m_frequencySweep, m_spread};
+}
+
+QWidget* ChartsView::pageOf(const ChartPanel* panel) const {
+    return panel ? panel->parentWidget() : nullptr;
+}
+
+void ChartsView::showQuick(int point) {
+    const Results* results = m_document->results();
+    if (!results || point < 0 || point >= static_cast<int>(results->operatingPoints.size())) {
+        ChartData none;
+        none.note = results ? tr("No operating point to show: add a segment to the duty profile.")
+                            : tr("No results: %1").arg(m_document->evaluationError());
+        for (ChartPanel* p : {m_current, m_temperature, m_losses}) {
+            ChartData d = none;
+            d.title = p->data().title;
+            p->setData(d);
+        }
+        return;
+    }
+    const Design& design = m_document->design();
+    const auto& op = results->operatingPoints[static_cast<std::size_t>(point)];
+    if (!op.valid) {
+        QStringList notes;
+        for (const auto& n : op.notes)
+            notes << QString::fromStdString(n);
+        const QString why = tr("%1 cannot be reached: %2").arg(QString::fromStdString(op.name), notes.join(QStringLiteral("; ")));
+        ChartData a = deviceCurrentData(design, op);
+        ChartData b = deviceTemperatureData(design, op);
+        ChartData c = lossBreakdownData(design, op);
+        a.note = b.note = c.note = why;
+        m_current->setData(a);
+        m_temperature->setData(b);
+        m_losses->setData(c);
+        return;
+    }
+    m_current->setData(deviceCurrentData(design, op));
+    m_temperature->setData(deviceTemperatureData(design, op));
+    m_losses->setData(lossBreakdownData(design, op));
+}
+
+void ChartsView::markSlowOutdated() {
+    for (ChartPanel* p : {m_profile, m_countSweep, m_frequencySweep, m_spread}) {
+        ChartData d = p->data();
+        if (d.drawable()) {
+            // Keep the last drawing for orientation, and say that it is being redone.
+            const QString mark = tr("updating…");
+            if (!d.subtitle.endsWith(mark))
+                d.subtitle = d.subtitle.isEmpty() ? mark : d.subtitle + QStringLiteral(" · ") + mark;
+            p->setData(d);
+        }
+    }
+}
+
+void ChartsView::showSlow() {
+    const SlowResults* r = m_runner->latest();
+    const Design& design = r ? r->design : m_document->design();
+    const Results* full = r && r->full ? &*r->full : nullptr;
+    ChartData profile = transientData(design, full);
+    ChartData spread = spreadData(design, full);
+    if (r && !r->full) {
+        profile.note = tr("Not computed: the full evaluation failed (%1).").arg(r->fullError);
+        spread.note = profile.note;
+    }
+    m_profile->setData(profile);
+    m_spread->setData(spread);
+    if (r) {
+        m_countSweep->setData(sweepData(SweepKind::DeviceCount, design, r->countSweep));
+        m_frequencySweep->setData(sweepData(SweepKind::PwmFrequency, design, r->frequencySweep));
+    } else {
+        ChartData waiting = sweepData(SweepKind::DeviceCount, design, {});
+        waiting.note = tr("Not computed yet: the sweeps run after the design is opened.");
+        m_countSweep->setData(waiting);
+        waiting = sweepData(SweepKind::PwmFrequency, design, {});
+        waiting.note = tr("Not computed yet: the sweeps run after the design is opened.");
+        m_frequencySweep->setData(waiting);
+    }
+}
+
+} // namespace amp::ui

@@ -1,0 +1,77 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#pragma once
+// The workbench's charts and the slow half of the evaluation, as pages for the results tabs:
+//   Sharing       — on-state current and T_j per device against their limits (quick)
+//   Losses        — the loss of each device by cause (quick)
+//   Over the profile — T_j(t) per device and the heatsink T(t) (slow: full evaluation)
+//   Sweeps        — hottest T_j, efficiency and loss against the number of switches and the PWM
+//                   frequency (slow: design copies)
+//   Spread        — the hottest T_j across the bank's parameter spread (slow: full evaluation)
+// The quick pages follow every edit within the same event (showQuick); the slow pages are redrawn
+// when the runner delivers, and say so while a new run is under way.
+
+#include <QObject>
+#include <QString>
+
+#include <vector>
+
+class QLabel;
+class QProgressBar;
+class QTabWidget;
+class QWidget;
+
+namespace amp::ui {
+
+class ChartPanel;
+class DesignDocument;
+class EvaluationRunner;
+
+class ChartsView : public QObject {
+    Q_OBJECT
+  public:
+    ChartsView(DesignDocument* document, QWidget* parentWidget);
+    ~ChartsView() override;
+
+    /// Add the chart pages to the results tabs.
+    void addTabsTo(QTabWidget* tabs);
+    /// The slow run's state for the status bar (a label and a progress bar).
+    QWidget* statusWidget() const { return m_status; }
+    /// Redraw the quick charts from the document's results for operating point `point` (-1: none).
+    void showQuick(int point);
+
+    EvaluationRunner* runner() const { return m_runner; }
+    ChartPanel* deviceCurrent() const { return m_current; }
+    ChartPanel* deviceTemperature() const { return m_temperature; }
+    ChartPanel* losses() const { return m_losses; }
+    ChartPanel* profile() const { return m_profile; }
+    ChartPanel* countSweep() const { return m_countSweep; }
+    ChartPanel* frequencySweep() const { return m_frequencySweep; }
+    ChartPanel* spread() const { return m_spread; }
+    std::vector<ChartPanel*> panels() const;
+    /// The page holding a panel (for tests and screenshots).
+    QWidget* pageOf(const ChartPanel* panel) const;
+
+  private:
+    void showSlow();
+    void markSlowOutdated();
+
+    DesignDocument* m_document = nullptr;
+    EvaluationRunner* m_runner = nullptr;
+    QWidget* m_sharingPage = nullptr;
+    QWidget* m_lossPage = nullptr;
+    QWidget* m_profilePage = nullptr;
+    QWidget* m_sweepPage = nullptr;
+    QWidget* m_spreadPage = nullptr;
+    ChartPanel* m_current = nullptr;
+    ChartPanel* m_temperature = nullptr;
+    ChartPanel* m_losses = nullptr;
+    ChartPanel* m_profile = nullptr;
+    ChartPanel* m_countSweep = nullptr;
+    ChartPanel* m_frequencySweep = nullptr;
+    ChartPanel* m_spread = nullptr;
+    QWidget* m_status = nullptr;
+    QLabel* m_statusLabel = nullptr;
+    QProgressBar* m_progress = nullptr;
+};
+
+} // namespace amp::ui

@@ -1,0 +1,412 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+#include "ui/sheetcharts.h"
+
+#include "core/units/units.h"
+#include "ui/designsheet.h"
+
+#include <QAbstractTextDocumentLayout>
+#include <QFontMetricsF>
+#include <QPainter>
+#include <QPainterPath>
+#include <QTextDocument>
+
+#include <algorithm>
+#include <cmath>
+
+namespace amp::ui {
+
+namespace {
+
+using units::Unit;
+
+QString fmt(double v, Unit u) { return QString::fromStdString(units::format(v, u, kSheetDigits)); }
+
+const QColor kSeries[] = {QColor("#1f5f8b"), QColor("#d1782c"), QColor("#4a8f3c"), QColor("#8c3f7a"),
+                          QColor("#b8a02a"), QColor("#3f8f8f"), QColor("#7a5230"), QColor("#5a5a9e")};
+QColor seriesColour(std::size_t i) { return kSeries[i % (sizeof(kSeries) / sizeof(kSeries[0]))]; }
+
+/// A tick step of 1, 2 or 5 × 10^k giving at most `maxTicks` intervals over `span`.
+double niceStep(double span, int maxTicks) {
+    if (!(span > 0.0))
+        return 1.0;
+    const double raw = span / maxTicks;
+    const double mag = std::pow(10.0, std::floor(std::log10(raw)));
+    for (double m : {1.0, 2.0, 5.0, 10.0})
+        if (m * mag >= raw)
+            return m * mag;
+    return 10.0 * mag;
+}
+
+QFont chartFont(double size_pt, bool bold = false) {
+    QFont f(QStringLiteral("DejaVu Sans"));
+    f.setStyleHint(QFont::SansSerif);
+    f.setPointSizeF(size_pt);
+    f.setBold(bold);
+    return f;
+}
+
+/// A vertical value axis with grid lines over `plot`, from 0 (or `lo`) to a nice top above `hi`.
+struct Axis {
+    double lo = 0.0, hi = 1.0, step = 1.0;
+    double y(const QRectF& plot, double v) const { return plot.bottom() - (v - lo) / (hi - lo) * plot.height(); }
+    double x(const QRectF& plot, double v) const { return plot.left() + (v - lo) / (hi - lo) * plot.width(); }
+};
+
+Axis makeAxis(double lo, double hi, int ticks) {
+    Axis a;
+    if (!(hi > lo))
+        hi = lo + 1.0;
+    a.step = niceStep(hi - lo, ticks);
+    a.lo = std::floor(lo / a.step) * a.step;
+    a.hi = std::ceil(hi / a.step) * a.step;
+    if (a.hi <= a.lo)
+        a.hi = a.lo + a.step;
+    return a;
+}
+
+QString tickText(double v) { return QString::number(std::abs(v) < 1e-12 ? 0.0 : v, 'g', 6); }
+
+void drawValueAxis(QPainter& p, const QRectF& plot, const Axis& a, const QString& unit, double pt) {
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fm(p.font(), p.device());
+    for (double v = a.lo; v <= a.hi + a.step * 1e-6; v += a.step) {
+        const double y = a.y(plot, v);
+        p.setPen(QPen(QColor("#d8d8d8"), 0.4 * pt));
+        p.drawLine(QPointF(plot.left(), y), QPointF(plot.right(), y));
+        p.setPen(QColor("#333333"));
+        const QString t = tickText(v);
+        p.drawText(QPointF(plot.left() - 2.5 * pt - fm.horizontalAdvance(t), y + fm.ascent() / 2.8), t);
+    }
+    (void)unit;
+    p.setPen(QPen(QColor("#555555"), 0.6 * pt));
+    p.drawLine(plot.bottomLeft(), plot.bottomRight());
+    p.drawLine(plot.bottomLeft(), plot.topLeft());
+}
+
+/// Legend in a row: coloured squares with names, from `at`; returns the height used.
+double drawLegend(QPainter& p, QPointF at, double width, const QStringList& names, const std::vector<QColor>& colours,
+                  double pt) {
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fm(p.font(), p.device());
+    const double box = 5.0 * pt;
+    double x = at.x(), y = at.y();
+    for (int i = 0; i < names.size(); ++i) {
+        const double w = box + 2.5 * pt + fm.horizontalAdvance(names[i]) + 8.0 * pt;
+        if (x + w > at.x() + width && x > at.x()) {
+            x = at.x();
+            y += fm.height() + 1.5 * pt;
+        }
+        p.fillRect(QRectF(x, y + (fm.height() - box) / 2, box, box), colours[static_cast<std::size_t>(i)]);
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(x + box + 2.5 * pt, y + fm.ascent()), names[i]);
+        x += w;
+    }
+    return y + fm.height() - at.y();
+}
+
+} // namespace
+
+int SheetCharts::add(Draw draw, double height_mm) {
+    m_charts.push_back({std::move(draw), height_mm});
+    return static_cast<int>(m_charts.size()) - 1;
+}
+
+QSizeF SheetCharts::intrinsicSize(QTextDocument* doc, int, const QTextFormat& format) {
+    const int id = format.property(kChartIdProperty).toInt();
+    const QPaintDevice* device = doc->documentLayout()->paintDevice();
+    const double dpi = device ? device->logicalDpiY() : 96.0;
+    const double width = doc->pageSize().width() > 0 ? doc->pageSize().width() : doc->textWidth();
+    const double height = id >= 0 && id < static_cast<int>(m_charts.size()) ? m_charts[id].height_mm : 50.0;
+    return {width * 0.995, height / 25.4 * dpi};
+}
+
+void SheetCharts::drawObject(QPainter* painter, const QRectF& rect, QTextDocument*, int, const QTextFormat& format) {
+    const int id = format.property(kChartIdProperty).toInt();
+    if (id < 0 || id >= static_cast<int>(m_charts.size()))
+        return;
+    const double pt = painter->device()->logicalDpiY() / 72.0;
+    painter->save();
+    painter->setRenderHint(QPainter::Antialiasing);
+    m_charts[id].draw(*painter, rect, pt);
+    painter->restore();
+}
+
+void drawSharingChart(QPainter& p, const QRectF& r, double pt, const std::vector<SharingSeries>& series,
+                      double tjMax_C) {
+    QStringList names;
+    std::vector<QColor> colours;
+    std::size_t devices = 0;
+    double iMax = 0.0, tMax = tjMax_C, tMin = tjMax_C;
+    for (std::size_t s = 0; s < series.size(); ++s) {
+        names << series[s].name;
+        colours.push_back(seriesColour(s));
+        devices = std::max(devices, series[s].current_A.size());
+        for (double v : series[s].current_A)
+            iMax = std::max(iMax, v);
+        for (double v : series[s].tj_C) {
+            tMax = std::max(tMax, v);
+            tMin = std::min(tMin, v);
+        }
+    }
+    const double legend = drawLegend(p, r.topLeft() + QPointF(14.0 * pt, 0.0), r.width() - 14.0 * pt, names, colours, pt);
+    const double gap = 22.0 * pt;
+    const double top = r.top() + legend + 16.0 * pt;
+    const double bottom = r.bottom() - 16.0 * pt;
+    const double half = (r.width() - gap) / 2.0;
+    const QRectF left(r.left() + 26.0 * pt, top, half - 26.0 * pt, bottom - top);
+    const QRectF right(r.left() + half + gap + 26.0 * pt, top, half - 26.0 * pt, bottom - top);
+
+    p.setFont(chartFont(7.0, true));
+    p.setPen(QColor("#222222"));
+    p.drawText(QPointF(left.left(), top - 7.0 * pt), QStringLiteral("On-state current, A"));
+    p.drawText(QPointF(right.left(), top - 7.0 * pt), QStringLiteral("Junction temperature, °C"));
+
+    // Currents.
+    const Axis ia = makeAxis(0.0, iMax > 0.0 ? iMax * 1.05 : 1.0, 5);
+    drawValueAxis(p, left, ia, QStringLiteral("A"), pt);
+    const double slot = devices > 0 ? left.width() / static_cast<double>(devices) : left.width();
+    const double barW = slot * 0.8 / std::max<std::size_t>(1, series.size());
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fm(p.font(), p.device());
+    const int labelEvery = devices > 16 ? static_cast<int>(std::ceil(devices / 16.0)) : 1;
+    for (std::size_t k = 0; k < devices; ++k) {
+        const double x0 = left.left() + slot * static_cast<double>(k) + slot * 0.1;
+        for (std::size_t s = 0; s < series.size(); ++s) {
+            if (k >= series[s].current_A.size())
+                continue;
+            const double y = ia.y(left, series[s].current_A[k]);
+            p.fillRect(QRectF(x0 + barW * static_cast<double>(s), y, barW * 0.92, left.bottom() - y), seriesColour(s));
+        }
+        if (k % static_cast<std::size_t>(labelEvery) == 0) {
+            const QString t = QString::number(k);
+            p.setPen(QColor("#333333"));
+            p.drawText(QPointF(left.left() + slot * (static_cast<double>(k) + 0.5) - fm.horizontalAdvance(t) / 2,
+                               left.bottom() + fm.ascent() + 2.0 * pt),
+                       t);
+        }
+    }
+    const QString devLabel = QStringLiteral("device");
+    p.drawText(QPointF(left.center().x() - fm.horizontalAdvance(devLabel) / 2, r.bottom() - 1.0 * pt), devLabel);
+
+    // Temperatures.
+    const Axis ta = makeAxis(std::min(0.0, tMin), tMax * 1.04, 5);
+    drawValueAxis(p, right, ta, QStringLiteral("°C"), pt);
+    const double tslot = devices > 0 ? right.width() / static_cast<double>(devices) : right.width();
+    const double yLimit = ta.y(right, tjMax_C);
+    p.setPen(QPen(QColor("#b03a2e"), 0.9 * pt, Qt::DashLine));
+    p.drawLine(QPointF(right.left(), yLimit), QPointF(right.right(), yLimit));
+    p.setFont(chartFont(6.5));
+    p.setPen(QColor("#b03a2e"));
+    const QString limitText = QStringLiteral("T_j,max ") + fmt(tjMax_C, Unit::Celsius);
+    p.drawText(QPointF(right.right() - fm.horizontalAdvance(limitText), yLimit - 2.0 * pt), limitText);
+    for (std::size_t s = 0; s < series.size(); ++s) {
+        QPainterPath path;
+        for (std::size_t k = 0; k < series[s].tj_C.size(); ++k) {
+            const QPointF pnt(right.left() + tslot * (static_cast<double>(k) + 0.5), ta.y(right, series[s].tj_C[k]));
+            if (k == 0)
+                path.moveTo(pnt);
+            else
+                path.lineTo(pnt);
+        }
+        p.setPen(QPen(seriesColour(s), 0.9 * pt));
+        p.setBrush(Qt::NoBrush);
+        p.drawPath(path);
+        p.setBrush(seriesColour(s));
+        for (std::size_t k = 0; k < series[s].tj_C.size(); ++k)
+            p.drawEllipse(QPointF(right.left() + tslot * (static_cast<double>(k) + 0.5), ta.y(right, series[s].tj_C[k])),
+                          1.6 * pt, 1.6 * pt);
+    }
+    p.setPen(QColor("#333333"));
+    for (std::size_t k = 0; k < devices; ++k)
+        if (k % static_cast<std::size_t>(labelEvery) == 0) {
+            const QString t = QString::number(k);
+            p.drawText(QPointF(right.left() + tslot * (static_cast<double>(k) + 0.5) - fm.horizontalAdvance(t) / 2,
+                               right.bottom() + fm.ascent() + 2.0 * pt),
+                       t);
+        }
+    p.drawText(QPointF(right.center().x() - fm.horizontalAdvance(devLabel) / 2, r.bottom() - 1.0 * pt), devLabel);
+}
+
+
+void drawLossChart(QPainter& p, const QRectF& r, double pt, const QStringList& components,
+                   const std::vector<LossRow>& rows) {
+    std::vector<QColor> colours;
+    for (int i = 0; i < components.size(); ++i)
+        colours.push_back(seriesColour(static_cast<std::size_t>(i)));
+    const double legend = drawLegend(p, r.topLeft(), r.width(), components, colours, pt);
+    p.setFont(chartFont(7.0));
+    const QFontMetricsF fm(p.font(), p.device());
+    double labelW = 0.0, total = 0.0;
+    std::vector<double> totals;
+    for (const auto& row : rows) {
+        labelW = std::max(labelW, fm.horizontalAdvance(row.name));
+        double t = 0.0;
+        for (double v : row.parts_W)
+            t += std::max(0.0, v);
+        totals.push_back(t);
+        total = std::max(total, t);
+    }
+    const double valueW = fm.horizontalAdvance(QStringLiteral("0000.0 mW")) + 4.0 * pt;
+    const QRectF plot(r.left() + labelW + 6.0 * pt, r.top() + legend + 8.0 * pt, r.width() - labelW - 6.0 * pt - valueW,
+                      r.height() - legend - 8.0 * pt - 2.0 * fm.height() - 8.0 * pt);
+    const Axis a = makeAxis(0.0, total > 0.0 ? total : 1.0, 6);
+    // Grid and ticks along x.
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fs(p.font(), p.device());
+    for (double v = a.lo; v <= a.hi + a.step * 1e-6; v += a.step) {
+        const double x = a.x(plot, v);
+        p.setPen(QPen(QColor("#d8d8d8"), 0.4 * pt));
+        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
+        p.setPen(QColor("#333333"));
+        const QString t = tickText(v);
+        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
+    }
+    const QString axisTitle = QStringLiteral("loss, W");
+    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(axisTitle) / 2, r.bottom() - 1.0 * pt), axisTitle);
+    p.setPen(QPen(QColor("#555555"), 0.6 * pt));
+    p.drawLine(plot.bottomLeft(), plot.topLeft());
+
+    const double slot = rows.empty() ? plot.height() : plot.height() / static_cast<double>(rows.size());
+    const double barH = std::min(slot * 0.62, 14.0 * pt);
+    p.setFont(chartFont(7.0));
+    for (std::size_t i = 0; i < rows.size(); ++i) {
+        const double yc = plot.top() + slot * (static_cast<double>(i) + 0.5);
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(plot.left() - 4.0 * pt - fm.horizontalAdvance(rows[i].name), yc + fm.ascent() / 2.6),
+                   rows[i].name);
+        double x = plot.left();
+        for (std::size_t c = 0; c < rows[i].parts_W.size(); ++c) {
+            const double w = std::max(0.0, rows[i].parts_W[c]) / (a.hi - a.lo) * plot.width();
+            p.fillRect(QRectF(x, yc - barH / 2, w, barH), colours[c]);
+            x += w;
+        }
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(x + 3.0 * pt, yc + fm.ascent() / 2.6), fmt(totals[i], Unit::Watt));
+    }
+}
+
+
+void drawTimeSeries(QPainter& p, const QRectF& r, double pt, const std::vector<double>& time_s,
+                    const std::vector<TimeSeries>& series, const QString& unitTitle, std::optional<double> limit,
+                    const QString& limitText) {
+    QStringList names;
+    std::vector<QColor> colours;
+    double lo = limit.value_or(1e300), hi = limit.value_or(-1e300);
+    for (std::size_t s = 0; s < series.size(); ++s) {
+        names << series[s].name;
+        colours.push_back(seriesColour(s));
+        for (double v : series[s].values)
+            if (std::isfinite(v)) {
+                lo = std::min(lo, v);
+                hi = std::max(hi, v);
+            }
+    }
+    if (!(hi >= lo)) {
+        lo = 0.0;
+        hi = 1.0;
+    }
+    const double legend = drawLegend(p, r.topLeft() + QPointF(26.0 * pt, 0.0), r.width() - 26.0 * pt, names, colours, pt);
+    const QRectF plot(r.left() + 26.0 * pt, r.top() + legend + 14.0 * pt, r.width() - 30.0 * pt,
+                      r.height() - legend - 14.0 * pt - 20.0 * pt);
+    p.setFont(chartFont(7.0, true));
+    p.setPen(QColor("#222222"));
+    p.drawText(QPointF(plot.left(), plot.top() - 5.0 * pt), unitTitle);
+    const Axis ya = makeAxis(std::min(0.0, lo), hi + 0.04 * (hi - std::min(0.0, lo)), 5);
+    drawValueAxis(p, plot, ya, QString(), pt);
+    const double t0 = time_s.empty() ? 0.0 : time_s.front();
+    const double t1 = time_s.empty() ? 1.0 : time_s.back();
+    const Axis xa = makeAxis(t0, t1 > t0 ? t1 : t0 + 1.0, 8);
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fs(p.font(), p.device());
+    for (double v = xa.lo; v <= xa.hi + xa.step * 1e-6; v += xa.step) {
+        const double x = xa.x(plot, v);
+        p.setPen(QPen(QColor("#e4e4e4"), 0.4 * pt));
+        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
+        p.setPen(QColor("#333333"));
+        const QString t = tickText(v);
+        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
+    }
+    const QString axisTitle = QStringLiteral("time, s");
+    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(axisTitle) / 2, r.bottom() - 1.0 * pt), axisTitle);
+    if (limit) {
+        const double y = ya.y(plot, *limit);
+        p.setPen(QPen(QColor("#b03a2e"), 0.9 * pt, Qt::DashLine));
+        p.drawLine(QPointF(plot.left(), y), QPointF(plot.right(), y));
+        p.setPen(QColor("#b03a2e"));
+        p.drawText(QPointF(plot.right() - fs.horizontalAdvance(limitText), y - 2.0 * pt), limitText);
+    }
+    p.save();
+    p.setClipRect(plot.adjusted(0, -2.0 * pt, 0, 0));
+    for (std::size_t s = 0; s < series.size(); ++s) {
+        QPainterPath path;
+        bool started = false;
+        const std::size_t n = std::min(time_s.size(), series[s].values.size());
+        for (std::size_t k = 0; k < n; ++k) {
+            if (!std::isfinite(series[s].values[k]))
+                continue;
+            const QPointF pnt(xa.x(plot, time_s[k]), ya.y(plot, series[s].values[k]));
+            if (!started) {
+                path.moveTo(pnt);
+                started = true;
+            } else {
+                path.lineTo(pnt);
+            }
+        }
+        p.setPen(QPen(seriesColour(s), 0.9 * pt, series[s].dashed ? Qt::DashLine : Qt::SolidLine));
+        p.setBrush(Qt::NoBrush);
+        p.drawPath(path);
+    }
+    p.restore();
+}
+
+
+void drawTimeline(QPainter& p, const QRectF& r, double pt, const std::vector<TimelineStep>& steps) {
+    p.setFont(chartFont(7.0));
+    const QFontMetricsF fm(p.font(), p.device());
+    double labelW = 0.0, total = 0.0;
+    for (const auto& s : steps) {
+        labelW = std::max(labelW, fm.horizontalAdvance(s.name));
+        total += std::max(0.0, s.duration_s);
+    }
+    const double valueW = fm.horizontalAdvance(QStringLiteral("000.0 ms")) + 6.0 * pt;
+    const QRectF plot(r.left() + labelW + 6.0 * pt, r.top() + 2.0 * pt, r.width() - labelW - 6.0 * pt - valueW,
+                      r.height() - 2.0 * fm.height() - 8.0 * pt);
+    const Axis a = makeAxis(0.0, total > 0.0 ? total : 1.0, 6);
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fs(p.font(), p.device());
+    for (double v = a.lo; v <= a.hi + a.step * 1e-6; v += a.step) {
+        const double x = a.x(plot, v);
+        p.setPen(QPen(QColor("#d8d8d8"), 0.4 * pt));
+        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
+        p.setPen(QColor("#333333"));
+        const QString t = tickText(v);
+        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
+    }
+    const QString axisTitle = QStringLiteral("time from PWM off, s");
+    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(axisTitle) / 2, r.bottom() - 1.0 * pt), axisTitle);
+    p.setPen(QPen(QColor("#555555"), 0.6 * pt));
+    p.drawLine(plot.bottomLeft(), plot.topLeft());
+
+    const double slot = steps.empty() ? plot.height() : plot.height() / static_cast<double>(steps.size());
+    const double barH = std::min(slot * 0.6, 10.0 * pt);
+    double t0 = 0.0;
+    p.setFont(chartFont(7.0));
+    for (std::size_t i = 0; i < steps.size(); ++i) {
+        const double yc = plot.top() + slot * (static_cast<double>(i) + 0.5);
+        const double d = std::max(0.0, steps[i].duration_s);
+        const double x0 = a.x(plot, t0);
+        const double w = std::max(1.2 * pt, a.x(plot, t0 + d) - x0);
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(plot.left() - 4.0 * pt - fm.horizontalAdvance(steps[i].name), yc + fm.ascent() / 2.6),
+                   steps[i].name);
+        p.fillRect(QRectF(x0, yc - barH / 2, w, barH), seriesColour(i));
+        const QString t = fmt(d, Unit::Second);
+        const double tx = x0 + w + 3.0 * pt + fm.horizontalAdvance(t) < r.right() ? x0 + w + 3.0 * pt
+                                                                                  : x0 - 3.0 * pt - fm.horizontalAdvance(t);
+        p.setPen(QColor("#222222"));
+        p.drawText(QPointF(tx, yc + fm.ascent() / 2.6), t);
+        t0 += d;
+    }
+}
+
+} // namespace amp::ui
