@@ -138,8 +138,13 @@ std::optional<ReferenceFigures> referenceFigures(const Design& d) {
         c.switchResistance_ohm = e.switchResistance_ohm;
         c.diodeDrop_V = e.diodeDrop_V;
         c.diodeResistance_ohm = e.diodeResistance_ohm;
+        // The stage's other losses draw a bus current of their own (as evaluate() charges them).
+        const double extra = std::max(0.0, p.batteryCurrent_A - p.switchAverageCurrent_A);
+        c.busLoad_A = extra;
         const reference::CycleResult r = reference::simulateChopper(c);
-        const ChopperSolution s = chopperAtDuty(e, supply, p.duty);
+        ChopperSupply engineSupply = supply;
+        engineSupply.voltage_V -= supply.resistance_ohm * extra;
+        const ChopperSolution s = chopperAtDuty(e, engineSupply, p.duty);
         if (!r.converged || !s.waveform.valid)
             continue;
         const auto& w = s.waveform;
@@ -155,7 +160,7 @@ std::optional<ReferenceFigures> referenceFigures(const Design& d) {
         if (p.motorCurrent_A > bestCurrent) {
             bestCurrent = p.motorCurrent_A;
             bestEngine = e;
-            bestSupply = supply;
+            bestSupply = engineSupply;
             bestDuty = p.duty;
             bestRef = c;
         }
