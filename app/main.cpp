@@ -68,18 +68,21 @@ int main(int argc, char** argv) {
         return 2;
     }
     if (!hasDisplay()) {
-        if (file.isEmpty())
-            file = amp::app::demoProject();
-        const QString json = QFileInfo(file).completeBaseName() + "-results.json";
+        // The application object first: the demo is found beside the executable.
 #ifdef AMPWRIGHT_WITH_UI
         qputenv("QT_QPA_PLATFORM", "offscreen");
         QGuiApplication app(argc, argv);
-        amp::app::setupLogging(true, verbose);
-        return amp::app::runHeadless(file, json, QFileInfo(file).completeBaseName() + "-sheet.pdf");
 #else
         QCoreApplication app(argc, argv);
+#endif
         amp::app::setupLogging(true, verbose);
-        return amp::app::runHeadless(file, json);
+        if (file.isEmpty())
+            file = amp::app::demoProject();
+        const QString base = QFileInfo(file).completeBaseName();
+#ifdef AMPWRIGHT_WITH_UI
+        return amp::app::runHeadless(file, base + "-results.json", base + "-sheet.pdf");
+#else
+        return amp::app::runHeadless(file, base + "-results.json");
 #endif
     }
 #ifdef AMPWRIGHT_WITH_UI

@@ -572,6 +572,10 @@ void SheetWriter::pointResults() {
         {"Bank RMS current", [](const auto& o) { return fmt(o.switchRmsCurrent_A, Unit::Ampere); }},
         {"Freewheel diode average current", [](const auto& o) { return fmt(o.diodeAverageCurrent_A, Unit::Ampere); }},
         {"Bus capacitor RMS current", [](const auto& o) { return fmt(o.capacitorRmsCurrent_A, Unit::Ampere); }},
+        {"Bus capacitor ripple (with the cable's share)",
+         [](const auto& o) { return fmt(o.busCapacitorRipple_A, Unit::Ampere); }},
+        {"Turn-off overshoot above the bus", [](const auto& o) { return fmt(o.overshoot_V, Unit::Volt); }},
+        {"Avalanche energy per turn-off", [](const auto& o) { return fmt(o.avalancheEnergy_J, Unit::Joule); }},
         {"Power from the bus", [](const auto& o) { return fmt(o.inputPower_W, Unit::Watt); }},
         {"Shaft power", [](const auto& o) { return fmt(o.mechanicalPower_W, Unit::Watt); }},
         {"Bank loss (with ballast and legs)", [](const auto& o) { return fmt(o.bankLoss_W, Unit::Watt); }},
@@ -641,7 +645,11 @@ void SheetWriter::deviceTables() {
         for (std::size_t k = 0; k < op.devices.size(); ++k) {
             const auto& dv = op.devices[k];
             const QString tj = fmt(dv.tj_C, Unit::Celsius);
-            m_html += QStringLiteral("<tr><td>%1</td>").arg(k) + "<td class=\"num\">" + fmt(dv.current_A, Unit::Ampere) +
+            // Topologies with several banks name the bank of each device.
+            const QString name = dv.bank == "switch" || dv.bank.empty()
+                                     ? QString::number(k)
+                                     : QStringLiteral("%1 (%2 bank)").arg(k).arg(esc(dv.bank));
+            m_html += "<tr><td>" + name + "</td><td class=\"num\">" + fmt(dv.current_A, Unit::Ampere) +
                       "</td><td class=\"num\">" + fmt(dv.rmsCurrent_A, Unit::Ampere) + "</td><td class=\"num\">" +
                       fmt(dv.share, Unit::Percent) + "</td><td class=\"num\">" + fmt(dv.ratingShare, Unit::Percent) +
                       "</td><td class=\"num\">" + fmt(dv.voltage_V, Unit::Volt) + "</td><td class=\"num\">" +

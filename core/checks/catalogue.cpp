@@ -13,12 +13,60 @@ std::vector<CheckInfo> buildCatalogue() {
         {"design.input", "Input out of range",
          "each design field and duty-profile segment against its type and allowed range",
          "the field table (ampwright fields)", "the field named in the message", Severity::Fail},
-        {"model.topology", "Topology not modelled yet",
-         "the chosen topology against the topologies the engine computes",
-         "engine coverage", "pwm.topology", Severity::Warning},
         {"motor.operating-point", "Operating point out of reach",
          "the current or speed a segment asks for against what the supply can drive at the highest duty",
          "operating-point solve", "dutyProfile[i]", Severity::Fail},
+
+        // Gate and base drive
+        {"drive.weak-at-min-supply", "Drive at the lowest supply",
+         "MOSFET: gate voltage at the lowest battery voltage against the gate voltage R_ds(on) is stated at; "
+         "bipolar: base current there against I_C/β_F",
+         "the part's R_ds(on) rating voltage; saturation I_B ≥ I_C/β_F (Gummel–Poon gain)", "drive.minSupply_V",
+         Severity::Fail},
+        {"drive.pulldown", "Gate pull-down", "whether each gate has a pull-down that turns the bank off when the drive "
+         "is lost", "common practice: 4.7–22 kΩ gate to source", "drive.pulldown_ohm", Severity::Warning},
+        {"drive.driver-peak", "Driver peak current",
+         "peak gate current the bank draws from the driver against the driver's rating",
+         "driver's rated peak current (drive.driverPeakCurrent_A)", "bank.gateResistor_ohm", Severity::Warning},
+
+        // Switching stress
+        {"switch.overshoot", "Turn-off overshoot",
+         "turn-off peak V_bus + L·di/dt at the highest bus voltage against derating × the device's voltage "
+         "rating (fail above the rating)",
+         "layout.overshootDerating (about 80 %, common practice) × bank.device.voltageRating_V",
+         "layout.loopLength_m", Severity::Fail},
+        {"switch.avalanche", "Repetitive avalanche",
+         "clamped energy ½·L·I²·V_BR/(V_BR − V_bus) per turn-off against the part's repetitive avalanche "
+         "rating (warning whenever the device avalanches)",
+         "the part's repetitive avalanche rating", "layout.commutationLoopInductance_H", Severity::Fail},
+        {"switch.soa", "Safe operating area",
+         "on-state voltage and current of each device against the part's SOA points",
+         "the part's SOA points (bank.device.soa), log-log interpolation", "bank.count", Severity::Fail},
+        {"switch.short-circuit", "Short-circuit withstand",
+         "response time of the driver's short-circuit protection against the part's withstand time (advice "
+         "when either is not stated)",
+         "the part's short-circuit withstand time", "drive.shortCircuitResponse_s", Severity::Fail},
+
+        // Bus capacitors
+        {"capacitor.voltage", "Bus capacitor voltage",
+         "highest bus voltage against derating × the capacitors' voltage rating",
+         "layout.capacitorDerating (about 80 %, common practice)", "layout.capacitorVoltageRating_V",
+         Severity::Fail},
+        {"capacitor.ripple", "Bus capacitor ripple current",
+         "RMS ripple current per capacitor against its rating", "the capacitors' ripple-current rating",
+         "layout.capacitorCount", Severity::Fail},
+        {"capacitor.temperature", "Bus capacitor temperature",
+         "hot spot from the ESR loss against the capacitors' rated temperature",
+         "the capacitors' rated temperature", "layout.capacitorCount", Severity::Fail},
+        {"capacitor.decoupling", "Bus capacitors against the battery cable",
+         "ripple frequency against the resonance of the battery-cable inductance with the bus capacitance",
+         "current divider between cable inductance and capacitance (circuit theory)", "wiring.busCapacitance_F",
+         Severity::Warning},
+        {"bus.braking-rise", "Bus rise when braking without the battery",
+         "bus peak when the battery is lost while braking through a synchronous bridge, against the lower of "
+         "the switch and capacitor ratings",
+         "L–C energy balance of the braking armature into the bus capacitors", "wiring.busCapacitance_F",
+         Severity::Fail},
 
         // Temperatures
         {"thermal.switch-junction", "Switch junction temperature",

@@ -1,7 +1,8 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 // ampwright-bench: the speed and accuracy figures of the engine in one place. With --json it
 // prints one JSON object (keys below, times as medians or single runs of wall time on this
-// machine); without, the same as text. A figure whose piece of the engine is not there yet is
+// machine; the *_cpu_* keys give CPU time, which a shared machine's load does not inflate);
+// without, the same as text. A figure whose piece of the engine is not there yet is
 // null, and "missing" says why.
 //   evaluate_median_us       quick evaluate() of the garden-cart demo (operating points, bank,
 //                            losses, steady thermal, checks)
@@ -62,7 +63,9 @@ int main(int argc, char** argv) {
     json missing = json::array();
     out["machine"] = {{"cpu", cpuModel()}, {"hardwareThreads", std::thread::hardware_concurrency()}};
 
-    out["evaluate_median_us"] = bench::evaluateMedian_us(d);
+    double evalCpu = 0.0;
+    out["evaluate_median_us"] = bench::evaluateMedian_us(d, 301, &evalCpu);
+    out["evaluate_median_cpu_us"] = evalCpu;
 
     {
         const auto a = Clock::now();
@@ -105,8 +108,10 @@ int main(int argc, char** argv) {
     }
 
     int threads = 0;
-    out["sweep_10k_ms"] = bench::sweep10k_ms(d, &threads);
+    double sweepCpu = 0.0;
+    out["sweep_10k_ms"] = bench::sweep10k_ms(d, &threads, &sweepCpu);
     out["sweep_threads"] = threads;
+    out["sweep_10k_cpu_ms"] = sweepCpu; // all threads together
 
     if (const auto ref = bench::referenceFigures(d)) {
         out["reference_speedup"] = ref->speedup;

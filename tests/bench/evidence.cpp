@@ -12,6 +12,7 @@
 #include <algorithm>
 #include <atomic>
 #include <chrono>
+#include <ctime>
 #include <cmath>
 #include <thread>
 #include <vector>
@@ -29,24 +30,34 @@ double median(std::vector<double> v) {
     return v.empty() ? 0.0 : v[v.size() / 2];
 }
 
+double cpuNow_us(clockid_t clock) {
+    timespec ts{};
+    clock_gettime(clock, &ts);
+    return static_cast<double>(ts.tv_sec) * 1e6 + static_cast<double>(ts.tv_nsec) * 1e-3;
+}
+
 double rel(double a, double b, double floor) { return std::abs(a - b) / std::max(std::abs(b), floor); }
 
 } // namespace
 
-double evaluateMedian_us(const Design& design, int runs) {
-    std::vector<double> t;
+double evaluateMedian_us(const Design& design, int runs, double* cpu_us) {
+    std::vector<double> t, c;
     t.reserve(static_cast<std::size_t>(runs));
     volatile double sink = 0.0;
     for (int i = 0; i < runs; ++i) {
         const auto a = Clock::now();
+        const double ca = cpuNow_us(CLOCK_THREAD_CPUTIME_ID);
         const Results r = evaluate(design);
+        c.push_back(cpuNow_us(CLOCK_THREAD_CPUTIME_ID) - ca);
         t.push_back(micros(Clock::now() - a));
         sink = sink + r.maxTotalLoss_W;
     }
+    if (cpu_us != nullptr)
+        *cpu_us = median(c);
     return median(t);
 }
 
-double sweep10k_ms(const Design& design, int* threadsUsed) {
+double sweep10k_ms(const Design& design, int* threadsUsed, double* cpu_ms) {
     Design one = design;
     if (one.dutyProfile.size() > 1)
         one.dutyProfile.resize(1);
@@ -57,6 +68,7 @@ double sweep10k_ms(const Design& design, int* threadsUsed) {
     std::atomic<int> next{0};
     std::atomic<long> solved{0};
     const auto a = Clock::now();
+    const double ca = cpuNow_us(CLOCK_PROCESS_CPUTIME_ID);
     std::vector<std::thread> pool;
     for (int t = 0; t < threads; ++t) {
         pool.emplace_back([&] {
@@ -73,6 +85,8 @@ double sweep10k_ms(const Design& design, int* threadsUsed) {
     }
     for (auto& th : pool)
         th.join();
+    if (cpu_ms != nullptr)
+        *cpu_ms = (cpuNow_us(CLOCK_PROCESS_CPUTIME_ID) - ca) / 1000.0;
     return micros(Clock::now() - a) / 1000.0;
 }
 
@@ -124,8 +138,13 @@ std::optional<ReferenceFigures> referenceFigures(const Design& d) {
         c.switchResistance_ohm = e.switchResistance_ohm;
         c.diodeDrop_V = e.diodeDrop_V;
         c.diodeResistance_ohm = e.diodeResistance_ohm;
+        // The stage's other losses draw a bus current of their own (as evaluate() charges them).
+        const double extra = std::max(0.0, p.batteryCurrent_A - p.switchAverageCurrent_A);
+        c.busLoad_A = extra;
         const reference::CycleResult r = reference::simulateChopper(c);
-        const ChopperSolution s = chopperAtDuty(e, supply, p.duty);
+        ChopperSupply engineSupply = supply;
+        engineSupply.voltage_V -= supply.resistance_ohm * extra;
+        const ChopperSolution s = chopperAtDuty(e, engineSupply, p.duty);
         if (!r.converged || !s.waveform.valid)
             continue;
         const auto& w = s.waveform;
@@ -141,7 +160,7 @@ std::optional<ReferenceFigures> referenceFigures(const Design& d) {
         if (p.motorCurrent_A > bestCurrent) {
             bestCurrent = p.motorCurrent_A;
             bestEngine = e;
-            bestSupply = supply;
+            bestSupply = engineSupply;
             bestDuty = p.duty;
             bestRef = c;
         }

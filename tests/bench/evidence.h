@@ -9,13 +9,15 @@
 
 namespace amp::bench {
 
-/// Median wall time of evaluate(design) over `runs` runs, µs.
-double evaluateMedian_us(const Design& design, int runs = 301);
+/// Median wall time of evaluate(design) over `runs` runs, µs; `cpu_us` gets the median CPU time
+/// of the thread (on a shared machine the wall time includes other jobs' load).
+double evaluateMedian_us(const Design& design, int runs = 301, double* cpu_us = nullptr);
 
 /// Wall time of 10,000 evaluations (device count 1…50 × 200 PWM frequencies from 2 to 40 kHz) of
 /// the design's first operating point alone, spread over every core with std::thread, ms.
 /// `threads` is set to the number of threads used.
-double sweep10k_ms(const Design& design, int* threads = nullptr);
+/// `cpu_ms` gets the CPU time of the whole process over the sweep.
+double sweep10k_ms(const Design& design, int* threads = nullptr, double* cpu_ms = nullptr);
 
 /// The engine's averaged chopper solve against the cycle-resolved reference on every operating
 /// point of `design`: the largest relative difference of the currents and conduction losses

@@ -10,6 +10,8 @@
 
 #include <nlohmann/json.hpp>
 
+#include "core/io/projectfile.h"
+
 #include <QtTest>
 
 #include <cmath>
@@ -28,11 +30,9 @@ using nlohmann::json;
 namespace {
 
 Design loadDemo() {
-    json j = json::parse(test::readText(test::demoDir() / "garden-cart.ampw"));
-    j.erase("formatVersion");
-    Design d = j.get<Design>();
-    normalizeBank(d.bank);
-    return d;
+    // Through the loader: the demo is a format-2 project with variants.
+    const LoadResult r = loadProject(test::demoDir() / "garden-cart.ampw");
+    return r.design ? *r.design : Design{};
 }
 
 const Check* findCheck(const Results& r, const std::string& id, Severity atLeast = Severity::Pass) {

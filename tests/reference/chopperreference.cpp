@@ -42,9 +42,9 @@ struct Model {
         }
         if (blocked)
             di = 0.0;
-        const double ibat = capacitor() ? (c.batteryVoltage_V - v) / c.batteryResistance_ohm : isw;
+        const double ibat = capacitor() ? (c.batteryVoltage_V - v) / c.batteryResistance_ohm : isw + c.busLoad_A;
         dx[I] = di;
-        dx[V] = capacitor() ? (ibat - isw) / c.busCapacitance_F : 0.0;
+        dx[V] = capacitor() ? (ibat - isw - c.busLoad_A) / c.busCapacitance_F : 0.0;
         dx[SW] = isw;
         dx[SW2] = isw * isw;
         dx[D] = id;
@@ -250,24 +250,25 @@ CycleResult simulateChopper(const CycleCircuit& circuit, const CycleOptions& opt
         CycleResult r = summarise(m, options, p);
         if (out != nullptr)
             *out = r;
-        return v - (circuit.batteryVoltage_V - circuit.batteryResistance_ohm * r.switchAverage_A);
+        return v - (circuit.batteryVoltage_V - circuit.batteryResistance_ohm * (r.switchAverage_A + circuit.busLoad_A));
     };
     double v0 = circuit.batteryVoltage_V;
     CycleResult r0;
     double g0 = residual(v0, &r0);
-    double v1 = circuit.batteryVoltage_V - circuit.batteryResistance_ohm * r0.switchAverage_A;
+    double v1 = circuit.batteryVoltage_V - circuit.batteryResistance_ohm * (r0.switchAverage_A + circuit.busLoad_A);
     CycleResult r1 = r0;
     double g1 = residual(v1, &r1);
     for (int it = 0; it < 50 && std::isfinite(g1); ++it) {
         if (std::abs(g1) <= options.tolerance * std::max(1.0, circuit.batteryVoltage_V)) {
             r1.busVoltage_V = v1;
-            r1.batteryCurrent_A = r1.switchAverage_A;
+            r1.batteryCurrent_A = r1.switchAverage_A + circuit.busLoad_A;
             r1.periodsSimulated = periods;
             return r1;
         }
         const double denom = g1 - g0;
         const double v2 = denom != 0.0 ? v1 - g1 * (v1 - v0) / denom
-                                       : circuit.batteryVoltage_V - circuit.batteryResistance_ohm * r1.switchAverage_A;
+                                       : circuit.batteryVoltage_V -
+                                             circuit.batteryResistance_ohm * (r1.switchAverage_A + circuit.busLoad_A);
         v0 = v1;
         g0 = g1;
         v1 = v2;

@@ -9,8 +9,9 @@
 //   switch on  (0 ≤ t < D·T):  L·di/dt = v_bus − V_sw0 − R_sw·i − E − R·i
 //   switch off (D·T ≤ t < T):  L·di/dt = −(V_f0 + r_d·i) − E − R·i   while the diode conducts
 //   the diode blocks at i = 0: the current never reverses (i ≥ 0; motor voltage = E then)
-//   bus, stiff (C = 0 here):   v_bus = V_bat − R_bat·⟨i_sw⟩, solved by an outer secant iteration
-//   bus, capacitor C > 0:       C·dv_bus/dt = (V_bat − v_bus)/R_bat − i_sw
+//   bus, stiff (C = 0 here):   v_bus = V_bat − R_bat·(⟨i_sw⟩ + I_x), solved by an outer secant iteration
+//   bus, capacitor C > 0:       C·dv_bus/dt = (V_bat − v_bus)/R_bat − i_sw − I_x
+//   (I_x: an optional constant extra load on the bus)
 //
 // Units SI. Step: at most T/stepsPerPeriod (default T/1000, the issue asks ≤ T/200); each phase
 // takes a whole number of steps so the switching instants fall on step boundaries, and the
@@ -36,6 +37,8 @@ struct CycleCircuit {
     double switchResistance_ohm = 0.0;  ///< R_sw of the bank
     double diodeDrop_V = 0.0;           ///< V_f0 of the freewheel path
     double diodeResistance_ohm = 0.0;   ///< r_d of the freewheel path
+    double busLoad_A = 0.0;             ///< a constant extra draw from the bus (e.g. the switching
+                                        ///< losses' power / V_bus, as the engine charges them)
 };
 
 struct CycleOptions {

@@ -197,6 +197,15 @@ void repair(Design& d) {
     if (m.plateau_V <= m.vth_V)
         m.plateau_V = std::min(spec("bank.device.mosfet.plateau_V").max, 1.5 * m.vth_V + 0.5);
 
+    // Conductor pairs do not overlap: centre spacing at least the diameter (2r); the layout
+    // fields reach 1 m, and a 1000 mm² conductor is 35.7 mm across.
+    auto& lay = d.layout;
+    if (lay.loopSpacing_m < 2.0 * lay.loopConductorRadius_m)
+        lay.loopSpacing_m = std::min(spec("layout.loopSpacing_m").max, 2.5 * lay.loopConductorRadius_m);
+    const double cableDiameter_m = 2.0 * std::sqrt(d.wiring.batteryCable_mm2 * 1e-6 / 3.141592653589793);
+    if (lay.batteryCableSpacing_m < cableDiameter_m)
+        lay.batteryCableSpacing_m = std::min(spec("layout.batteryCableSpacing_m").max, 1.5 * cableDiameter_m);
+
     d.heatsink.ambient_C = std::min(d.heatsink.ambient_C, d.bank.device.tjMax_C - 10.0);
     if (d.bank.interface.insulating && d.bank.interface.dielectricStrength_Vperm <= 0.0)
         d.bank.interface.dielectricStrength_Vperm = 20e6; // silicone pads ≈ 10–20 kV/mm (fields.cpp)
