@@ -529,7 +529,7 @@ BankSolve solveBankSimple(const Context& c, const Demand& demand) {
     b.loopGain = gain;
     b.stable = gain < 1.0;
     // Common mode when every device moves the same way in the dominant eigenvector.
-    const auto vec = eig.eigenvectors().col(dominant);
+    const Eigen::VectorXcd vec = eig.eigenvectors().col(dominant); // eigenvectors() returns a temporary: copy the column
     double largest = 0.0;
     for (std::size_t k = 0; k < n; ++k)
         largest = std::max(largest, std::abs(vec(static_cast<Eigen::Index>(k)).real()));
