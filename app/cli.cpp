@@ -169,7 +169,7 @@ int evaluateCommand(const QStringList& args) {
     const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
     if (!chosen)
         return 1;
-    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true, .bankStudies = true});
+    Results results = evaluateFull(chosen->design);
     results.variant = chosen->variant;
     if (!p.isSet(quiet))
         printSummary(results);
@@ -240,7 +240,7 @@ int sheetCommand(const QStringList& args) {
     const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
     if (!chosen)
         return 1;
-    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true, .bankStudies = true});
+    Results results = evaluateFull(chosen->design);
     results.variant = chosen->variant;
     if (!writeSheet(chosen->design, results, p.value(pdf), paperName))
         return 1;
@@ -352,7 +352,7 @@ int runHeadless(const QString& designFile, const QString& jsonOut, const QString
     if (!chosen)
         return 1;
     out("No display: evaluating " + QFileInfo(designFile).absoluteFilePath() + " headless.");
-    Results results = evaluate(chosen->design, EvaluateOptions{.thermalTransient = true, .bankStudies = true});
+    Results results = evaluateFull(chosen->design);
     results.variant = chosen->variant;
     printSummary(results);
     if (!writeJson(results, jsonOut))

@@ -25,7 +25,7 @@ namespace {
 // workbench's quick evaluation leaves out the duty-profile transient; the sheet asks for it.
 std::optional<Results> sheetResults(DesignDocument* document, QWidget* parent) {
     if (document->results()) {
-        Results r = evaluate(document->design(), EvaluateOptions{.thermalTransient = true});
+        Results r = evaluateFull(document->design());
         if (document->variantNames().size() > 1)
             r.variant = document->activeVariantName().toStdString();
         return r;

@@ -303,7 +303,7 @@ Design demo() {
 }
 
 // Everything evaluate() can compute, transient and life included.
-Results evaluateAll(const Design& d) { return evaluate(d, EvaluateOptions{.thermalTransient = true}); }
+Results evaluateAll(const Design& d) { return evaluateFull(d); }
 
 // The checks that only the duty-profile transient emits; the other trips are evaluated without it
 // (it costs most of the time of an evaluation).

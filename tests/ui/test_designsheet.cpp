@@ -91,7 +91,7 @@ QString sheetNumber(double v, units::Unit u) {
 QString q(const std::string& s) { return QString::fromStdString(s); }
 
 // What the command line and the printed sheet compute: everything, the transient included.
-Results evaluateAll(const Design& d) { return evaluate(d, EvaluateOptions{.thermalTransient = true}); }
+Results evaluateAll(const Design& d) { return evaluateFull(d); }
 
 } // namespace
 
