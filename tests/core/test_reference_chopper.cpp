@@ -294,8 +294,12 @@ class TestReferenceChopper : public QObject {
                                                 d.wiring.cableTemperature_C) +
                     (d.reversing.present ? 2.0 * d.reversing.contactor.contactResistance_ohm : 0.0);
                 c.backEmf_V = p.backEmf_V;
-                if (d.bank.device.kind != "mosfet")
-                    QSKIP("bipolar demo banks need the bipolar on-state model here (not yet written)");
+                if (d.bank.device.kind != "mosfet") {
+                    // A bipolar bank's on-state is not a resistance: this reference has no model of
+                    // it, so those demos are left out here (the MOSFET demos are still compared).
+                    qInfo("%s: bipolar bank, not compared", where.c_str());
+                    continue;
+                }
                 double g = 0.0;
                 for (std::size_t k = 0; k < p.devices.size(); ++k) {
                     const auto& dev = d.bank.devices[k];
