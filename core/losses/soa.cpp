@@ -29,24 +29,37 @@ double soaLimit(const std::vector<SoaPoint>& curve, double voltage_V, double vol
 
 SoaResult checkStress(const SoaInput& in) {
     SoaResult r;
+    // The field-by-field messages are built only when a value is off: this runs inside the
+    // engine's thermal iterations.
+    auto positive = [](double v) { return std::isfinite(v) && v > 0.0; };
+    auto nonNegative = [](double v) { return std::isfinite(v) && v >= 0.0; };
+    bool plausible = positive(in.voltageRating_V) && nonNegative(in.leadLimit_A) && nonNegative(in.rmsCurrent_A) &&
+                     nonNegative(in.shortCircuitTime_s) && nonNegative(in.protectionResponse_s);
+    for (const SoaPoint& p : in.soa)
+        plausible = plausible && positive(p.voltage_V) && positive(p.current_A) && nonNegative(p.pulse_s);
+    for (const StressPoint& p : in.points)
+        plausible = plausible && nonNegative(p.voltage_V) && nonNegative(p.current_A) && nonNegative(p.duration_s);
     InputCheck c;
-    c.positive("voltageRating_V", in.voltageRating_V, "the voltage rating");
-    for (std::size_t k = 0; k < in.soa.size(); ++k) {
+    if (!plausible)
+        c.positive("voltageRating_V", in.voltageRating_V, "the voltage rating");
+    for (std::size_t k = 0; k < in.soa.size() && !plausible; ++k) {
         const std::string at = "soa[" + std::to_string(k) + "]";
         c.positive(at + ".voltage_V", in.soa[k].voltage_V, "the SOA point's voltage");
         c.positive(at + ".current_A", in.soa[k].current_A, "the SOA point's current");
         c.nonNegative(at + ".pulse_s", in.soa[k].pulse_s, "the SOA point's pulse length");
     }
-    for (std::size_t k = 0; k < in.points.size(); ++k) {
+    for (std::size_t k = 0; k < in.points.size() && !plausible; ++k) {
         const std::string at = "points[" + std::to_string(k) + "]";
         c.nonNegative(at + ".voltage_V", in.points[k].voltage_V, "the operating voltage");
         c.nonNegative(at + ".current_A", in.points[k].current_A, "the operating current");
         c.nonNegative(at + ".duration_s", in.points[k].duration_s, "the operating duration");
     }
-    c.nonNegative("leadLimit_A", in.leadLimit_A, "the package lead limit");
-    c.nonNegative("rmsCurrent_A", in.rmsCurrent_A, "the device RMS current");
-    c.nonNegative("shortCircuitTime_s", in.shortCircuitTime_s, "the short-circuit withstand time");
-    c.nonNegative("protectionResponse_s", in.protectionResponse_s, "the protection response time");
+    if (!plausible) {
+        c.nonNegative("leadLimit_A", in.leadLimit_A, "the package lead limit");
+        c.nonNegative("rmsCurrent_A", in.rmsCurrent_A, "the device RMS current");
+        c.nonNegative("shortCircuitTime_s", in.shortCircuitTime_s, "the short-circuit withstand time");
+        c.nonNegative("protectionResponse_s", in.protectionResponse_s, "the protection response time");
+    }
     if (!c.ok()) {
         r.problems = c.take();
         return r;

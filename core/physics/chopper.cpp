@@ -90,9 +90,9 @@ PhaseIntegrals integrate(const Phase& p) {
     double phi1 = 0.0, phi2 = 0.0, a = 0.0, b = 0.0, cc = 0.0;
     double term = 1.0; // (−x)^m
     double f1 = 1.0;   // (m+1)!
-    for (int m = 0; m < 8; ++m) {
+    double two = 1.0;  // 2^m
+    for (int m = 0; m < 8; ++m, two *= 2.0) {
         const double f2 = f1 * (m + 2), f3 = f2 * (m + 3);
-        const double two = std::ldexp(1.0, m); // 2^m
         phi1 += term / f1;
         phi2 += two * term / f1;
         a += term / f2;
