@@ -345,7 +345,9 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         li.otherTj_C = otherTj_C;
         li.diodeTj_C = tjDiode_C;
         e.losses = computeLossPoint(c.losses, d, li);
-        if (e.losses.computesConduction) { // synchronous topologies: the stage has every bank's conduction
+        // Synchronous topologies: the stage has every bank's conduction (none when it could not
+        // compute the point, e.g. with no bus voltage left).
+        if (e.losses.computesConduction && !e.losses.banks.empty()) {
             for (std::size_t k = 0; k < n && k < e.losses.banks.front().size(); ++k)
                 e.conduction_W[k] = e.losses.banks.front()[k].conduction_W;
             e.diodeLoss_W = 0.0;
@@ -757,9 +759,10 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             f[i] = (g[i] - y[i]) / scale[i];
             fmax = std::max(fmax, std::abs(f[i]));
         }
-        // Settled (relative 1e-6: the bank's losses then balance the chopper's energy to well below
-        // 1e-6 of the input power); the first round's waveform came from the simple model, not y.
-        if (round > 0 && fmax <= 1e-6) {
+        // Settled (relative 1e-9: the bank's losses then balance the chopper's energy to well below
+        // 1e-6 of the input power, also for large bipolar banks where 1e-6 left 1e-5); the first
+        // round's waveform came from the simple model, not y.
+        if (round > 0 && fmax <= 1e-9) {
             settled = true;
             break;
         }
