@@ -8,6 +8,7 @@
 
 #include "core/bank/banksolver.h"
 #include "core/bank/thermalnetwork.h"
+#include "core/checks/makecheck.h"
 #include "core/physics/bank_sharing.h"
 #include "core/physics/bipolar_on_state.h"
 #include "core/physics/chopper.h"
@@ -876,22 +877,6 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
 
 // ---------------------------------------------------------------------------------------------
 // Checks
-
-Check makeCheck(std::string id, Severity severity, double value, double limit, std::string unit, std::string source,
-                std::string message, std::string fix, std::string field, std::string point) {
-    Check c;
-    c.id = std::move(id);
-    c.severity = severity;
-    c.value = value;
-    c.limit = limit;
-    c.unit = std::move(unit);
-    c.source = std::move(source);
-    c.message = std::move(message);
-    c.fix = std::move(fix);
-    c.field = std::move(field);
-    c.operatingPoint = std::move(point);
-    return c;
-}
 
 void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t index, std::vector<Check>& out) {
     const std::string& name = op.name;

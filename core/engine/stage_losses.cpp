@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/stage_losses.h"
 
+#include "core/checks/makecheck.h"
 #include "core/losses/busrise.h"
 #include "core/losses/capacitors.h"
 #include "core/losses/diode.h"
@@ -27,21 +28,6 @@ namespace {
 using losses::Topology;
 
 std::string num(double v, int digits = 3) { return fmt::format("{:.{}g}", v, digits); }
-
-Check makeCheck(std::string id, Severity severity, double value, double limit, std::string unit, std::string source,
-                std::string message, std::string fix, std::string field) {
-    Check c;
-    c.id = std::move(id);
-    c.severity = severity;
-    c.value = value;
-    c.limit = limit;
-    c.unit = std::move(unit);
-    c.source = std::move(source);
-    c.message = std::move(message);
-    c.fix = std::move(fix);
-    c.field = std::move(field);
-    return c;
-}
 
 Topology modelTopology(StageTopology t) {
     switch (t) {
