@@ -275,6 +275,34 @@ struct Electrical {
     double busExtra_A = 0.0;            // the bus current they draw (V_bus·I = their power)
 };
 
+// The motor circuit the chopper drives, with the bank's on-state drop and resistance and the
+// freewheel diode's threshold.
+ChopperCircuit chopperCircuit(const Context& c, const Demand& demand, double switchDrop_V,
+                              double switchResistance_ohm, double diodeDrop_V) {
+    const Design& d = *c.design;
+    ChopperCircuit circuit;
+    circuit.frequency_Hz = d.pwm.frequency_Hz;
+    circuit.inductance_H = d.motor.inductance_H;
+    circuit.loadResistance_ohm = c.motorBranch_ohm;
+    circuit.backEmf_V = demand.emf_V;
+    circuit.switchDrop_V = switchDrop_V;
+    circuit.switchResistance_ohm = switchResistance_ohm;
+    circuit.diodeDrop_V = diodeDrop_V;
+    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    return circuit;
+}
+
+// The chopper at the demand, by what the demand holds.
+ChopperSolution solveChopper(const ChopperCircuit& circuit, const ChopperSupply& supply, const Demand& demand,
+                             double maxDuty) {
+    switch (demand.hold) {
+    case Hold::CurrentAtEmf: return chopperForCurrent(circuit, supply, demand.current_A, maxDuty);
+    case Hold::CurrentAtDuty: return chopperEmfForCurrent(circuit, supply, demand.duty, demand.current_A);
+    case Hold::DutyAtEmf: return chopperAtDuty(circuit, supply, demand.duty);
+    }
+    return {};
+}
+
 Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C,
                            const std::vector<double>& otherTj_C, double busExtra_A) {
     const Design& d = *c.design;
@@ -292,15 +320,8 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
     e.switchDrop_V = c.mosfet ? 0.0 : c.bipolar.drop_V;
     e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
 
-    ChopperCircuit circuit;
-    circuit.frequency_Hz = d.pwm.frequency_Hz;
-    circuit.inductance_H = d.motor.inductance_H;
-    circuit.loadResistance_ohm = c.motorBranch_ohm;
-    circuit.backEmf_V = demand.emf_V;
-    circuit.switchDrop_V = e.switchDrop_V;
-    circuit.switchResistance_ohm = e.sharing.resistance_ohm;
-    circuit.diodeDrop_V = e.diodeThreshold_V;
-    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    ChopperCircuit circuit =
+        chopperCircuit(c, demand, e.switchDrop_V, e.sharing.resistance_ohm, e.diodeThreshold_V);
     adaptStandIn(c.losses, d, e.sharing.resistance_ohm, e.switchDrop_V,
                  tj_C.empty() ? d.heatsink.ambient_C : *std::max_element(tj_C.begin(), tj_C.end()), circuit);
     // The stage's losses draw their bus current from the battery too: V_bus = V − R·(I_sw + I_x).
@@ -310,17 +331,7 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         ChopperSupply supply = c.supply;
         supply.voltage_V -= supply.resistance_ohm * extra;
         e.busExtraUsed_A = extra;
-        switch (demand.hold) {
-        case Hold::CurrentAtEmf:
-            e.chopper = chopperForCurrent(circuit, supply, demand.current_A, d.pwm.maxDuty);
-            break;
-        case Hold::CurrentAtDuty:
-            e.chopper = chopperEmfForCurrent(circuit, supply, demand.duty, demand.current_A);
-            break;
-        case Hold::DutyAtEmf:
-            e.chopper = chopperAtDuty(circuit, supply, demand.duty);
-            break;
-        }
+        e.chopper = solveChopper(circuit, supply, demand, d.pwm.maxDuty);
         const auto& w = e.chopper.waveform;
         e.conduction_W.resize(n);
         for (std::size_t k = 0; k < n; ++k) {
@@ -612,29 +623,11 @@ Electrical chopperWithBank(const Context& c, const Demand& demand, double drop_V
     e.device_ohm = deviceResistance_ohm;
     e.conduction_W.assign(n, 0.0); // the network's, not the stand-in's
     e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
-    ChopperCircuit circuit;
-    circuit.frequency_Hz = d.pwm.frequency_Hz;
-    circuit.inductance_H = d.motor.inductance_H;
-    circuit.loadResistance_ohm = c.motorBranch_ohm;
-    circuit.backEmf_V = demand.emf_V;
-    circuit.switchDrop_V = drop_V;
-    circuit.switchResistance_ohm = resistance_ohm;
-    circuit.diodeDrop_V = e.diodeThreshold_V;
-    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    const ChopperCircuit circuit = chopperCircuit(c, demand, drop_V, resistance_ohm, e.diodeThreshold_V);
     ChopperSupply supply = c.supply;
     supply.voltage_V -= supply.resistance_ohm * busExtra_A;
     e.busExtraUsed_A = busExtra_A;
-    switch (demand.hold) {
-    case Hold::CurrentAtEmf:
-        e.chopper = chopperForCurrent(circuit, supply, demand.current_A, d.pwm.maxDuty);
-        break;
-    case Hold::CurrentAtDuty:
-        e.chopper = chopperEmfForCurrent(circuit, supply, demand.duty, demand.current_A);
-        break;
-    case Hold::DutyAtEmf:
-        e.chopper = chopperAtDuty(circuit, supply, demand.duty);
-        break;
-    }
+    e.chopper = solveChopper(circuit, supply, demand, d.pwm.maxDuty);
     const auto& w = e.chopper.waveform;
     e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
     LossPointInput li;
