@@ -885,46 +885,44 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
     return lp;
 }
 
+namespace {
+
+// The loss stage's figures of one device into its result; the conduction figures only when the
+// stage computed them (else the chopper's stay).
+void takeLosses(const DeviceLoss& dl, bool withConduction, DeviceResult& dv) {
+    dv.bank = dl.bank;
+    if (withConduction) {
+        dv.current_A = dl.current_A;
+        dv.averageCurrent_A = dl.averageCurrent_A;
+        dv.rmsCurrent_A = dl.rmsCurrent_A;
+        dv.conduction_W = dl.conduction_W;
+        dv.ballast_W = dl.ballast_W;
+        dv.leg_W = dl.leg_W;
+    }
+    dv.switching_W = dl.switching_W;
+    dv.diode_W = dl.diode_W;
+    dv.drive_W = dl.drive_W;
+    dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
+}
+
+} // namespace
+
 void recordLossPoint(const LossPoint& lp, const std::vector<double>& otherTj_C, const std::vector<double>& otherTcase_C,
                      OperatingPointResult& op, std::vector<Check>& checks) {
     if (!lp.banks.empty()) {
         const auto& main = lp.banks.front();
         for (std::size_t k = 0; k < op.devices.size() && k < main.size(); ++k) {
-            DeviceResult& dv = op.devices[k];
-            const DeviceLoss& dl = main[k];
-            dv.bank = dl.bank;
-            if (lp.computesConduction) {
-                dv.current_A = dl.current_A;
-                dv.averageCurrent_A = dl.averageCurrent_A;
-                dv.rmsCurrent_A = dl.rmsCurrent_A;
-                dv.conduction_W = dl.conduction_W;
-                dv.ballast_W = dl.ballast_W;
-                dv.leg_W = dl.leg_W;
-            }
-            dv.switching_W = dl.switching_W;
-            dv.diode_W = dl.diode_W;
-            dv.drive_W = dl.drive_W;
-            dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
+            takeLosses(main[k], lp.computesConduction, op.devices[k]);
         }
         const DeviceResult proto = op.devices.empty() ? DeviceResult{} : op.devices.front();
         std::size_t at = 0; // index into the other banks' temperatures, device by device
         for (std::size_t b = 1; b < lp.banks.size(); ++b) {
             for (const DeviceLoss& dl : lp.banks[b]) {
                 DeviceResult dv;
-                dv.bank = dl.bank;
+                takeLosses(dl, true, dv);
                 dv.share = dl.share;
-                dv.current_A = dl.current_A;
-                dv.averageCurrent_A = dl.averageCurrent_A;
-                dv.rmsCurrent_A = dl.rmsCurrent_A;
                 dv.ratingShare = proto.current_A > 0.0 ? proto.ratingShare * dl.current_A / proto.current_A : 0.0;
                 dv.voltage_V = proto.current_A > 0.0 ? proto.voltage_V * dl.current_A / proto.current_A : 0.0;
-                dv.conduction_W = dl.conduction_W;
-                dv.ballast_W = dl.ballast_W;
-                dv.leg_W = dl.leg_W;
-                dv.switching_W = dl.switching_W;
-                dv.diode_W = dl.diode_W;
-                dv.drive_W = dl.drive_W;
-                dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
                 dv.tj_C = at < otherTj_C.size() ? otherTj_C[at] : proto.tj_C;
                 dv.tcase_C = at < otherTcase_C.size() ? otherTcase_C[at] : proto.tcase_C;
                 ++at;
