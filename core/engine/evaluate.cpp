@@ -303,6 +303,24 @@ ChopperSolution solveChopper(const ChopperCircuit& circuit, const ChopperSupply&
     return {};
 }
 
+// The loss stage's input at a chopper solution: its bus voltage and waveform, the bank's fixed
+// resistors and the freewheel diode's junction; the caller adds the devices' drop, shares,
+// resistances and junctions.
+LossPointInput lossInputAt(const Context& c, const ChopperSolution& chopper, double tjDiode_C) {
+    const auto& w = chopper.waveform;
+    LossPointInput li;
+    li.busVoltage_V = chopper.busVoltage_V;
+    li.motorCurrent_A = w.motorAverage_A;
+    li.duty = w.duty;
+    li.minCurrent_A = w.iMin_A;
+    li.maxCurrent_A = w.iMax_A;
+    li.capacitorRms_A = w.capacitorRms_A;
+    li.ballast_ohm = c.ballast_ohm;
+    li.leg_ohm = c.leg_ohm;
+    li.diodeTj_C = tjDiode_C;
+    return li;
+}
+
 Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C,
                            const std::vector<double>& otherTj_C, double busExtra_A) {
     const Design& d = *c.design;
@@ -341,21 +359,12 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         }
         e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
 
-        LossPointInput li;
-        li.busVoltage_V = e.chopper.busVoltage_V;
-        li.motorCurrent_A = w.motorAverage_A;
-        li.duty = w.duty;
-        li.minCurrent_A = w.iMin_A;
-        li.maxCurrent_A = w.iMax_A;
-        li.capacitorRms_A = w.capacitorRms_A;
+        LossPointInput li = lossInputAt(c, e.chopper, tjDiode_C);
         li.onDrop_V = e.switchDrop_V;
         li.share = e.sharing.share;
         li.resistance_ohm = e.device_ohm;
-        li.ballast_ohm = c.ballast_ohm;
-        li.leg_ohm = c.leg_ohm;
         li.tj_C = tj_C;
         li.otherTj_C = otherTj_C;
-        li.diodeTj_C = tjDiode_C;
         e.losses = computeLossPoint(c.losses, d, li);
         if (e.losses.computesConduction) { // synchronous topologies: the stage has every bank's conduction
             for (std::size_t k = 0; k < n && k < e.losses.banks.front().size(); ++k)
@@ -630,20 +639,11 @@ Electrical chopperWithBank(const Context& c, const Demand& demand, double drop_V
     e.chopper = solveChopper(circuit, supply, demand, d.pwm.maxDuty);
     const auto& w = e.chopper.waveform;
     e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
-    LossPointInput li;
-    li.busVoltage_V = e.chopper.busVoltage_V;
-    li.motorCurrent_A = w.motorAverage_A;
-    li.duty = w.duty;
-    li.minCurrent_A = w.iMin_A;
-    li.maxCurrent_A = w.iMax_A;
-    li.capacitorRms_A = w.capacitorRms_A;
+    LossPointInput li = lossInputAt(c, e.chopper, tjDiode_C);
     li.onDrop_V = 0.0; // the network's drop is all in the device resistances V/I
     li.share = share;
     li.resistance_ohm = deviceResistance_ohm;
-    li.ballast_ohm = c.ballast_ohm;
-    li.leg_ohm = c.leg_ohm;
     li.tj_C = tj_C;
-    li.diodeTj_C = tjDiode_C;
     e.losses = computeLossPoint(c.losses, d, li);
     e.busExtra_A = e.busExtraUsed_A;
     return e;
