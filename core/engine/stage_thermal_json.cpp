@@ -1,11 +1,11 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/stage_thermal.h"
 
+#include "core/engine/resultsjson_numbers.h"
+
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
-#include <spdlog/spdlog.h>
 
-#include <cmath>
 #include <string>
 #include <string_view>
 
@@ -15,24 +15,9 @@ namespace {
 
 using nlohmann::json;
 
-// Non-finite numbers never reach the file (as in results_json.cpp).
-json number(double v, std::string_view where) {
-    if (std::isfinite(v))
-        return v;
-    spdlog::warn("results JSON: non-finite value at {} written as null", where);
-    return nullptr;
-}
-
-json number(const std::optional<double>& v, std::string_view where) {
-    return v ? number(*v, where) : json(nullptr);
-}
-
-json series(const std::vector<double>& v, std::string_view where) {
-    json a = json::array();
-    for (double x : v)
-        a.push_back(number(x, where));
-    return a;
-}
+// Non-finite numbers never reach the file (null and a warning, as everywhere in the results).
+using resultsjson::number;
+using resultsjson::series;
 
 // Writes the numbers of one object of the file under their keys; a non-finite one is named
 // "<section>.<key>" in the warning.
@@ -42,9 +27,11 @@ class Fields {
 
     template <class Number>
     void number(const char* key, const Number& v) {
-        m_j[key] = amp::number(v, where(key));
+        m_j[key] = resultsjson::number(v, where(key));
     }
-    void series(const char* key, const std::vector<double>& v) { m_j[key] = amp::series(v, where(key)); }
+    void series(const char* key, const std::vector<double>& v) {
+        m_j[key] = resultsjson::series(v, where(key));
+    }
 
   private:
     std::string where(const char* key) const { return fmt::format("{}.{}", m_section, key); }
