@@ -101,6 +101,27 @@ std::optional<Chosen> loadWithOverrides(const QString& file, const QStringList& 
     return Chosen{*changed.design, chosen->name};
 }
 
+// The full evaluation of a chosen design, its results labelled with the variant.
+Results evaluateChosen(const Chosen& chosen) {
+    Results results = evaluateFull(chosen.design);
+    results.variant = chosen.variant;
+    return results;
+}
+
+// Parse a command's own arguments. An exit status when the command is done already (2 after a
+// bad command line, 0 after printing its help); nothing when it should go on.
+std::optional<int> parseArguments(QCommandLineParser& p, const QStringList& args) {
+    if (!p.parse(args)) {
+        err(p.errorText());
+        return 2;
+    }
+    if (p.isSet("help")) {
+        out(p.helpText());
+        return 0;
+    }
+    return std::nullopt;
+}
+
 void printSummary(const Results& r) {
     out(QString("%1%2  [%3]")
             .arg(QString::fromStdString(r.design),
@@ -153,14 +174,8 @@ int evaluateCommand(const QStringList& args) {
     QCommandLineOption quiet("quiet", "Print nothing but errors.");
     QCommandLineOption verbose("verbose", "Log details to the console.");
     p.addOptions({json, set, variant, quiet, verbose});
-    if (!p.parse(args)) {
-        err(p.errorText());
-        return 2;
-    }
-    if (p.isSet("help")) {
-        out(p.helpText());
-        return 0;
-    }
+    if (const auto done = parseArguments(p, args))
+        return *done;
     const QStringList pos = p.positionalArguments();
     if (pos.size() != 2) {
         err("evaluate needs exactly one design file (see ampwright evaluate --help)");
@@ -169,8 +184,7 @@ int evaluateCommand(const QStringList& args) {
     const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
     if (!chosen)
         return 1;
-    Results results = evaluateFull(chosen->design);
-    results.variant = chosen->variant;
+    const Results results = evaluateChosen(*chosen);
     if (!p.isSet(quiet))
         printSummary(results);
     if (p.isSet(json)) {
@@ -219,14 +233,8 @@ int sheetCommand(const QStringList& args) {
     QCommandLineOption quiet("quiet", "Print nothing but errors.");
     QCommandLineOption verbose("verbose", "Log details to the console.");
     p.addOptions({pdf, paper, set, variant, quiet, verbose});
-    if (!p.parse(args)) {
-        err(p.errorText());
-        return 2;
-    }
-    if (p.isSet("help")) {
-        out(p.helpText());
-        return 0;
-    }
+    if (const auto done = parseArguments(p, args))
+        return *done;
     const QStringList pos = p.positionalArguments();
     if (pos.size() != 2 || !p.isSet(pdf)) {
         err("sheet needs one design file and --pdf OUT.pdf (see ampwright sheet --help)");
@@ -240,8 +248,7 @@ int sheetCommand(const QStringList& args) {
     const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
     if (!chosen)
         return 1;
-    Results results = evaluateFull(chosen->design);
-    results.variant = chosen->variant;
+    const Results results = evaluateChosen(*chosen);
     if (!writeSheet(chosen->design, results, p.value(pdf), paperName))
         return 1;
     if (!p.isSet(quiet))
@@ -266,14 +273,8 @@ int partsCommand(const QStringList& args) {
     p.addPositionalArgument("parts", "The command.");
     QCommandLineOption user("user", "Read user parts from <folder> instead of the default.", "folder");
     p.addOption(user);
-    if (!p.parse(args)) {
-        err(p.errorText());
-        return 2;
-    }
-    if (p.isSet("help")) {
-        out(p.helpText());
-        return 0;
-    }
+    if (const auto done = parseArguments(p, args))
+        return *done;
     const QString userDir = p.isSet(user) ? p.value(user)
                                           : QStandardPaths::writableLocation(QStandardPaths::AppDataLocation) +
                                                 "/parts";
@@ -352,8 +353,7 @@ int runHeadless(const QString& designFile, const QString& jsonOut, const QString
     if (!chosen)
         return 1;
     out("No display: evaluating " + QFileInfo(designFile).absoluteFilePath() + " headless.");
-    Results results = evaluateFull(chosen->design);
-    results.variant = chosen->variant;
+    const Results results = evaluateChosen(*chosen);
     printSummary(results);
     if (!writeJson(results, jsonOut))
         return 1;

@@ -305,11 +305,9 @@ QString ChartPanel::structureKey() const {
     return k.join(QChar(0x1f));
 }
 
-void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) {
-    const int rows = m_data.rowsOf(m_viewIndex);
-    auto* xAxis = new QBarCategoryAxis;
-    xAxis->append(m_data.categories.mid(0, rows));
-    xAxis->setTitleText(m_data.xName);
+// The value axis of the view, both axes added to the chart and styled, and the record of what is
+// drawn started afresh (no series yet).
+QValueAxis* ChartPanel::bindAxes(QChart* chart, QAbstractAxis* xAxis) {
     auto* yAxis = new QValueAxis;
     yAxis->setLabelFormat(QStringLiteral("%g"));
     const int view = std::min<int>(m_viewIndex, static_cast<int>(m_data.yTitles.size()) - 1);
@@ -319,12 +317,21 @@ void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) 
     chart->addAxis(yAxis, Qt::AlignLeft);
     chartstyle::styleAxis(xAxis);
     chartstyle::styleAxis(yAxis);
-    xAxis->setGridLineVisible(false);
     m_bound.x = xAxis;
     m_bound.y = yAxis;
     m_bound.stackSets.assign(m_data.columns.size(), nullptr);
     m_bound.rowSets.assign(m_data.columns.size(), {});
     m_bound.lines.assign(m_data.columns.size(), nullptr);
+    return yAxis;
+}
+
+void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) {
+    const int rows = m_data.rowsOf(m_viewIndex);
+    auto* xAxis = new QBarCategoryAxis;
+    xAxis->append(m_data.categories.mid(0, rows));
+    xAxis->setTitleText(m_data.xName);
+    QValueAxis* yAxis = bindAxes(chart, xAxis);
+    xAxis->setGridLineVisible(false);
 
     // Stacked layers: one set per quantity, in one series. Layers that are zero everywhere are
     // left out of the drawing (and the legend); the CSV keeps them.
@@ -424,20 +431,7 @@ void ChartPanel::buildNumeric(QChart* chart, const std::vector<int>& shown) {
         xAxis = axis;
     }
     xAxis->setTitleText(xTitle);
-    auto* yAxis = new QValueAxis;
-    yAxis->setLabelFormat(QStringLiteral("%g"));
-    const int view = std::min<int>(m_viewIndex, static_cast<int>(m_data.yTitles.size()) - 1);
-    if (view >= 0)
-        yAxis->setTitleText(m_data.yTitles[static_cast<std::size_t>(view)]);
-    chart->addAxis(xAxis, Qt::AlignBottom);
-    chart->addAxis(yAxis, Qt::AlignLeft);
-    chartstyle::styleAxis(xAxis);
-    chartstyle::styleAxis(yAxis);
-    m_bound.x = xAxis;
-    m_bound.y = yAxis;
-    m_bound.stackSets.assign(m_data.columns.size(), nullptr);
-    m_bound.rowSets.assign(m_data.columns.size(), {});
-    m_bound.lines.assign(m_data.columns.size(), nullptr);
+    QValueAxis* yAxis = bindAxes(chart, xAxis);
 
     const int rows = m_data.rowCount();
     const bool dots = rows <= 40;

@@ -65,6 +65,7 @@ class ChartPanel : public QWidget {
 
   private:
     void rebuild();
+    QValueAxis* bindAxes(QChart* chart, QAbstractAxis* xAxis);
     void buildCategorical(QChart* chart, const std::vector<int>& shown);
     void buildNumeric(QChart* chart, const std::vector<int>& shown);
     void fill(); ///< the table's values into the series drawn, and the axes' ranges

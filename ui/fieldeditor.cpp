@@ -2,6 +2,7 @@
 #include "ui/fieldeditor.h"
 
 #include "ui/designdocument.h"
+#include "ui/errorlabel.h"
 #include "ui/palette.h"
 
 #include <nlohmann/json.hpp>
@@ -63,17 +64,10 @@ FieldEditor::FieldEditor(DesignDocument* document, const FieldSpec& spec, QWidge
         break;
     }
 
-    m_error = new QLabel(this);
-    m_error->setObjectName(QStringLiteral("fieldError"));
-    m_error->setWordWrap(true);
-    m_error->setTextFormat(Qt::PlainText);
-    QPalette pal = m_error->palette();
-    pal.setColor(QPalette::WindowText, colours::errorText());
-    m_error->setPalette(pal);
+    m_error = makeErrorLabel(QStringLiteral("fieldError"), this);
     QFont small = m_error->font();
     small.setPointSizeF(small.pointSizeF() * 0.9);
     m_error->setFont(small);
-    m_error->hide();
     layout->addWidget(m_error);
 
     const QString tip = tooltipFor(spec);

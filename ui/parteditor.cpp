@@ -6,6 +6,7 @@
 #include "core/model/fields.h"
 #include "core/units/units.h"
 #include "ui/designdocument.h"
+#include "ui/errorlabel.h"
 #include "ui/fieldeditor.h"
 #include "ui/palette.h"
 #include "ui/partpicker.h"
@@ -149,14 +150,7 @@ PartEditorDialog::PartEditorDialog(const QString& kind, const nlohmann::json& st
     scroll->setWidget(body);
     outer->addWidget(scroll, 1);
 
-    m_problems = new QLabel(this);
-    m_problems->setObjectName(QStringLiteral("partProblems"));
-    m_problems->setWordWrap(true);
-    m_problems->setTextFormat(Qt::PlainText);
-    QPalette pal = m_problems->palette();
-    pal.setColor(QPalette::WindowText, colours::errorText());
-    m_problems->setPalette(pal);
-    m_problems->hide();
+    m_problems = makeErrorLabel(QStringLiteral("partProblems"), this);
     outer->addWidget(m_problems);
 
     auto* buttons = new QDialogButtonBox(QDialogButtonBox::Save | QDialogButtonBox::Cancel, this);

@@ -4,6 +4,7 @@
 #include "core/model/design_json.h"
 #include "core/model/fields.h"
 #include "ui/designdocument.h"
+#include "ui/errorlabel.h"
 #include "ui/fieldeditor.h"
 #include "ui/format.h"
 #include "ui/palette.h"
@@ -294,14 +295,7 @@ ProfileEditor::ProfileEditor(DesignDocument* document, QWidget* parent) : QWidge
     connect(m_up, &QPushButton::clicked, this, [this] { moveSegment(currentRow(), -1); });
     connect(m_down, &QPushButton::clicked, this, [this] { moveSegment(currentRow(), +1); });
 
-    m_error = new QLabel(this);
-    m_error->setObjectName(QStringLiteral("fieldError"));
-    m_error->setWordWrap(true);
-    m_error->setTextFormat(Qt::PlainText);
-    QPalette pal = m_error->palette();
-    pal.setColor(QPalette::WindowText, colours::errorText());
-    m_error->setPalette(pal);
-    m_error->hide();
+    m_error = makeErrorLabel(QStringLiteral("fieldError"), this);
     column->addWidget(m_error);
 
     m_preview = new ProfilePreview(this);

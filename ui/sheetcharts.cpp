@@ -83,6 +83,23 @@ void drawValueAxis(QPainter& p, const QRectF& plot, const Axis& a, const QString
     p.drawLine(plot.bottomLeft(), plot.topLeft());
 }
 
+/// A horizontal value axis along the bottom of `plot`: a grid line in `grid` and a tick label at
+/// each step, and `title` centred on the baseline `titleBaseline_y`. Leaves the tick font set.
+void drawHorizontalAxis(QPainter& p, const QRectF& plot, const Axis& a, const QString& title,
+                        double titleBaseline_y, const QColor& grid, double pt) {
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF fs(p.font(), p.device());
+    for (double v = a.lo; v <= a.hi + a.step * 1e-6; v += a.step) {
+        const double x = a.x(plot, v);
+        p.setPen(QPen(grid, 0.4 * pt));
+        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
+        p.setPen(QColor("#333333"));
+        const QString t = tickText(v);
+        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
+    }
+    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(title) / 2, titleBaseline_y), title);
+}
+
 /// Legend in a row: coloured squares with names, from `at`; returns the height used.
 double drawLegend(QPainter& p, QPointF at, double width, const QStringList& names, const std::vector<QColor>& colours,
                   double pt) {
@@ -251,18 +268,7 @@ void drawLossChart(QPainter& p, const QRectF& r, double pt, const QStringList& c
                       r.height() - legend - 8.0 * pt - 2.0 * fm.height() - 8.0 * pt);
     const Axis a = makeAxis(0.0, total > 0.0 ? total : 1.0, 6);
     // Grid and ticks along x.
-    p.setFont(chartFont(6.5));
-    const QFontMetricsF fs(p.font(), p.device());
-    for (double v = a.lo; v <= a.hi + a.step * 1e-6; v += a.step) {
-        const double x = a.x(plot, v);
-        p.setPen(QPen(QColor("#d8d8d8"), 0.4 * pt));
-        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
-        p.setPen(QColor("#333333"));
-        const QString t = tickText(v);
-        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
-    }
-    const QString axisTitle = QStringLiteral("loss, W");
-    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(axisTitle) / 2, r.bottom() - 1.0 * pt), axisTitle);
+    drawHorizontalAxis(p, plot, a, QStringLiteral("loss, W"), r.bottom() - 1.0 * pt, QColor("#d8d8d8"), pt);
     p.setPen(QPen(QColor("#555555"), 0.6 * pt));
     p.drawLine(plot.bottomLeft(), plot.topLeft());
 
@@ -316,18 +322,8 @@ void drawTimeSeries(QPainter& p, const QRectF& r, double pt, const std::vector<d
     const double t0 = time_s.empty() ? 0.0 : time_s.front();
     const double t1 = time_s.empty() ? 1.0 : time_s.back();
     const Axis xa = makeAxis(t0, t1 > t0 ? t1 : t0 + 1.0, 8);
-    p.setFont(chartFont(6.5));
+    drawHorizontalAxis(p, plot, xa, QStringLiteral("time, s"), r.bottom() - 1.0 * pt, QColor("#e4e4e4"), pt);
     const QFontMetricsF fs(p.font(), p.device());
-    for (double v = xa.lo; v <= xa.hi + xa.step * 1e-6; v += xa.step) {
-        const double x = xa.x(plot, v);
-        p.setPen(QPen(QColor("#e4e4e4"), 0.4 * pt));
-        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
-        p.setPen(QColor("#333333"));
-        const QString t = tickText(v);
-        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
-    }
-    const QString axisTitle = QStringLiteral("time, s");
-    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(axisTitle) / 2, r.bottom() - 1.0 * pt), axisTitle);
     if (limit) {
         const double y = ya.y(plot, *limit);
         p.setPen(QPen(QColor("#b03a2e"), 0.9 * pt, Qt::DashLine));
@@ -372,18 +368,8 @@ void drawTimeline(QPainter& p, const QRectF& r, double pt, const std::vector<Tim
     const QRectF plot(r.left() + labelW + 6.0 * pt, r.top() + 2.0 * pt, r.width() - labelW - 6.0 * pt - valueW,
                       r.height() - 2.0 * fm.height() - 8.0 * pt);
     const Axis a = makeAxis(0.0, total > 0.0 ? total : 1.0, 6);
-    p.setFont(chartFont(6.5));
-    const QFontMetricsF fs(p.font(), p.device());
-    for (double v = a.lo; v <= a.hi + a.step * 1e-6; v += a.step) {
-        const double x = a.x(plot, v);
-        p.setPen(QPen(QColor("#d8d8d8"), 0.4 * pt));
-        p.drawLine(QPointF(x, plot.top()), QPointF(x, plot.bottom()));
-        p.setPen(QColor("#333333"));
-        const QString t = tickText(v);
-        p.drawText(QPointF(x - fs.horizontalAdvance(t) / 2, plot.bottom() + fs.ascent() + 2.0 * pt), t);
-    }
-    const QString axisTitle = QStringLiteral("time from PWM off, s");
-    p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(axisTitle) / 2, r.bottom() - 1.0 * pt), axisTitle);
+    drawHorizontalAxis(p, plot, a, QStringLiteral("time from PWM off, s"), r.bottom() - 1.0 * pt,
+                       QColor("#d8d8d8"), pt);
     p.setPen(QPen(QColor("#555555"), 0.6 * pt));
     p.drawLine(plot.bottomLeft(), plot.topLeft());
 

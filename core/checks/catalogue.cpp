@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/checks/catalogue.h"
 
+#include "core/io/markdown.h"
+
 #include <algorithm>
 
 namespace amp {
@@ -235,20 +237,6 @@ std::vector<CheckInfo> buildCatalogue() {
     };
 }
 
-std::string cell(std::string text) {
-    // Keep a Markdown table cell on one line and its pipes literal.
-    std::string out;
-    for (char c : text) {
-        if (c == '|')
-            out += "\\|";
-        else if (c == '\n')
-            out += ' ';
-        else
-            out += c;
-    }
-    return out;
-}
-
 } // namespace
 
 const std::vector<CheckInfo>& checkCatalogue() {
@@ -266,9 +254,11 @@ std::string checksMarkdown() {
     std::string out = "| id | check | compares | limit from | change first | at worst |\n"
                       "| --- | --- | --- | --- | --- | --- |\n";
     for (const auto& c : checkCatalogue())
-        out += "| `" + c.id + "` | " + cell(c.title) + " | " + cell(c.compares) + " | " + cell(c.limitSource) +
-               " | " + (c.field.find(' ') == std::string::npos ? "`" + cell(c.field) + "`" : cell(c.field)) + " | " +
-               toString(c.highest) + (c.informational ? " (always, when it applies)" : "") + " |\n";
+        out += "| `" + c.id + "` | " + markdownCell(c.title) + " | " + markdownCell(c.compares) + " | " +
+               markdownCell(c.limitSource) + " | " +
+               (c.field.find(' ') == std::string::npos ? "`" + markdownCell(c.field) + "`"
+                                                       : markdownCell(c.field)) +
+               " | " + toString(c.highest) + (c.informational ? " (always, when it applies)" : "") + " |\n";
     return out;
 }
 

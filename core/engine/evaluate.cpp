@@ -8,6 +8,7 @@
 
 #include "core/bank/banksolver.h"
 #include "core/bank/thermalnetwork.h"
+#include "core/checks/makecheck.h"
 #include "core/physics/bank_sharing.h"
 #include "core/physics/bipolar_on_state.h"
 #include "core/physics/chopper.h"
@@ -274,6 +275,52 @@ struct Electrical {
     double busExtra_A = 0.0;            // the bus current they draw (V_bus·I = their power)
 };
 
+// The motor circuit the chopper drives, with the bank's on-state drop and resistance and the
+// freewheel diode's threshold.
+ChopperCircuit chopperCircuit(const Context& c, const Demand& demand, double switchDrop_V,
+                              double switchResistance_ohm, double diodeDrop_V) {
+    const Design& d = *c.design;
+    ChopperCircuit circuit;
+    circuit.frequency_Hz = d.pwm.frequency_Hz;
+    circuit.inductance_H = d.motor.inductance_H;
+    circuit.loadResistance_ohm = c.motorBranch_ohm;
+    circuit.backEmf_V = demand.emf_V;
+    circuit.switchDrop_V = switchDrop_V;
+    circuit.switchResistance_ohm = switchResistance_ohm;
+    circuit.diodeDrop_V = diodeDrop_V;
+    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    return circuit;
+}
+
+// The chopper at the demand, by what the demand holds.
+ChopperSolution solveChopper(const ChopperCircuit& circuit, const ChopperSupply& supply, const Demand& demand,
+                             double maxDuty) {
+    switch (demand.hold) {
+    case Hold::CurrentAtEmf: return chopperForCurrent(circuit, supply, demand.current_A, maxDuty);
+    case Hold::CurrentAtDuty: return chopperEmfForCurrent(circuit, supply, demand.duty, demand.current_A);
+    case Hold::DutyAtEmf: return chopperAtDuty(circuit, supply, demand.duty);
+    }
+    return {};
+}
+
+// The loss stage's input at a chopper solution: its bus voltage and waveform, the bank's fixed
+// resistors and the freewheel diode's junction; the caller adds the devices' drop, shares,
+// resistances and junctions.
+LossPointInput lossInputAt(const Context& c, const ChopperSolution& chopper, double tjDiode_C) {
+    const auto& w = chopper.waveform;
+    LossPointInput li;
+    li.busVoltage_V = chopper.busVoltage_V;
+    li.motorCurrent_A = w.motorAverage_A;
+    li.duty = w.duty;
+    li.minCurrent_A = w.iMin_A;
+    li.maxCurrent_A = w.iMax_A;
+    li.capacitorRms_A = w.capacitorRms_A;
+    li.ballast_ohm = c.ballast_ohm;
+    li.leg_ohm = c.leg_ohm;
+    li.diodeTj_C = tjDiode_C;
+    return li;
+}
+
 Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C,
                            const std::vector<double>& otherTj_C, double busExtra_A) {
     const Design& d = *c.design;
@@ -291,15 +338,8 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
     e.switchDrop_V = c.mosfet ? 0.0 : c.bipolar.drop_V;
     e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
 
-    ChopperCircuit circuit;
-    circuit.frequency_Hz = d.pwm.frequency_Hz;
-    circuit.inductance_H = d.motor.inductance_H;
-    circuit.loadResistance_ohm = c.motorBranch_ohm;
-    circuit.backEmf_V = demand.emf_V;
-    circuit.switchDrop_V = e.switchDrop_V;
-    circuit.switchResistance_ohm = e.sharing.resistance_ohm;
-    circuit.diodeDrop_V = e.diodeThreshold_V;
-    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    ChopperCircuit circuit =
+        chopperCircuit(c, demand, e.switchDrop_V, e.sharing.resistance_ohm, e.diodeThreshold_V);
     adaptStandIn(c.losses, d, e.sharing.resistance_ohm, e.switchDrop_V,
                  tj_C.empty() ? d.heatsink.ambient_C : *std::max_element(tj_C.begin(), tj_C.end()), circuit);
     // The stage's losses draw their bus current from the battery too: V_bus = V − R·(I_sw + I_x).
@@ -309,17 +349,7 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         ChopperSupply supply = c.supply;
         supply.voltage_V -= supply.resistance_ohm * extra;
         e.busExtraUsed_A = extra;
-        switch (demand.hold) {
-        case Hold::CurrentAtEmf:
-            e.chopper = chopperForCurrent(circuit, supply, demand.current_A, d.pwm.maxDuty);
-            break;
-        case Hold::CurrentAtDuty:
-            e.chopper = chopperEmfForCurrent(circuit, supply, demand.duty, demand.current_A);
-            break;
-        case Hold::DutyAtEmf:
-            e.chopper = chopperAtDuty(circuit, supply, demand.duty);
-            break;
-        }
+        e.chopper = solveChopper(circuit, supply, demand, d.pwm.maxDuty);
         const auto& w = e.chopper.waveform;
         e.conduction_W.resize(n);
         for (std::size_t k = 0; k < n; ++k) {
@@ -329,21 +359,12 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         }
         e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
 
-        LossPointInput li;
-        li.busVoltage_V = e.chopper.busVoltage_V;
-        li.motorCurrent_A = w.motorAverage_A;
-        li.duty = w.duty;
-        li.minCurrent_A = w.iMin_A;
-        li.maxCurrent_A = w.iMax_A;
-        li.capacitorRms_A = w.capacitorRms_A;
+        LossPointInput li = lossInputAt(c, e.chopper, tjDiode_C);
         li.onDrop_V = e.switchDrop_V;
         li.share = e.sharing.share;
         li.resistance_ohm = e.device_ohm;
-        li.ballast_ohm = c.ballast_ohm;
-        li.leg_ohm = c.leg_ohm;
         li.tj_C = tj_C;
         li.otherTj_C = otherTj_C;
-        li.diodeTj_C = tjDiode_C;
         e.losses = computeLossPoint(c.losses, d, li);
         // Synchronous topologies: the stage has every bank's conduction (none when it could not
         // compute the point, e.g. with no bus voltage left).
@@ -613,45 +634,18 @@ Electrical chopperWithBank(const Context& c, const Demand& demand, double drop_V
     e.device_ohm = deviceResistance_ohm;
     e.conduction_W.assign(n, 0.0); // the network's, not the stand-in's
     e.diodeThreshold_V = diodeThreshold(d.bank.freewheelDiode, tjDiode_C);
-    ChopperCircuit circuit;
-    circuit.frequency_Hz = d.pwm.frequency_Hz;
-    circuit.inductance_H = d.motor.inductance_H;
-    circuit.loadResistance_ohm = c.motorBranch_ohm;
-    circuit.backEmf_V = demand.emf_V;
-    circuit.switchDrop_V = drop_V;
-    circuit.switchResistance_ohm = resistance_ohm;
-    circuit.diodeDrop_V = e.diodeThreshold_V;
-    circuit.diodeResistance_ohm = std::max(0.0, d.bank.freewheelDiode.rd_ohm) / c.diodes;
+    const ChopperCircuit circuit = chopperCircuit(c, demand, drop_V, resistance_ohm, e.diodeThreshold_V);
     ChopperSupply supply = c.supply;
     supply.voltage_V -= supply.resistance_ohm * busExtra_A;
     e.busExtraUsed_A = busExtra_A;
-    switch (demand.hold) {
-    case Hold::CurrentAtEmf:
-        e.chopper = chopperForCurrent(circuit, supply, demand.current_A, d.pwm.maxDuty);
-        break;
-    case Hold::CurrentAtDuty:
-        e.chopper = chopperEmfForCurrent(circuit, supply, demand.duty, demand.current_A);
-        break;
-    case Hold::DutyAtEmf:
-        e.chopper = chopperAtDuty(circuit, supply, demand.duty);
-        break;
-    }
+    e.chopper = solveChopper(circuit, supply, demand, d.pwm.maxDuty);
     const auto& w = e.chopper.waveform;
     e.diodeLoss_W = diodeConductionLoss(d.bank.freewheelDiode, c.diodes, w.diodeAverage_A, w.diodeRms_A, tjDiode_C);
-    LossPointInput li;
-    li.busVoltage_V = e.chopper.busVoltage_V;
-    li.motorCurrent_A = w.motorAverage_A;
-    li.duty = w.duty;
-    li.minCurrent_A = w.iMin_A;
-    li.maxCurrent_A = w.iMax_A;
-    li.capacitorRms_A = w.capacitorRms_A;
+    LossPointInput li = lossInputAt(c, e.chopper, tjDiode_C);
     li.onDrop_V = 0.0; // the network's drop is all in the device resistances V/I
     li.share = share;
     li.resistance_ohm = deviceResistance_ohm;
-    li.ballast_ohm = c.ballast_ohm;
-    li.leg_ohm = c.leg_ohm;
     li.tj_C = tj_C;
-    li.diodeTj_C = tjDiode_C;
     e.losses = computeLossPoint(c.losses, d, li);
     e.busExtra_A = e.busExtraUsed_A;
     return e;
@@ -878,22 +872,6 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
 
 // ---------------------------------------------------------------------------------------------
 // Checks
-
-Check makeCheck(std::string id, Severity severity, double value, double limit, std::string unit, std::string source,
-                std::string message, std::string fix, std::string field, std::string point) {
-    Check c;
-    c.id = std::move(id);
-    c.severity = severity;
-    c.value = value;
-    c.limit = limit;
-    c.unit = std::move(unit);
-    c.source = std::move(source);
-    c.message = std::move(message);
-    c.fix = std::move(fix);
-    c.field = std::move(field);
-    c.operatingPoint = std::move(point);
-    return c;
-}
 
 void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t index, std::vector<Check>& out) {
     const std::string& name = op.name;

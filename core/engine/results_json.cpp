@@ -1,12 +1,11 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/results_json.h"
 #include "core/engine/protection_results_json.h"
+#include "core/engine/resultsjson_numbers.h"
 #include "core/engine/stage_thermal.h"
 
 #include <nlohmann/json.hpp>
-#include <spdlog/spdlog.h>
 
-#include <cmath>
 #include <optional>
 #include <string>
 
@@ -16,18 +15,8 @@ namespace {
 
 using nlohmann::json;
 
-// Every number goes through here: NaN and Inf never reach the file (null, and a warning says
-// where, because a non-finite result is an engine bug worth finding).
-json number(double v, const std::string& where) {
-    if (std::isfinite(v))
-        return v;
-    spdlog::warn("results JSON: non-finite value at {} written as null", where);
-    return nullptr;
-}
-
-json number(const std::optional<double>& v, const std::string& where) {
-    return v ? number(*v, where) : json(nullptr);
-}
+// Every number goes through here (null and a warning for a non-finite one).
+using resultsjson::number;
 
 json deviceJson(const DeviceResult& d, const std::string& where) {
     json j;

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/stage_losses.h"
 
+#include "core/checks/makecheck.h"
 #include "core/losses/busrise.h"
 #include "core/losses/capacitors.h"
 #include "core/losses/diode.h"
@@ -27,21 +28,6 @@ namespace {
 using losses::Topology;
 
 std::string num(double v, int digits = 3) { return fmt::format("{:.{}g}", v, digits); }
-
-Check makeCheck(std::string id, Severity severity, double value, double limit, std::string unit, std::string source,
-                std::string message, std::string fix, std::string field) {
-    Check c;
-    c.id = std::move(id);
-    c.severity = severity;
-    c.value = value;
-    c.limit = limit;
-    c.unit = std::move(unit);
-    c.source = std::move(source);
-    c.message = std::move(message);
-    c.fix = std::move(fix);
-    c.field = std::move(field);
-    return c;
-}
 
 Topology modelTopology(StageTopology t) {
     switch (t) {
@@ -899,46 +885,44 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
     return lp;
 }
 
+namespace {
+
+// The loss stage's figures of one device into its result; the conduction figures only when the
+// stage computed them (else the chopper's stay).
+void takeLosses(const DeviceLoss& dl, bool withConduction, DeviceResult& dv) {
+    dv.bank = dl.bank;
+    if (withConduction) {
+        dv.current_A = dl.current_A;
+        dv.averageCurrent_A = dl.averageCurrent_A;
+        dv.rmsCurrent_A = dl.rmsCurrent_A;
+        dv.conduction_W = dl.conduction_W;
+        dv.ballast_W = dl.ballast_W;
+        dv.leg_W = dl.leg_W;
+    }
+    dv.switching_W = dl.switching_W;
+    dv.diode_W = dl.diode_W;
+    dv.drive_W = dl.drive_W;
+    dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
+}
+
+} // namespace
+
 void recordLossPoint(const LossPoint& lp, const std::vector<double>& otherTj_C, const std::vector<double>& otherTcase_C,
                      OperatingPointResult& op, std::vector<Check>& checks) {
     if (!lp.banks.empty()) {
         const auto& main = lp.banks.front();
         for (std::size_t k = 0; k < op.devices.size() && k < main.size(); ++k) {
-            DeviceResult& dv = op.devices[k];
-            const DeviceLoss& dl = main[k];
-            dv.bank = dl.bank;
-            if (lp.computesConduction) {
-                dv.current_A = dl.current_A;
-                dv.averageCurrent_A = dl.averageCurrent_A;
-                dv.rmsCurrent_A = dl.rmsCurrent_A;
-                dv.conduction_W = dl.conduction_W;
-                dv.ballast_W = dl.ballast_W;
-                dv.leg_W = dl.leg_W;
-            }
-            dv.switching_W = dl.switching_W;
-            dv.diode_W = dl.diode_W;
-            dv.drive_W = dl.drive_W;
-            dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
+            takeLosses(main[k], lp.computesConduction, op.devices[k]);
         }
         const DeviceResult proto = op.devices.empty() ? DeviceResult{} : op.devices.front();
         std::size_t at = 0; // index into the other banks' temperatures, device by device
         for (std::size_t b = 1; b < lp.banks.size(); ++b) {
             for (const DeviceLoss& dl : lp.banks[b]) {
                 DeviceResult dv;
-                dv.bank = dl.bank;
+                takeLosses(dl, true, dv);
                 dv.share = dl.share;
-                dv.current_A = dl.current_A;
-                dv.averageCurrent_A = dl.averageCurrent_A;
-                dv.rmsCurrent_A = dl.rmsCurrent_A;
                 dv.ratingShare = proto.current_A > 0.0 ? proto.ratingShare * dl.current_A / proto.current_A : 0.0;
                 dv.voltage_V = proto.current_A > 0.0 ? proto.voltage_V * dl.current_A / proto.current_A : 0.0;
-                dv.conduction_W = dl.conduction_W;
-                dv.ballast_W = dl.ballast_W;
-                dv.leg_W = dl.leg_W;
-                dv.switching_W = dl.switching_W;
-                dv.diode_W = dl.diode_W;
-                dv.drive_W = dl.drive_W;
-                dv.loss_W = dv.conduction_W + dv.switching_W + dv.diode_W + dv.drive_W;
                 dv.tj_C = at < otherTj_C.size() ? otherTj_C[at] : proto.tj_C;
                 dv.tcase_C = at < otherTcase_C.size() ? otherTcase_C[at] : proto.tcase_C;
                 ++at;

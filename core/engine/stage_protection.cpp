@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/stage_protection.h"
 
+#include "core/checks/makecheck.h"
 #include "core/engine/results.h"
 #include "core/model/design.h"
 #include "core/physics/copper.h"
@@ -19,6 +20,7 @@
 #include <cmath>
 #include <map>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace amp {
@@ -40,20 +42,13 @@ std::string num(double v, int digits = 3) {
     return fmt::format("{:.{}g}", v, digits);
 }
 
-Check check(std::string id, Severity severity, double value, double limit, std::string unit,
-            std::string source, std::string message, std::string fix, std::string field,
-            std::string point = {}) {
-    Check c;
-    c.id = std::move(id);
-    c.severity = severity;
-    c.value = std::isfinite(value) ? value : 0.0;
-    c.limit = std::isfinite(limit) ? limit : 0.0;
-    c.unit = std::move(unit);
-    c.source = std::move(source);
-    c.message = std::move(message);
-    c.fix = std::move(fix);
-    c.field = std::move(field);
-    c.operatingPoint = std::move(point);
+// The makeCheck of core/checks, with a value or limit that a model left undefined (not finite)
+// shown as 0.
+template <class... Args>
+Check check(Args&&... args) {
+    Check c = makeCheck(std::forward<Args>(args)...);
+    c.value = std::isfinite(c.value) ? c.value : 0.0;
+    c.limit = std::isfinite(c.limit) ? c.limit : 0.0;
     return c;
 }
 

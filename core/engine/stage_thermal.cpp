@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/stage_thermal.h"
 
+#include "core/checks/makecheck.h"
 #include "core/thermal/creepage.h"
 #include "core/thermal/cycling_life.h"
 #include "core/thermal/interface.h"
@@ -30,23 +31,6 @@ constexpr double kSpacingAdvice = 0.3;
 
 std::string num(double v, int digits = 3) {
     return fmt::format("{:.{}g}", v, digits);
-}
-
-Check check(std::string id, Severity severity, double value, double limit, std::string unit,
-            std::string source, std::string message, std::string fix, std::string field,
-            std::string point = {}) {
-    Check c;
-    c.id = std::move(id);
-    c.severity = severity;
-    c.value = value;
-    c.limit = limit;
-    c.unit = std::move(unit);
-    c.source = std::move(source);
-    c.message = std::move(message);
-    c.fix = std::move(fix);
-    c.field = std::move(field);
-    c.operatingPoint = std::move(point);
-    return c;
 }
 
 bool computed(const OperatingPointResult& op) {
@@ -137,9 +121,10 @@ struct Losses {
 
 void geometryChecks(const HeatsinkModel& hs, Results& r) {
     for (const Problem& p : hs.problems())
-        r.checks.push_back(check("heatsink.geometry", Severity::Fail, 0.0, 0.0, "", "plate-fin geometry",
-                                 p.message + "; the stated heatsink part stands in until this is corrected",
-                                 "Correct the heatsink geometry", p.path));
+        r.checks.push_back(
+            makeCheck("heatsink.geometry", Severity::Fail, 0.0, 0.0, "", "plate-fin geometry",
+                      p.message + "; the stated heatsink part stands in until this is corrected",
+                      "Correct the heatsink geometry", p.path));
 }
 
 void heatsinkSummary(const Design& d, const HeatsinkModel& hs, std::size_t hottest, Results& r) {
@@ -163,7 +148,7 @@ void heatsinkSummary(const Design& d, const HeatsinkModel& hs, std::size_t hotte
         if (s.finSpacing_m && s.optimumFinSpacing_m) {
             const double ratio = *s.finSpacing_m / *s.optimumFinSpacing_m;
             const bool off = std::abs(ratio - 1.0) > kSpacingAdvice;
-            r.checks.push_back(check(
+            r.checks.push_back(makeCheck(
                 "heatsink.fin-spacing", off ? Severity::Advice : Severity::Pass, *s.finSpacing_m,
                 *s.optimumFinSpacing_m, "m", "Bar-Cohen & Rohsenow optimum spacing S_opt = 2.714·L/Ra_L^¼",
                 fmt::format(
@@ -191,7 +176,7 @@ void insulationChecks(const Design& d, Results& r) {
         const Severity sev = !de.withstandsBus ? Severity::Fail
                              : !de.meetsMargin ? Severity::Warning
                                                : Severity::Pass;
-        r.checks.push_back(check(
+        r.checks.push_back(makeCheck(
             "interface.dielectric", sev, de.breakdown_V, de.required_V, "V",
             "breakdown = dielectric strength × thickness; wanted 2·V_max + 1000 V (common practice, from "
             "memory of "
@@ -206,7 +191,7 @@ void insulationChecks(const Design& d, Results& r) {
     }
     if (anyLive && (in.insulating || d.heatsink.insulatedFromTabs)) {
         const thermal::CreepageResult c = thermal::requiredCreepage(vMax);
-        r.checks.push_back(check(
+        r.checks.push_back(makeCheck(
             "interface.creepage", Severity::Advice, c.required_m, c.required_m, "m",
             "IEC 60664-1 Table F.4, pollution degree 2, material group III (50 V 1.2 mm, 63 V 1.25 mm, 100 V "
             "1.4 mm; "
@@ -231,7 +216,7 @@ void insulationChecks(const Design& d, Results& r) {
             {"freewheel diode tabs (bus +)", d.bank.freewheelDiode.tabLive, in.insulating, "bus+", vMax});
     const thermal::LiveHeatsinkResult lr = thermal::liveHeatsink(live);
     if (lr.tabsShorted)
-        r.checks.push_back(check(
+        r.checks.push_back(makeCheck(
             "heatsink.tab-short", Severity::Fail, vMax, 0.0, "V", "circuit: two live tabs on different nodes",
             fmt::format(
                 "the {} and the {} sit bare on one heatsink: it joins the motor's terminals, and with the "
@@ -260,7 +245,7 @@ void insulationChecks(const Design& d, Results& r) {
                 d.heatsink.exposed ? " and it can be touched"
                                    : "; it is enclosed: keep the enclosure closed and marked");
         }
-        r.checks.push_back(check(
+        r.checks.push_back(makeCheck(
             "heatsink.live-touch-voltage", sev, lr.live ? lr.voltage_V : 0.0, lr.limit_V, "V",
             "IEC 60364-4-41 §414.4.5 (from memory): no protection against direct contact needed up to 60 V "
             "DC in dry "
@@ -290,7 +275,7 @@ void touchCheck(const Design& d, double hottest_C, const std::string& where, Res
     }
     if (!d.heatsink.exposed)
         sev = sev == Severity::Pass ? Severity::Pass : Severity::Advice;
-    r.checks.push_back(check(
+    r.checks.push_back(makeCheck(
         "heatsink.touch-temperature", sev, hottest_C, limit, "°C",
         "burn thresholds of bare metal, ISO 13732-1 (from memory): 65 °C for 1 s, 55 °C for 10 s, 51 °C for "
         "1 min, "
@@ -452,7 +437,7 @@ void addThermalResults(const Design& d, const HeatsinkModel& hs, const SourceLos
                 const std::string who = net.sources[*st.firstSource].name;
                 const bool massless = net.sources[*st.firstSource].zthJc.empty();
                 const Severity sev = *st.timeToLimit_s < required ? Severity::Fail : Severity::Advice;
-                r.checks.push_back(check(
+                r.checks.push_back(makeCheck(
                     "thermal.stall-time", sev, *st.timeToLimit_s, required, "s",
                     "transient of the Foster networks and the heatsink's heat capacity; the limit is the "
                     "part's "
@@ -469,7 +454,7 @@ void addThermalResults(const Design& d, const HeatsinkModel& hs, const SourceLos
                     "Lower the current limit (pwm.currentLimit_A), add devices (bank.count) or heatsink mass",
                     "pwm.currentLimit_A"));
             } else {
-                r.checks.push_back(check(
+                r.checks.push_back(makeCheck(
                     "thermal.stall-time", Severity::Pass, st.steadyTj_C.value_or(0.0), d.bank.device.tjMax_C,
                     "°C", "steady state of the stall at the limit",
                     fmt::format(
@@ -537,7 +522,7 @@ void addThermalResults(const Design& d, const HeatsinkModel& hs, const SourceLos
                 const Severity sev = tj > limit                       ? Severity::Fail
                                      : tj > limit - kJunctionMargin_K ? Severity::Warning
                                                                       : Severity::Pass;
-                r.checks.push_back(check(
+                r.checks.push_back(makeCheck(
                     id, sev, tj, limit, "°C", "part rating; a 15 K margin below it is common practice",
                     fmt::format(
                         "over the duty profile {} peaks at {} °C, {} s into the profile, against T_j,max {} "
@@ -578,7 +563,7 @@ void addThermalResults(const Design& d, const HeatsinkModel& hs, const SourceLos
                 worst = std::move(l);
             }
             if (worst) {
-                r.checks.push_back(check(
+                r.checks.push_back(makeCheck(
                     "thermal.cycling-life", Severity::Advice, worst->hoursToEnd.value_or(0.0), 0.0, "h",
                     "power cycling after Held et al. (PEDS 1997), N_f = A·ΔT^α·exp(E_a/(k_B·T_m)), Miner's "
                     "rule; "

@@ -1,10 +1,13 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/stage_thermal.h"
 
-#include <nlohmann/json.hpp>
-#include <spdlog/spdlog.h>
+#include "core/engine/resultsjson_numbers.h"
 
-#include <cmath>
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+
+#include <string>
+#include <string_view>
 
 namespace amp {
 
@@ -12,24 +15,30 @@ namespace {
 
 using nlohmann::json;
 
-// Non-finite numbers never reach the file (as in results_json.cpp).
-json number(double v, const char* where) {
-    if (std::isfinite(v))
-        return v;
-    spdlog::warn("results JSON: non-finite value at {} written as null", where);
-    return nullptr;
-}
+// Non-finite numbers never reach the file (null and a warning, as everywhere in the results).
+using resultsjson::number;
+using resultsjson::series;
 
-json number(const std::optional<double>& v, const char* where) {
-    return v ? number(*v, where) : json(nullptr);
-}
+// Writes the numbers of one object of the file under their keys; a non-finite one is named
+// "<section>.<key>" in the warning.
+class Fields {
+  public:
+    Fields(json& j, std::string_view section) : m_j(j), m_section(section) {}
 
-json series(const std::vector<double>& v, const char* where) {
-    json a = json::array();
-    for (double x : v)
-        a.push_back(number(x, where));
-    return a;
-}
+    template <class Number>
+    void number(const char* key, const Number& v) {
+        m_j[key] = resultsjson::number(v, where(key));
+    }
+    void series(const char* key, const std::vector<double>& v) {
+        m_j[key] = resultsjson::series(v, where(key));
+    }
+
+  private:
+    std::string where(const char* key) const { return fmt::format("{}.{}", m_section, key); }
+
+    json& m_j;
+    std::string_view m_section;
+};
 
 } // namespace
 
@@ -37,15 +46,16 @@ void addThermalJson(const Results& r, nlohmann::json& out) {
     if (r.heatsink) {
         const HeatsinkSummary& h = *r.heatsink;
         json j;
+        Fields f(j, "heatsink");
         j["mode"] = h.mode;
-        j["rthSa_KperW"] = number(h.rthSa_KperW, "heatsink.rthSa_KperW");
-        j["temperature_C"] = number(h.temperature_C, "heatsink.temperature_C");
+        f.number("rthSa_KperW", h.rthSa_KperW);
+        f.number("temperature_C", h.temperature_C);
         j["operatingPoint"] = h.operatingPoint;
-        j["heat_W"] = number(h.heat_W, "heatsink.heat_W");
-        j["heatCapacity_JperK"] = number(h.heatCapacity_JperK, "heatsink.heatCapacity_JperK");
-        j["finSpacing_m"] = number(h.finSpacing_m, "heatsink.finSpacing_m");
-        j["optimumFinSpacing_m"] = number(h.optimumFinSpacing_m, "heatsink.optimumFinSpacing_m");
-        j["optimumFinCount"] = number(h.optimumFinCount, "heatsink.optimumFinCount");
+        f.number("heat_W", h.heat_W);
+        f.number("heatCapacity_JperK", h.heatCapacity_JperK);
+        f.number("finSpacing_m", h.finSpacing_m);
+        f.number("optimumFinSpacing_m", h.optimumFinSpacing_m);
+        f.number("optimumFinCount", h.optimumFinCount);
         j["notes"] = h.notes;
         out["heatsink"] = std::move(j);
     } else {
@@ -55,18 +65,19 @@ void addThermalJson(const Results& r, nlohmann::json& out) {
     if (r.transient) {
         const TransientSummary& t = *r.transient;
         json j;
+        Fields f(j, "transient");
         j["sources"] = t.sources;
-        j["tjMax_C"] = number(t.tjMax_C, "transient.tjMax_C");
-        j["tjMaxTime_s"] = number(t.tjMaxTime_s, "transient.tjMaxTime_s");
+        f.number("tjMax_C", t.tjMax_C);
+        f.number("tjMaxTime_s", t.tjMaxTime_s);
         j["tjMaxSource"] = t.tjMaxSource;
-        j["heatsinkMax_C"] = number(t.heatsinkMax_C, "transient.heatsinkMax_C");
-        j["heatsinkMaxTime_s"] = number(t.heatsinkMaxTime_s, "transient.heatsinkMaxTime_s");
-        j["time_s"] = series(t.time_s, "transient.time_s");
+        f.number("heatsinkMax_C", t.heatsinkMax_C);
+        f.number("heatsinkMaxTime_s", t.heatsinkMaxTime_s);
+        f.series("time_s", t.time_s);
         json tj = json::array();
         for (const auto& s : t.tj_C)
             tj.push_back(series(s, "transient.tj_C"));
         j["tj_C"] = std::move(tj);
-        j["heatsink_C"] = series(t.heatsink_C, "transient.heatsink_C");
+        f.series("heatsink_C", t.heatsink_C);
         j["repetitions"] = t.repetitions;
         j["periodic"] = t.periodic;
         j["steps"] = t.steps;
@@ -81,20 +92,22 @@ void addThermalJson(const Results& r, nlohmann::json& out) {
     if (r.life) {
         const LifeSummary& l = *r.life;
         json j;
+        Fields f(j, "life");
         j["source"] = l.source;
         json cycles = json::array();
         for (const auto& c : l.cycles) {
             json cj;
-            cj["range_K"] = number(c.range_K, "life.cycles.range_K");
-            cj["mean_C"] = number(c.mean_C, "life.cycles.mean_C");
-            cj["count"] = number(c.count, "life.cycles.count");
-            cj["cyclesToFailure"] = number(c.cyclesToFailure, "life.cycles.cyclesToFailure");
+            Fields fc(cj, "life.cycles");
+            fc.number("range_K", c.range_K);
+            fc.number("mean_C", c.mean_C);
+            fc.number("count", c.count);
+            fc.number("cyclesToFailure", c.cyclesToFailure);
             cycles.push_back(std::move(cj));
         }
         j["cycles"] = std::move(cycles);
-        j["damagePerRepetition"] = number(l.damagePerRepetition, "life.damagePerRepetition");
-        j["repetitionsToEnd"] = number(l.repetitionsToEnd, "life.repetitionsToEnd");
-        j["hoursToEnd"] = number(l.hoursToEnd, "life.hoursToEnd");
+        f.number("damagePerRepetition", l.damagePerRepetition);
+        f.number("repetitionsToEnd", l.repetitionsToEnd);
+        f.number("hoursToEnd", l.hoursToEnd);
         j["note"] = l.note;
         out["life"] = std::move(j);
     } else {

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/model/fields.h"
 
+#include "core/io/markdown.h"
 #include "core/model/design.h"
 #include "core/model/design_json.h"
 
@@ -992,19 +993,6 @@ void convertRecursive(nlohmann::json& j, const std::string& rel, std::string_vie
     }
 }
 
-std::string markdownEscape(std::string s) {
-    std::string out;
-    for (char c : s) {
-        if (c == '|')
-            out += "\\|";
-        else if (c == '\n')
-            out += ' ';
-        else
-            out += c;
-    }
-    return out;
-}
-
 } // namespace
 
 // ---- Public API ----------------------------------------------------------------------------
@@ -1342,8 +1330,8 @@ std::string fieldsMarkdown() {
         std::string unit(units::symbol(f.unit));
         if (f.type != Type::Number && f.type != Type::Integer)
             unit.clear();
-        md << "| `" << f.path << "` | " << markdownEscape(unit) << " | " << markdownEscape(describeRange(f))
-           << " | " << markdownEscape(defaultOf(defaults, f)) << " | " << markdownEscape(f.label + ". " + f.help)
+        md << "| `" << f.path << "` | " << markdownCell(unit) << " | " << markdownCell(describeRange(f))
+           << " | " << markdownCell(defaultOf(defaults, f)) << " | " << markdownCell(f.label + ". " + f.help)
            << " |\n";
     }
     return md.str();

@@ -16,10 +16,7 @@ DisconnectResult rateDisconnect(const DisconnectInput& in) {
     c.nonNegative("motorResistance_ohm", in.motorResistance_ohm);
     c.nonNegative("ratedVoltage_V", in.ratedVoltage_V);
     c.nonNegative("dcBreaking_A", in.dcBreaking_A);
-    if (c.ok() && in.batteryResistance_ohm + in.cableResistance_ohm <= 0.0)
-        c.add("batteryResistance_ohm",
-              "plus the cable resistance must be greater than zero: the short-circuit "
-              "current would be unbounded");
+    c.boundedFault(in.batteryResistance_ohm, in.cableResistance_ohm);
     r.problems = c.take();
     if (!r.problems.empty())
         return r;

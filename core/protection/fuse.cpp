@@ -21,10 +21,7 @@ FuseResult rateFuse(const FuseInput& in) {
     c.nonNegative("cableArea_mm2", in.cableArea_mm2);
     c.positive("cableK", in.cableK);
     c.nonNegative("cableAmpacity_A", in.cableAmpacity_A);
-    if (c.ok() && in.batteryResistance_ohm + in.cableResistance_ohm <= 0.0)
-        c.add("batteryResistance_ohm",
-              "plus the cable resistance must be greater than zero: the short-circuit "
-              "current would be unbounded");
+    c.boundedFault(in.batteryResistance_ohm, in.cableResistance_ohm);
     r.problems = c.take();
     if (!r.problems.empty())
         return r;

@@ -37,6 +37,13 @@ class InputCheck {
             add(field, "must lie " + std::string(loExclusive ? "above " : "from ") + text(lo) + " to " +
                            text(hi) + " (got " + text(v) + ")");
     }
+    /// Once every input is valid: the battery plus the cable resistance (the source a short
+    /// circuit sees, both fields ≥ 0) must be above zero, or the fault current is unbounded.
+    void boundedFault(double batteryResistance_ohm, double cableResistance_ohm) {
+        if (ok() && batteryResistance_ohm + cableResistance_ohm <= 0.0)
+            add("batteryResistance_ohm", "plus the cable resistance must be greater than zero: the "
+                                         "short-circuit current would be unbounded");
+    }
     void add(const std::string& field, const std::string& message) {
         m_problems.push_back({field, field + " " + message});
     }
