@@ -58,12 +58,12 @@ BankStudyTable bankStudyTable(const Design& design, const Results& results, cons
             return op.bank.stable ? QStringLiteral("stable") : QStringLiteral("runs away");
         },
         runsAway);
-    add(QStringLiteral("Loop gain ∂P/∂T·Z_th (runs away at ≥ 1)"),
+    add(QStringLiteral("Loop gain (runs away at ≥ 1)"),
         [&](const OperatingPointResult& op) { return op.bank.loopGain ? format(*op.bank.loopGain, Unit::None) : none(); },
         [](const OperatingPointResult& op) { return op.bank.loopGain && *op.bank.loopGain >= 1.0; });
     add(QStringLiteral("Dominant mode"),
         [](const OperatingPointResult& op) { return QString::fromStdString(op.bank.dominantMode); }, never);
-    add(QStringLiteral("Runaway onset, bank current"),
+    add(QStringLiteral("Runaway onset (bank current)"),
         [&](const OperatingPointResult& op) {
             if (op.bank.runawayLoad_A)
                 return format(*op.bank.runawayLoad_A, Unit::Ampere);
@@ -77,10 +77,10 @@ BankStudyTable bankStudyTable(const Design& design, const Results& results, cons
         });
     add(QStringLiteral("First device to fail"),
         [](const OperatingPointResult& op) { return deviceName(op.bank.firstToFail); }, never);
-    add(QStringLiteral("Highest / lowest device current (target ≤ %1)").arg(format(design.bank.sharingTarget, Unit::None)),
+    add(QStringLiteral("Max / min device current (target ≤ %1)").arg(format(design.bank.sharingTarget, Unit::None)),
         [&](const OperatingPointResult& op) { return format(op.bank.maxMinCurrentRatio, Unit::None); },
         [&](const OperatingPointResult& op) { return op.bank.maxMinCurrentRatio > design.bank.sharingTarget; });
-    add(QStringLiteral("Smallest ballast per device, stable and sharing"),
+    add(QStringLiteral("Smallest ballast per device"),
         [&](const OperatingPointResult& op) {
             if (op.bank.minimumBallast_ohm)
                 return *op.bank.minimumBallast_ohm > 0.0 ? format(*op.bank.minimumBallast_ohm, Unit::Ohm)
@@ -88,7 +88,7 @@ BankStudyTable bankStudyTable(const Design& design, const Results& results, cons
             return op.bank.spread || op.bank.runawayLoad_A ? QStringLiteral("none up to 10 Ω works") : none();
         },
         never);
-    add(QStringLiteral("Power in each ballast resistor there (largest)"),
+    add(QStringLiteral("Power per ballast resistor"),
         [&](const OperatingPointResult& op) {
             const auto& w = op.bank.minimumBallastPower_W;
             if (w.empty() || !op.bank.minimumBallast_ohm || *op.bank.minimumBallast_ohm <= 0.0)
@@ -96,14 +96,14 @@ BankStudyTable bankStudyTable(const Design& design, const Results& results, cons
             return format(*std::max_element(w.begin(), w.end()), Unit::Watt);
         },
         never);
-    add(QStringLiteral("Ballast loss, share of the bank's input"),
+    add(QStringLiteral("Ballast loss / bank input power"),
         [&](const OperatingPointResult& op) {
             if (!op.bank.minimumBallastEfficiencyCost || !op.bank.minimumBallast_ohm || *op.bank.minimumBallast_ohm <= 0.0)
                 return none();
             return format(*op.bank.minimumBallastEfficiencyCost, Unit::Percent);
         },
         never);
-    add(QStringLiteral("Extra switching power of the worst device"),
+    add(QStringLiteral("Extra switching power, worst device"),
         [&](const OperatingPointResult& op) {
             return op.bank.switchingImbalance_W ? format(*op.bank.switchingImbalance_W, Unit::Watt) : none();
         },
@@ -131,14 +131,14 @@ BankStudyTable bankStudyTable(const Design& design, const Results& results, cons
     spreadRow(QStringLiteral("Samples without a stable state"),
               [&](const BankSpreadResult& s) { return format(s.runawayFraction, Unit::Percent); },
               [](const BankSpreadResult& s) { return s.runawayFraction > 0.0; });
-    spreadRow(QStringLiteral("Worst-case corner: hottest T_j"),
+    spreadRow(QStringLiteral("Worst corner: hottest T_j"),
               [&](const BankSpreadResult& s) {
                   return s.cornerTjMax_C ? format(*s.cornerTjMax_C, Unit::Celsius) : QStringLiteral("runs away");
               },
               [](const BankSpreadResult& s) { return !s.cornerTjMax_C; });
-    spreadRow(QStringLiteral("Worst-case corner: highest / lowest current"),
+    spreadRow(QStringLiteral("Worst corner: max / min current"),
               [&](const BankSpreadResult& s) { return format(s.cornerMaxMinCurrentRatio, Unit::None); }, spreadNever);
-    spreadRow(QStringLiteral("Worst-case corner: favoured device"),
+    spreadRow(QStringLiteral("Worst corner: favoured device"),
               [](const BankSpreadResult& s) { return deviceName(s.cornerDevice); }, spreadNever);
     return t;
 }
@@ -167,8 +167,8 @@ QString runawaySummary(const Design& design, const Results& results, const Numbe
             lowest = &op;
     if (!lowest)
         return {};
-    QString s = QStringLiteral("Stable in every point; above %1 of bank current the bank would run away")
-                    .arg(format(*lowest->bank.runawayLoad_A, Unit::Ampere));
+    QString s = QStringLiteral("Stable in every point; in “%1” the bank would run away above %2 of bank current")
+                    .arg(QString::fromStdString(lowest->name), format(*lowest->bank.runawayLoad_A, Unit::Ampere));
     if (lowest->bank.firstToFail)
         s += QStringLiteral(" (device %1 first)").arg(*lowest->bank.firstToFail);
     return s + QLatin1Char('.');

@@ -694,9 +694,10 @@ void SheetWriter::bankStudies() {
               "largest eigenvalue of (∂P/∂T)·Z_th with the bank current and duty held, dimensionless; at 1 or "
               "more, or with no steady state below T_j,max, the bank runs away. Runaway onset: the lowest bank "
               "on-state current at which that happens, scanned up to the current limit. Ballast: the smallest "
-              "source or emitter resistor per device that keeps the bank stable and within the sharing target. "
-              "Monte Carlo: the parts drawn within bank.spread; a percentile that falls among samples without a "
-              "stable state reads “runs away”.</p>";
+              "source or emitter resistor per device that keeps the bank stable and within the sharing target, "
+              "the largest power in one of them and their loss against the bank's input power. Monte Carlo: the "
+              "parts drawn within bank.spread; a percentile that falls among samples without a stable state reads "
+              "“runs away”. Worst corner: every tolerance at the extreme that favours one device.</p>";
     const QString summary = runawaySummary(m_d, m_r, fmt);
     if (!summary.isEmpty())
         m_html += "<p><b>" + esc(summary) + "</b></p>";
