@@ -131,7 +131,7 @@ ChartsView::~ChartsView() = default;
 void ChartsView::addTabsTo(QTabWidget* tabs) {
     tabs->addTab(m_sharingPage, tr("Sharing"));
     tabs->addTab(m_lossPage, tr("Losses"));
-    tabs->addTab(m_profilePage, tr("Over the profile"));
+    tabs->addTab(m_profilePage, tr("Over time"));
     tabs->addTab(m_sweepPage, tr("Sweeps"));
     tabs->addTab(m_spreadPage, tr("Stability"));
 }

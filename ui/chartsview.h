@@ -3,7 +3,7 @@
 // The workbench's charts and the slow half of the evaluation, as pages for the results tabs:
 //   Sharing       — on-state current and T_j per device against their limits (quick)
 //   Losses        — the loss of each device by cause (quick)
-//   Over the profile — T_j(t) per device and the heatsink T(t) (slow: full evaluation)
+//   Over time     — T_j(t) per device and the heatsink T(t) (slow: full evaluation)
 //   Sweeps        — hottest T_j, efficiency and loss against the number of switches and the PWM
 //                   frequency (slow: design copies)
 //   Stability     — the bank's stability per point (loop gain, runaway onset and first

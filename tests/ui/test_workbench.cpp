@@ -7,6 +7,7 @@
 // design changed directly in C++), the SI prefixes (ISO 80000-1: k = 10³, m = 10⁻³), the RKM
 // resistor code of IEC 60062 ("4k7" = 4.7 kΩ, "4R7" = 4.7 Ω) and the project file as written.
 
+#include "core/checks/cautions.h"
 #include "core/engine/evaluate.h"
 #include "core/io/projectfile.h"
 #include "core/model/design.h"
@@ -23,6 +24,7 @@
 #include "ui/format.h"
 #include "ui/mainwindow.h"
 #include "ui/pointtable.h"
+#include "ui/safetyview.h"
 #include "ui/workbench.h"
 
 #include <nlohmann/json.hpp>
@@ -93,6 +95,7 @@ class TestWorkbench : public QObject {
     void screenshotOfDemo();
     void screenshotsOfCharts();
     void bipolarDemoShowsItsRunaway();
+    void safetyCautionsAreShown();
     void entryPointOpensDemoOrFile();
 };
 
@@ -594,6 +597,23 @@ void TestWorkbench::bipolarDemoShowsItsRunaway() {
     QVERIFY(op.bank.spread);
     QCOMPARE(cell("Samples without a stable state"), formatSi(op.bank.spread->runawayFraction, units::Unit::Percent, 4));
     QVERIFY(window.charts()->bankSummary()->text().contains(QString::fromStdString(op.name)));
+}
+
+void TestWorkbench::safetyCautionsAreShown() {
+    // Every caution core/checks/cautions.h gives for the demo is on the Safety tab, with the
+    // closing statement that local codes and licensed practice decide; the tab counts them.
+    MainWindow window;
+    QVERIFY(window.openExample(demoFile()));
+    const auto cautions = cautionsFor(window.document()->design(), *window.document()->results());
+    QVERIFY(cautions.size() >= 3);
+    const QString shown = window.safetyView()->toPlainText();
+    for (const auto& c : cautions) {
+        QVERIFY2(shown.contains(QString::fromStdString(c.title)), c.title.c_str());
+        QVERIFY2(shown.contains(QString::fromStdString(c.text)), c.text.c_str());
+    }
+    QVERIFY(shown.contains("Local codes, the machine's or vehicle's regulations and licensed practice decide."));
+    auto* tabs = window.findChild<QTabWidget*>("detailTabs");
+    QCOMPARE(tabs->tabText(tabs->indexOf(window.safetyView())), QStringLiteral("Safety (%1)").arg(cautions.size()));
 }
 
 void TestWorkbench::entryPointOpensDemoOrFile() {
