@@ -62,6 +62,10 @@ BankPicture bankPicture(const Design& design, const OperatingPointResult& point)
         p.tiles.push_back(t);
     }
     p.maxMinRatio = point.bank.maxMinCurrentRatio;
+    p.runsAway = !point.bank.converged || !point.bank.stable;
+    p.loopGain = point.bank.loopGain;
+    p.dominantMode = QString::fromStdString(point.bank.dominantMode);
+    p.firstToFail = point.bank.firstToFail.value_or(-1);
     if (p.maxMinRatio > p.sharingTarget && !p.tiles.empty()) {
         const auto top = std::max_element(p.tiles.begin(), p.tiles.end(),
                                           [](const BankTile& a, const BankTile& b) { return a.share < b.share; });
@@ -335,6 +339,30 @@ void BankView::paintEvent(QPaintEvent*) {
             p.drawText(QRectF(gx + gw + 6, lg.top(), 60, lg.height()), Qt::AlignLeft | Qt::AlignVCenter,
                        tr("0 … 90 K"));
         }
+    }
+    // The electrothermal state, right-aligned on the legend's row: the loop gain, and a runaway
+    // said plainly.
+    {
+        QString line = m_picture.loopGain
+                           ? tr("loop gain %1 (%2 mode; ≥ 1 runs away)")
+                                 .arg(QString::number(*m_picture.loopGain, 'g', 3), m_picture.dominantMode)
+                           : tr("no steady state");
+        if (m_picture.runsAway) {
+            line += tr(" · RUNS AWAY");
+            if (m_picture.firstToFail >= 0)
+                line += tr(": device #%1 first").arg(m_picture.firstToFail);
+            line += tr(" · onset load on the Stability tab");
+        } else {
+            line += tr(" · stable");
+        }
+        QFont stateFont = smallFont;
+        stateFont.setBold(m_picture.runsAway);
+        p.setFont(stateFont);
+        p.setPen(m_picture.runsAway ? QColor(0xff, 0xa8, 0x96) : dim);
+        const QRectF lg = l.legend;
+        const double left = lg.left() + QFontMetricsF(smallFont).horizontalAdvance(tr("margin to T_j,max")) + 290;
+        p.drawText(QRectF(left, lg.top(), std::max(40.0, lg.right() - left), lg.height()),
+                   Qt::AlignRight | Qt::AlignVCenter | Qt::TextWordWrap, line);
     }
 }
 

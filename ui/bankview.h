@@ -10,6 +10,7 @@
 #include <QString>
 #include <QWidget>
 
+#include <optional>
 #include <vector>
 
 namespace amp::ui {
@@ -42,6 +43,10 @@ struct BankPicture {
     double sharingTarget = 1.0;      ///< accepted max/min current ratio
     double maxMinRatio = 1.0;        ///< the bank's max/min current ratio in this point
     int hogging = -1;                ///< tile of the device taking the most when the ratio misses the target
+    bool runsAway = false;           ///< no stable electrothermal state in this point
+    std::optional<double> loopGain;  ///< largest eigenvalue of ∂P/∂T·Z_th (dimensionless)
+    QString dominantMode;            ///< "common" or "differential"
+    int firstToFail = -1;            ///< device that leaves first when the bank runs away
     std::vector<BankTile> tiles;     ///< switches first, then the diode
 };
 

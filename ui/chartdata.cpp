@@ -437,7 +437,7 @@ std::optional<ChartData> spreadOf(const Design& design, const R& full) {
                                            {QObject::tr("95th"), sp.tjMax_C.p95},
                                            {QObject::tr("99th"), sp.tjMax_C.p99}};
         if constexpr (requires { sp.cornerTjMax_C; })
-            rows.push_back({QObject::tr("worst corner"), sp.cornerTjMax_C});
+            rows.push_back({QObject::tr("corner"), sp.cornerTjMax_C});
         ChartData d = spreadPercentileData(nominal, rows, design.bank.device.tjMax_C, sp.samples, sp.runawayFraction);
         d.subtitle = QString::fromStdString(best->name) + QStringLiteral(" · ") + d.subtitle;
         return d;
@@ -455,7 +455,7 @@ ChartData spreadData(const Design& design, const Results* full) {
             return *d;
     ChartData d;
     d.id = QStringLiteral("spread-hottest-junction");
-    d.title = QObject::tr("Hottest junction across the spread of parts");
+    d.title = QObject::tr("Hottest T_j over the spread");
     d.xName = QObject::tr("Hottest T_j");
     d.yTitles = {QObject::tr("Samples")};
     d.note = full ? QObject::tr("Not computed: the engine gave no Monte Carlo spread of the bank for this design.")
@@ -466,7 +466,7 @@ ChartData spreadData(const Design& design, const Results* full) {
 ChartData spreadHistogramData(const std::vector<double>& samplesTj_C, double tjMax_C) {
     ChartData d;
     d.id = QStringLiteral("spread-hottest-junction");
-    d.title = QObject::tr("Hottest junction across the spread of parts");
+    d.title = QObject::tr("Hottest T_j over the spread");
     d.xName = QObject::tr("Hottest T_j, middle of the bin (°C)");
     d.yTitles = {QObject::tr("Samples")};
     std::vector<double> finite;
@@ -523,15 +523,15 @@ ChartData spreadPercentileData(double nominalTj_C, const std::vector<SpreadPerce
                                int samples, double runawayFraction) {
     ChartData d;
     d.id = QStringLiteral("spread-hottest-junction");
-    d.title = QObject::tr("Hottest junction across the spread of parts");
-    d.subtitle = QObject::tr("%1 samples · %2 % without a stable state")
+    d.title = QObject::tr("Hottest T_j over the spread");
+    d.subtitle = QObject::tr("%1 samples · %2 % run away")
                      .arg(samples)
                      .arg(QString::number(runawayFraction * 100.0, 'f', 1));
     d.xName = QObject::tr("Share of the samples at or below");
     d.yTitles = {QObject::tr("Hottest junction (°C)")};
     ChartColumn tj = column(QObject::tr("Hottest T_j"), QStringLiteral("°C"), ColumnRole::Bar);
     ChartColumn limit = column(QStringLiteral("T_j,max"), QStringLiteral("°C"), ColumnRole::Limit);
-    d.categories << QObject::tr("nominal bank");
+    d.categories << QObject::tr("nominal");
     tj.values.push_back(nominalTj_C);
     tj.rowColours.push_back(colours::forMargin(tjMax_C - nominalTj_C));
     limit.values.push_back(tjMax_C);
@@ -541,8 +541,16 @@ ChartData spreadPercentileData(double nominalTj_C, const std::vector<SpreadPerce
         // oxblood, written as an empty cell.
         tj.values.push_back(p.tj_C ? *p.tj_C : kNaN);
         tj.rowColours.push_back(colours::forMargin(p.tj_C ? tjMax_C - *p.tj_C : -10.0));
+        tj.standIn.resize(tj.values.size(), kNaN);
+        if (!p.tj_C) {
+            tj.standIn.back() = tjMax_C;
+            d.categories.back() += QObject::tr(" ✕");
+        }
         limit.values.push_back(tjMax_C);
     }
+    tj.standInText = QObject::tr("runs away (no stable state), drawn at T_j,max");
+    if (std::any_of(percentiles.begin(), percentiles.end(), [](const SpreadPercentile& p) { return !p.tj_C; }))
+        d.subtitle += QObject::tr(" (✕)");
     d.columns = {tj, limit};
     return d;
 }

@@ -34,6 +34,10 @@ struct ChartColumn {
     int view = -1;              ///< the view it belongs to (-1: every view)
     std::vector<double> values; ///< one per row; NaN where the value is not computed
     std::vector<QColor> rowColours; ///< bars: a colour per row (empty: the column's own colour)
+    /// Bars: the height drawn where the value is NaN (NaN or missing: no bar), with `standInText`
+    /// in the read-out. The CSV keeps the cell empty. A runaway rank of the spread stands at T_j,max.
+    std::vector<double> standIn;
+    QString standInText;
     QColor colour;              ///< invalid: the panel picks one from its own palette
 };
 

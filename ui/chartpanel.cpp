@@ -330,6 +330,9 @@ void ChartPanel::buildCategorical(QChart* chart, const std::vector<int>& shown) 
     auto* xAxis = new QBarCategoryAxis;
     xAxis->append(m_data.categories.mid(0, rows));
     xAxis->setTitleText(m_data.xName);
+    // Category names are short words; Qt would cut them to "me..." in a narrow panel while there
+    // is room beside them.
+    xAxis->setTruncateLabels(false);
     QValueAxis* yAxis = bindAxes(chart, xAxis);
     xAxis->setGridLineVisible(false);
 
@@ -527,7 +530,10 @@ void ChartPanel::fill() {
                 for (int r = 0; r < rows && r < static_cast<int>(sets.size()); ++r) {
                     const double v = valueAt(c, r);
                     QBarSet* set = sets[static_cast<std::size_t>(r)];
-                    const double shown = std::isfinite(v) ? v : 0.0;
+                    const double standIn = static_cast<std::size_t>(r) < c.standIn.size()
+                                               ? c.standIn[static_cast<std::size_t>(r)]
+                                               : std::numeric_limits<double>::quiet_NaN();
+                    const double shown = std::isfinite(v) ? v : std::isfinite(standIn) ? standIn : 0.0;
                     if (set->at(r) != shown) // each change redraws: change only what moved
                         set->replace(r, shown);
                     const QColor colour = static_cast<std::size_t>(r) < c.rowColours.size()
@@ -648,7 +654,9 @@ QString ChartPanel::readout(int row) const {
                 continue; // a layer this bar does not have
             stackSum += v;
         }
-        parts << QStringLiteral("%1 %2").arg(c.name, formatValue(v, c.unit));
+        const bool standsIn = !std::isfinite(v) && static_cast<std::size_t>(row) < c.standIn.size() &&
+                              std::isfinite(c.standIn[static_cast<std::size_t>(row)]);
+        parts << QStringLiteral("%1 %2").arg(c.name, standsIn ? c.standInText : formatValue(v, c.unit));
     }
     if (stacked)
         parts.prepend(tr("total %1").arg(formatValue(stackSum, QStringLiteral("W"))));

@@ -1,15 +1,23 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "ui/chartsview.h"
 
+#include "ui/bankstudies.h"
 #include "ui/chartpanel.h"
 #include "ui/designdocument.h"
 #include "ui/evaluationrunner.h"
+#include "ui/format.h"
+#include "ui/palette.h"
 
 #include <QHBoxLayout>
+#include <QHeaderView>
 #include <QLabel>
 #include <QProgressBar>
+#include <QScrollBar>
 #include <QTabWidget>
+#include <QTableWidget>
 #include <QVBoxLayout>
+
+#include <algorithm>
 
 namespace amp::ui {
 
@@ -51,6 +59,26 @@ ChartsView::ChartsView(DesignDocument* document, QWidget* parentWidget)
     m_profilePage = pageWith({m_profile}, parentWidget);
     m_sweepPage = pageWith({m_countSweep, m_frequencySweep}, parentWidget);
     m_spreadPage = pageWith({m_spread}, parentWidget);
+    {
+        // The bank's figures per point on the left, the spread chart on the right.
+        auto* side = new QWidget(m_spreadPage);
+        auto* column = new QVBoxLayout(side);
+        column->setContentsMargins(0, 0, 0, 0);
+        m_bankSummary = new QLabel(side);
+        m_bankSummary->setObjectName(QStringLiteral("bankSummary"));
+        m_bankSummary->setWordWrap(true);
+        m_bankStudies = new QTableWidget(side);
+        m_bankStudies->setObjectName(QStringLiteral("bankStudies"));
+        m_bankStudies->setEditTriggers(QAbstractItemView::NoEditTriggers);
+        m_bankStudies->setSelectionMode(QAbstractItemView::NoSelection);
+        m_bankStudies->setAlternatingRowColors(true);
+        m_bankStudies->setWordWrap(false);
+        m_bankStudies->verticalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
+        m_bankStudies->horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
+        column->addWidget(m_bankSummary);
+        column->addWidget(m_bankStudies, 1);
+        static_cast<QHBoxLayout*>(m_spreadPage->layout())->insertWidget(0, side, 0);
+    }
     for (QWidget* page : {m_sharingPage, m_lossPage, m_profilePage, m_sweepPage, m_spreadPage})
         page->hide();
 
@@ -80,6 +108,8 @@ ChartsView::ChartsView(DesignDocument* document, QWidget* parentWidget)
         m_progress->show();
         m_statusLabel->setText(tr("Profile and sweeps: starting"));
         markSlowOutdated();
+        if (const Results* quick = m_document->results())
+            showBankStudies(m_document->design(), *quick, false);
     });
     connect(m_runner, &EvaluationRunner::progressChanged, this, [this](int done, int total, const QString& what) {
         m_progress->setRange(0, std::max(total, 1));
@@ -101,9 +131,9 @@ ChartsView::~ChartsView() = default;
 void ChartsView::addTabsTo(QTabWidget* tabs) {
     tabs->addTab(m_sharingPage, tr("Sharing"));
     tabs->addTab(m_lossPage, tr("Losses"));
-    tabs->addTab(m_profilePage, tr("Over the profile"));
+    tabs->addTab(m_profilePage, tr("Over time"));
     tabs->addTab(m_sweepPage, tr("Sweeps"));
-    tabs->addTab(m_spreadPage, tr("Spread"));
+    tabs->addTab(m_spreadPage, tr("Stability"));
 }
 
 std::vector<ChartPanel*> ChartsView::panels() const {
@@ -146,6 +176,46 @@ void ChartsView::showQuick(int point) {
     m_current->setData(deviceCurrentData(design, op));
     m_temperature->setData(deviceTemperatureData(design, op));
     m_losses->setData(lossBreakdownData(design, op));
+    const SlowResults* slow = m_runner->latest();
+    if (!(m_runner->isCurrent() && slow && slow->full))
+        showBankStudies(design, *results, false);
+}
+
+void ChartsView::showBankStudies(const Design& design, const Results& results, bool full) {
+    const NumberFormat format = [](double v, units::Unit u) { return formatSi(v, u, 4); };
+    const BankStudyTable t = bankStudyTable(design, results, format);
+    QString summary = runawaySummary(design, results, format);
+    if (summary.isEmpty())
+        summary = tr("The bank is stable in every operating point.");
+    if (!full)
+        summary += QLatin1Char(' ') + tr("Runaway onset, ballast and spread follow when the slow run is done.");
+    m_bankSummary->setText(summary);
+    m_bankStudies->clear();
+    m_bankStudies->setColumnCount(static_cast<int>(t.points.size()) + 1);
+    m_bankStudies->setRowCount(static_cast<int>(t.rows.size()));
+    m_bankStudies->setHorizontalHeaderLabels(QStringList{tr("Bank, per operating point")} + t.points);
+    m_bankStudies->verticalHeader()->hide();
+    for (int r = 0; r < static_cast<int>(t.rows.size()); ++r) {
+        const BankStudyRow& row = t.rows[static_cast<std::size_t>(r)];
+        m_bankStudies->setItem(r, 0, new QTableWidgetItem(row.label));
+        for (int c = 0; c < row.values.size(); ++c) {
+            auto* item = new QTableWidgetItem(row.values[c]);
+            item->setTextAlignment(Qt::AlignRight | Qt::AlignVCenter);
+            if (row.values[c].contains(QStringLiteral("runs away"))) {
+                item->setBackground(colours::severity(Severity::Fail));
+                item->setForeground(colours::severityText(Severity::Fail));
+            }
+            m_bankStudies->setItem(r, c + 1, item);
+        }
+    }
+    // As wide as its columns (the chart takes the rest), at most 60 % of the page.
+    m_bankStudies->resizeColumnsToContents();
+    int width = 2 * m_bankStudies->frameWidth() + m_bankStudies->verticalScrollBar()->sizeHint().width();
+    for (int c = 0; c < m_bankStudies->columnCount(); ++c)
+        width += m_bankStudies->columnWidth(c);
+    const int page = m_spreadPage->width() > 100 ? m_spreadPage->width() : 800;
+    m_bankStudies->parentWidget()->setMaximumWidth(std::min(width, page * 3 / 5));
+    m_bankStudies->parentWidget()->setMinimumWidth(std::min(width, page * 3 / 5));
 }
 
 void ChartsView::markSlowOutdated() {
@@ -173,6 +243,10 @@ void ChartsView::showSlow() {
     }
     m_profile->setData(profile);
     m_spread->setData(spread);
+    if (full)
+        showBankStudies(design, *full, true);
+    else if (const Results* quick = m_document->results())
+        showBankStudies(m_document->design(), *quick, false);
     if (r) {
         m_countSweep->setData(sweepData(SweepKind::DeviceCount, design, r->countSweep));
         m_frequencySweep->setData(sweepData(SweepKind::PwmFrequency, design, r->frequencySweep));

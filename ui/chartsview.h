@@ -3,12 +3,17 @@
 // The workbench's charts and the slow half of the evaluation, as pages for the results tabs:
 //   Sharing       — on-state current and T_j per device against their limits (quick)
 //   Losses        — the loss of each device by cause (quick)
-//   Over the profile — T_j(t) per device and the heatsink T(t) (slow: full evaluation)
+//   Over time     — T_j(t) per device and the heatsink T(t) (slow: full evaluation)
 //   Sweeps        — hottest T_j, efficiency and loss against the number of switches and the PWM
 //                   frequency (slow: design copies)
-//   Spread        — the hottest T_j across the bank's parameter spread (slow: full evaluation)
+//   Stability     — the bank's stability per point (loop gain, runaway onset and first
+//                   device, smallest ballast, Monte Carlo percentiles) beside the hottest T_j across
+//                   the parts' spread (slow: full evaluation; the quick figures until it arrives)
 // The quick pages follow every edit within the same event (showQuick); the slow pages are redrawn
 // when the runner delivers, and say so while a new run is under way.
+
+#include "core/engine/results.h"
+#include "core/model/design.h"
 
 #include <QObject>
 #include <QString>
@@ -17,6 +22,7 @@
 
 class QLabel;
 class QProgressBar;
+class QTableWidget;
 class QTabWidget;
 class QWidget;
 
@@ -47,12 +53,16 @@ class ChartsView : public QObject {
     ChartPanel* countSweep() const { return m_countSweep; }
     ChartPanel* frequencySweep() const { return m_frequencySweep; }
     ChartPanel* spread() const { return m_spread; }
+    /// The bank's figures per operating point beside the spread chart.
+    QTableWidget* bankStudies() const { return m_bankStudies; }
+    QLabel* bankSummary() const { return m_bankSummary; }
     std::vector<ChartPanel*> panels() const;
     /// The page holding a panel (for tests and screenshots).
     QWidget* pageOf(const ChartPanel* panel) const;
 
   private:
     void showSlow();
+    void showBankStudies(const Design& design, const Results& results, bool full);
     void markSlowOutdated();
 
     DesignDocument* m_document = nullptr;
@@ -69,6 +79,8 @@ class ChartsView : public QObject {
     ChartPanel* m_countSweep = nullptr;
     ChartPanel* m_frequencySweep = nullptr;
     ChartPanel* m_spread = nullptr;
+    QTableWidget* m_bankStudies = nullptr;
+    QLabel* m_bankSummary = nullptr;
     QWidget* m_status = nullptr;
     QLabel* m_statusLabel = nullptr;
     QProgressBar* m_progress = nullptr;

@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "ui/designsheet.h"
 
+#include "ui/bankstudies.h"
+
 #include "ui/sheetcharts.h"
 
 #include "core/checks/catalogue.h"
@@ -45,6 +47,7 @@ const QString kGlance = QStringLiteral("At a glance");
 const QString kInputs = QStringLiteral("Inputs");
 const QString kPoints = QStringLiteral("Results by operating point");
 const QString kDevices = QStringLiteral("Devices of the bank");
+const QString kBankStudies = QStringLiteral("Bank stability, ballast and spread");
 const QString kSharingChart = QStringLiteral("Current and temperature per device");
 const QString kLossChart = QStringLiteral("Where the losses go");
 const QString kTransient = QStringLiteral("Junction temperatures over the duty profile");
@@ -63,7 +66,8 @@ constexpr double kMarginBottom_mm = 12.0;
 constexpr double kBodyFont_pt = 8.5;
 constexpr double kHeaderGap_mm = 5.0; // between the header rule and the body, and body and footer
 constexpr int kPdfResolution_dpi = 600;
-constexpr int kPointsPerTable = 4;    // operating points side by side in the results table
+constexpr int kPointsPerTable = 4;
+constexpr std::size_t kLifeCyclesShown = 12; // rows of the power-cycling table    // operating points side by side in the results table
 
 QString fmt(double v, Unit u) { return QString::fromStdString(units::format(v, u, kSheetDigits)); }
 // In running text a number keeps its unit on the same line.
@@ -190,6 +194,7 @@ class SheetWriter {
     void inputs();
     void pointResults();
     void deviceTables();
+    void bankStudies();
     void sharingChart();
     void lossChart();
     void transient();
@@ -329,6 +334,17 @@ void SheetWriter::glance() {
             row("Hottest junction over the duty profile", fmt(m_r.transient->tjMax_C, Unit::Celsius),
                 QStringLiteral("%1, %2 into the profile (transient)")
                     .arg(esc(m_r.transient->tjMaxSource), fmt(m_r.transient->tjMaxTime_s, Unit::Second)));
+        const QString runaway = runawaySummary(m_d, m_r, fmt);
+        bool unstable = false;
+        std::optional<double> onset;
+        for (const auto& op : m_r.operatingPoints) {
+            unstable = unstable || (op.valid && !op.devices.empty() && (!op.bank.converged || !op.bank.stable));
+            if (op.bank.runawayLoad_A && (!onset || *op.bank.runawayLoad_A < *onset))
+                onset = op.bank.runawayLoad_A;
+        }
+        row("Thermal runaway of the bank",
+            unstable ? QStringLiteral("<b>runs away</b>") : (onset ? fmt(*onset, Unit::Ampere) : QStringLiteral("none")),
+            runaway.isEmpty() ? QStringLiteral("stable in every point, up to the current limit") : esc(runaway));
         if (m_r.stallTimeToLimit_s)
             row("Stall at the current limit", fmt(*m_r.stallTimeToLimit_s, Unit::Second),
                 QStringLiteral("until the first junction reaches its T_j,max"));
@@ -589,8 +605,10 @@ void SheetWriter::pointResults() {
         {"Electrothermal loop gain",
          [](const auto& o) {
              if (!o.bank.converged)
-                 return QStringLiteral("runaway");
-             return o.bank.loopGain ? fmt(*o.bank.loopGain, Unit::None) : dash();
+                 return QStringLiteral("<b>runs away</b>");
+             const QString gain = o.bank.loopGain ? fmt(*o.bank.loopGain, Unit::None) : dash();
+             // A gain below 1 with no state below T_j,max is still a runaway (see section "Bank stability").
+             return o.bank.stable ? gain : gain + QStringLiteral(" <b>runs away</b>");
          }},
         {"Highest / lowest device current", [](const auto& o) { return fmt(o.bank.maxMinCurrentRatio, Unit::None); }},
     };
@@ -664,6 +682,48 @@ void SheetWriter::deviceTables() {
                   dash() + "</td><td class=\"num\">" + dash() + "</td><td class=\"num\">" + fmt(fd.loss_W, Unit::Watt) +
                   "</td><td class=\"num\">" + fmt(fd.tj_C, Unit::Celsius) + "</td><td class=\"num\">" + dash() + "</td></tr>";
         m_html += "</table>";
+    }
+}
+
+void SheetWriter::bankStudies() {
+    const BankStudyTable t = bankStudyTable(m_d, m_r, fmt);
+    if (t.rows.empty())
+        return;
+    heading(kBankStudies);
+    m_html += "<p class=\"small\">The bank's electrothermal fixed point in each operating point. Loop gain: the "
+              "largest eigenvalue of (∂P/∂T)·Z_th with the bank current and duty held, dimensionless; at 1 or "
+              "more, or with no steady state below T_j,max, the bank runs away. Runaway onset: the lowest bank "
+              "on-state current at which that happens, scanned up to the current limit. Ballast: the smallest "
+              "source or emitter resistor per device that keeps the bank stable and within the sharing target, "
+              "the largest power in one of them and their loss against the bank's input power. Monte Carlo: the "
+              "parts drawn within bank.spread; a percentile that falls among samples without a stable state reads "
+              "“runs away”. Worst corner: every tolerance at the extreme that favours one device.</p>";
+    const QString summary = runawaySummary(m_d, m_r, fmt);
+    if (!summary.isEmpty())
+        m_html += "<p><b>" + esc(summary) + "</b></p>";
+    for (qsizetype start = 0; start < t.points.size(); start += kPointsPerTable) {
+        const qsizetype end = std::min<qsizetype>(t.points.size(), start + kPointsPerTable);
+        const double labelW = 42.0;
+        const double colW = (100.0 - labelW) / kPointsPerTable;
+        const double tableW = std::max(70.0, labelW + colW * static_cast<double>(end - start));
+        m_html += tableOpen(tableW);
+        m_html += QStringLiteral("<thead><tr class=\"head\"><td width=\"%1%\">Operating point</td>")
+                      .arg(100.0 * labelW / tableW, 0, 'f', 1);
+        for (qsizetype i = start; i < end; ++i)
+            m_html += QStringLiteral("<td width=\"%1%\" class=\"right\">%2</td>")
+                          .arg(100.0 * colW / tableW, 0, 'f', 1)
+                          .arg(esc(t.points[i]));
+        m_html += "</tr></thead>";
+        for (const auto& row : t.rows) {
+            m_html += "<tr><td class=\"key\">" + esc(row.label) + "</td>";
+            for (qsizetype i = start; i < end; ++i) {
+                const QString& v = row.values[i];
+                const bool bad = v.contains(QStringLiteral("runs away"));
+                m_html += "<td class=\"num\">" + (bad ? "<b>" + esc(v) + "</b>" : esc(v)) + "</td>";
+            }
+            m_html += "</tr>";
+        }
+        m_html += "</table><p class=\"gap\"></p>";
     }
 }
 
@@ -828,14 +888,40 @@ void SheetWriter::heatsinkAndLife() {
             m_html += "<p class=\"small\">" + esc(n) + "</p>";
     if (const auto& l = m_r.life) {
         if (!l->cycles.empty()) {
-            sub(QStringLiteral("Junction cycles of %1 per repetition").arg(esc(l->source)));
-            m_html += tableOpen(70.0);
-            m_html += "<thead><tr class=\"head\"><td class=\"right\">Swing ΔT_j</td><td class=\"right\">Mean T_j</td>"
-                      "<td class=\"right\">Count</td><td class=\"right\">Cycles to failure</td></tr></thead>";
+            // The cycles that wear the junction most (Miner's rule: count / cycles to failure); a
+            // profile with many small ripples would otherwise fill pages with rows that do not matter.
+            std::vector<const LifeCycleResult*> order;
             for (const auto& c : l->cycles)
+                order.push_back(&c);
+            auto damage = [](const LifeCycleResult* c) { return c->cyclesToFailure > 0.0 ? c->count / c->cyclesToFailure : 0.0; };
+            std::stable_sort(order.begin(), order.end(), [&](auto* a, auto* b) { return damage(a) > damage(b); });
+            double total = 0.0;
+            for (auto* c : order)
+                total += damage(c);
+            const std::size_t shown = std::min<std::size_t>(order.size(), kLifeCyclesShown);
+            sub(QStringLiteral("Junction cycles of %1 per repetition").arg(esc(l->source)));
+            if (shown < order.size())
+                m_html += QStringLiteral("<p class=\"small\">The %1 cycles that wear the junction most, of %2 counted "
+                                         "(the results JSON lists them all).</p>")
+                              .arg(shown)
+                              .arg(order.size());
+            m_html += tableOpen(80.0);
+            m_html += "<thead><tr class=\"head\"><td class=\"right\">Swing ΔT_j</td><td class=\"right\">Mean T_j</td>"
+                      "<td class=\"right\">Count</td><td class=\"right\">Cycles to failure</td>"
+                      "<td class=\"right\">Share of the wear</td></tr></thead>";
+            double listed = 0.0;
+            for (std::size_t i = 0; i < shown; ++i) {
+                const LifeCycleResult& c = *order[i];
+                listed += damage(&c);
                 m_html += "<tr><td class=\"num\">" + fmt(c.range_K, Unit::Kelvin) + "</td><td class=\"num\">" +
                           fmt(c.mean_C, Unit::Celsius) + "</td><td class=\"num\">" + fmt(c.count, Unit::None) +
-                          "</td><td class=\"num\">" + fmt(c.cyclesToFailure, Unit::None) + "</td></tr>";
+                          "</td><td class=\"num\">" + fmt(c.cyclesToFailure, Unit::None) + "</td><td class=\"num\">" +
+                          (total > 0.0 ? fmt(damage(&c) / total, Unit::Percent) : dash()) + "</td></tr>";
+            }
+            if (shown < order.size())
+                m_html += QStringLiteral("<tr><td colspan=\"4\">%1 smaller cycles</td><td class=\"num\">%2</td></tr>")
+                              .arg(order.size() - shown)
+                              .arg(total > 0.0 ? fmt((total - listed) / total, Unit::Percent) : dash());
             m_html += "</table>";
         }
         if (!l->note.empty())
@@ -1026,12 +1112,11 @@ void SheetWriter::limits() {
     heading(kLimits);
     m_html += "<p>The numbers on this sheet come from models with stated assumptions: an averaged PWM chopper in "
               "steady state at each operating point, part values as entered (the shipped parts are invented "
-              "archetypes, not real components), and the thermal path as described. A model that is not yet in the "
-              "engine is named below; what it would add is not in these numbers. Check the result against "
+              "archetypes, not real components), and the thermal path as described. Check the result against "
               "measurements on the bench: currents with a clamp meter, temperatures with a thermocouple on the case, "
               "before the drive carries a person or a load.</p>";
     if (!m_r.warnings.empty()) {
-        m_html += "<p><b>Model notes for this design</b></p><ul>";
+        m_html += "<p><b>Model notes for this design</b> (what these models leave out is not in the numbers)</p><ul>";
         for (const auto& w : m_r.warnings)
             m_html += "<li>" + esc(w) + "</li>";
         m_html += "</ul>";
@@ -1050,6 +1135,7 @@ QString SheetWriter::html() {
     pointResults();
     if (hasDevices(m_r)) {
         deviceTables();
+        bankStudies();
         sharingChart();
         lossChart();
     }

@@ -13,6 +13,7 @@
 #include "ui/pointtable.h"
 #include "ui/profileeditor.h"
 #include "ui/recentfiles.h"
+#include "ui/safetyview.h"
 #include "ui/sectionpage.h"
 #include "ui/sections.h"
 #include "ui/sheetactions.h"
@@ -248,6 +249,8 @@ void MainWindow::buildCentre() {
     m_detailTabs->addTab(m_deviceTable, tr("Per device"));
     m_charts = new ChartsView(m_document, this);
     m_charts->addTabsTo(m_detailTabs);
+    m_safety = new SafetyView(m_detailTabs);
+    m_detailTabs->addTab(m_safety, tr("Safety"));
     connect(m_findings, &FindingsList::fieldRequested, this, &MainWindow::focusField);
     column->addWidget(m_detailTabs, 1);
 
@@ -289,6 +292,8 @@ void MainWindow::showResults() {
         m_deviceTable->clearPoint();
         m_findings->setChecks({});
         m_charts->showQuick(-1);
+        m_safety->clearResults();
+        m_detailTabs->setTabText(m_detailTabs->indexOf(m_safety), tr("Safety"));
         return;
     }
     m_evalLabel->setPalette(QPalette());
@@ -322,7 +327,17 @@ void MainWindow::showResults() {
     m_pointTable->setResults(design, *results, m_selectedPoint);
     m_charts->showQuick(m_selectedPoint);
     m_findings->setChecks(results->checks);
-    m_detailTabs->setTabText(0, tr("Findings (%1)").arg(FindingsList::tally(results->checks)));
+    // The full tally is in the status bar; the tab counts failures and warnings, so the tabs fit.
+    {
+        std::vector<Check> raised;
+        for (const auto& c : results->checks)
+            if (c.severity == Severity::Fail || c.severity == Severity::Warning)
+                raised.push_back(c);
+        m_detailTabs->setTabText(0, raised.empty() ? tr("Findings")
+                                                   : tr("Findings (%1)").arg(FindingsList::tally(raised)));
+    }
+    const int cautions = m_safety->setResults(design, *results);
+    m_detailTabs->setTabText(m_detailTabs->indexOf(m_safety), tr("Safety (%1)").arg(cautions));
 
     if (m_selectedPoint < 0) {
         m_bankView->setMessage(tr("The design has no operating points: add a segment to the duty profile."));

@@ -26,6 +26,7 @@ class DeviceTable;
 class FieldEditor;
 class FindingsList;
 class PointTable;
+class SafetyView;
 class SectionPage;
 
 class MainWindow : public QMainWindow {
@@ -57,6 +58,7 @@ class MainWindow : public QMainWindow {
     DeviceTable* deviceTable() const { return m_deviceTable; }
     FindingsList* findingsList() const { return m_findings; }
     ChartsView* charts() const { return m_charts; }
+    SafetyView* safetyView() const { return m_safety; }
     ProfileEditor* profileEditor() const { return m_profile; }
     QString evaluationStatus() const;
 
@@ -99,6 +101,7 @@ class MainWindow : public QMainWindow {
     FindingsList* m_findings = nullptr;
     QTabWidget* m_detailTabs = nullptr;
     ChartsView* m_charts = nullptr;
+    SafetyView* m_safety = nullptr;
     QLabel* m_pointsCaption = nullptr;
     QLabel* m_evalLabel = nullptr;
     QLabel* m_tallyLabel = nullptr;

@@ -23,6 +23,7 @@
 #include <QRegularExpression>
 #include <QScrollBar>
 #include <QSignalBlocker>
+#include <QStyle>
 #include <QTableWidget>
 #include <QVBoxLayout>
 
@@ -265,6 +266,8 @@ ProfileEditor::ProfileEditor(DesignDocument* document, QWidget* parent) : QWidge
     m_table->setEditTriggers(QAbstractItemView::DoubleClicked | QAbstractItemView::EditKeyPressed |
                              QAbstractItemView::AnyKeyPressed);
     m_table->horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
+    // The name column is sized in refresh(): room to type a name, whatever the names are now.
+    m_table->horizontalHeader()->setSectionResizeMode(Name, QHeaderView::Interactive);
     // Eight columns do not fit a narrow page: the table scrolls sideways, the last column fills.
     m_table->horizontalHeader()->setStretchLastSection(true);
     m_table->setHorizontalScrollMode(QAbstractItemView::ScrollPerPixel);
@@ -377,6 +380,7 @@ void ProfileEditor::refresh() {
     }
     if (rows > 0 && keepRow >= 0)
         m_table->setCurrentCell(std::min(keepRow, rows - 1), std::max(keepColumn, 0));
+    m_table->setColumnWidth(Name, nameColumnWidth());
     // Tall enough for the rows (a long profile scrolls), so the preview gets the rest.
     const int shownRows = std::clamp(rows, 3, 12);
     m_table->setFixedHeight(m_table->horizontalHeader()->sizeHint().height() +
@@ -387,6 +391,20 @@ void ProfileEditor::refresh() {
     m_refreshing = false;
     updateButtons();
     updatePreview();
+}
+
+int ProfileEditor::nameColumnWidth() const {
+    // At least room for a name of about 16 characters (a short phrase such as "Return empty");
+    // longer names widen it up to about 32, beyond that the cell's tooltip and editor show it.
+    const QFontMetrics fm(m_table->font());
+    const int pad = 2 * m_table->style()->pixelMetric(QStyle::PM_FocusFrameHMargin, nullptr, m_table) + 16;
+    const int least = fm.horizontalAdvance(QStringLiteral("Return empty ab")) + pad;
+    const int most = 2 * least;
+    int widest = QFontMetrics(m_table->horizontalHeader()->font()).horizontalAdvance(m_table->horizontalHeaderItem(Name)->text()) + pad;
+    for (int r = 0; r < m_table->rowCount(); ++r)
+        if (const QTableWidgetItem* item = m_table->item(r, Name))
+            widest = std::max(widest, fm.horizontalAdvance(item->text()) + pad);
+    return std::clamp(widest, least, most);
 }
 
 void ProfileEditor::updateButtons() {

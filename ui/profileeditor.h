@@ -85,6 +85,8 @@ class ProfileEditor : public QWidget {
   private:
     void showError(const QString& message);
     void updateButtons();
+    /// Width of the segment-name column for the names in the table (pixels).
+    int nameColumnWidth() const;
     void updatePreview();
     void cellEdited(QTableWidgetItem* item);
     int currentRow() const;

@@ -516,6 +516,12 @@ void TestCharts::spreadHistogramCountsEverySample() {
                                              1000, 0.012);
     QCOMPARE(p.categories.size(), 4);
     QVERIFY(std::isnan(p.columns.front().values[3]));
+    // ... but it is drawn, at the limit it passed, and named as a runaway in its label.
+    QCOMPARE(p.columns.front().standIn.size(), std::size_t(4));
+    QCOMPARE(p.columns.front().standIn[3], 150.0);
+    QVERIFY(std::isnan(p.columns.front().standIn[2]));
+    QVERIFY(p.categories[3].endsWith(QStringLiteral("✕")));
+    QVERIFY(!p.categories[2].endsWith(QStringLiteral("✕")));
     const QList<QStringList> rows = csvRecords(csvText(p));
     QCOMPARE(rows[4].value(1), QString());
     QCOMPARE(rows[2].value(1).toDouble(), 101.0);

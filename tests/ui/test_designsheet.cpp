@@ -190,6 +190,55 @@ class TestDesignSheet : public QObject {
                      c.at("message").get<std::string>().c_str());
     }
 
+    void bankStudiesOfTheResultsJson() {
+        // The bipolar demo runs away in its heavy segment. The sheet must say so, with the onset,
+        // the first device, the smallest ballast and the Monte Carlo spread, each number as the
+        // results JSON of `ampwright evaluate` has it (README, "Results JSON": bank.runawayLoad_A,
+        // firstToFail, minimumBallast_ohm, spread.tjMax_C.p50, spread.runawayFraction).
+        const QString file = QString::fromStdString((test::demoDir() / "yard-robot-bipolar.ampw").string());
+        const QString json = out("bipolar-results.json");
+        int code = -1;
+        capture(AMPWRIGHT_CLI, {"evaluate", file, "--json", json, "--quiet"}, &code);
+        QCOMPARE(code, 0);
+        const auto j = json::parse(test::readText(json.toStdString()));
+        const LoadResult loaded = loadProject(file.toStdString());
+        QVERIFY(loaded);
+        const Pdf pdf = render(*loaded.design, "bipolar-bank.pdf");
+        QVERIFY(pdf.text.contains("Bank stability, ballast and spread"));
+        using units::Unit;
+        int unstable = 0;
+        for (const auto& op : j.at("operatingPoints")) {
+            const auto& b = op.at("bank");
+            const QString name = q(op.at("name").get<std::string>());
+            if (!b.at("stable").get<bool>()) {
+                ++unstable;
+                // The headline names the point, the first device and the onset load.
+                QVERIFY(!b.at("runawayLoad_A").is_null() && !b.at("firstToFail").is_null());
+                const QString line = QStringLiteral("The bank runs away in “%1”, device %2 first: the onset is at %3")
+                                         .arg(name)
+                                         .arg(b.at("firstToFail").get<int>())
+                                         .arg(sheetNumber(b.at("runawayLoad_A").get<double>(), Unit::Ampere));
+                QVERIFY2(pdf.text.contains(line), qPrintable(line));
+            }
+            for (const char* key : {"runawayLoad_A", "minimumBallast_ohm"})
+                if (!b.at(key).is_null() && b.at(key).get<double>() > 0.0) {
+                    const QString v = sheetNumber(b.at(key).get<double>(), key[0] == 'r' ? Unit::Ampere : Unit::Ohm);
+                    QVERIFY2(pdf.text.contains(v), qPrintable(name + ": " + key + " " + v));
+                }
+            const auto& sp = b.at("spread");
+            QVERIFY(!sp.is_null());
+            const QString fraction = sheetNumber(sp.at("runawayFraction").get<double>(), Unit::Percent);
+            QVERIFY2(pdf.text.contains("Samples without a stable state"), "runaway fraction row");
+            QVERIFY2(pdf.text.contains(fraction), qPrintable(fraction));
+            if (!sp.at("tjMax_C").at("p50").is_null()) {
+                const QString p50 = sheetNumber(sp.at("tjMax_C").at("p50").get<double>(), Unit::Celsius);
+                QVERIFY2(pdf.text.contains(p50), qPrintable(p50));
+            }
+        }
+        QVERIFY2(unstable >= 1, "the bipolar demo is meant to run away in one segment");
+        QVERIFY(pdf.text.contains("Thermal runaway of the bank runs away"));
+    }
+
     void failedChecksAndCautionsArePrinted() {
         // One device on a small heatsink, magnets limited to 150 A: the junction, derating, lead
         // and demagnetisation checks fail (see test_checks_catalogue for the estimates).

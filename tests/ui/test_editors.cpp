@@ -85,6 +85,7 @@ class TestEditors : public QObject {
 
     void profileCellEditsUndoRedoExactly();
     void profileTableTypingAndRefusal();
+    void profileNameColumnFitsTheNames();
     void addRemoveMoveSegments();
     void previewDrawsTheEvaluatedCurrent();
     void findingsAndFocusReachNewPages();
@@ -164,6 +165,26 @@ void TestEditors::profileCellEditsUndoRedoExactly() {
     }
     // The table shows the design after redo.
     QCOMPARE(editor.table()->item(0, ProfileEditor::Name)->text(), QString("Pull away"));
+}
+
+void TestEditors::profileNameColumnFitsTheNames() {
+    // The segment-name column leaves room to read and type a name: at least the width of a
+    // two-word name measured with the table's own font (QFontMetrics, exact), and it grows with
+    // a longer name rather than cutting it.
+    DesignDocument doc;
+    QVERIFY(doc.load(demoFile()));
+    ProfileEditor editor(&doc);
+    editor.resize(520, 600);
+    editor.show();
+    QVERIFY(QTest::qWaitForWindowExposed(&editor));
+    QTableWidget* table = editor.table();
+    const QFontMetrics fm(table->font());
+    QVERIFY2(table->columnWidth(ProfileEditor::Name) > fm.horizontalAdvance(QStringLiteral("Return empty")),
+             qPrintable(QString::number(table->columnWidth(ProfileEditor::Name))));
+    const QString longer = QStringLiteral("Climb the loading ramp");
+    QVERIFY(editor.enterCell(0, ProfileEditor::Name, longer));
+    QVERIFY2(table->columnWidth(ProfileEditor::Name) > fm.horizontalAdvance(longer),
+             qPrintable(QString::number(table->columnWidth(ProfileEditor::Name))));
 }
 
 void TestEditors::profileTableTypingAndRefusal() {

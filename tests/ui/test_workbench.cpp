@@ -7,6 +7,7 @@
 // design changed directly in C++), the SI prefixes (ISO 80000-1: k = 10³, m = 10⁻³), the RKM
 // resistor code of IEC 60062 ("4k7" = 4.7 kΩ, "4R7" = 4.7 Ω) and the project file as written.
 
+#include "core/checks/cautions.h"
 #include "core/engine/evaluate.h"
 #include "core/io/projectfile.h"
 #include "core/model/design.h"
@@ -20,8 +21,10 @@
 #include "ui/designdocument.h"
 #include "ui/fieldeditor.h"
 #include "ui/findingslist.h"
+#include "ui/format.h"
 #include "ui/mainwindow.h"
 #include "ui/pointtable.h"
+#include "ui/safetyview.h"
 #include "ui/workbench.h"
 
 #include <nlohmann/json.hpp>
@@ -36,6 +39,8 @@
 #include <QStackedWidget>
 #include <QStandardPaths>
 #include <QTabWidget>
+#include <QTableWidget>
+#include <QLabel>
 #include <QTest>
 #include <QTimer>
 #include <QUndoStack>
@@ -89,6 +94,8 @@ class TestWorkbench : public QObject {
     void findingJumpsToItsField();
     void screenshotOfDemo();
     void screenshotsOfCharts();
+    void bipolarDemoShowsItsRunaway();
+    void safetyCautionsAreShown();
     void entryPointOpensDemoOrFile();
 };
 
@@ -541,6 +548,72 @@ void TestWorkbench::screenshotsOfCharts() {
         sweep->setCurrentView(0);
     }
     qInfo("chart screenshots: %s", qPrintable(written.join(", ")));
+}
+
+void TestWorkbench::bipolarDemoShowsItsRunaway() {
+    // The bipolar demo runs away in its heavy segment: the bank view says so with the first
+    // device, and the Stability tab gives the onset load and the smallest ballast, as the engine
+    // computes them for the same design (amp::evaluateFull, the slow run's evaluation).
+    const QString file = QString::fromStdString((test::demoDir() / "yard-robot-bipolar.ampw").string());
+    MainWindow window;
+    window.resize(1440, 900);
+    window.show();
+    QVERIFY(QTest::qWaitForWindowExposed(&window));
+    QVERIFY(window.openExample(file));
+    QVERIFY(window.charts()->runner()->waitUntilIdle(180000));
+    QVERIFY(window.charts()->runner()->isCurrent());
+    const Results reference = evaluateFull(window.document()->design());
+    int unstable = -1;
+    for (std::size_t i = 0; i < reference.operatingPoints.size(); ++i)
+        if (!reference.operatingPoints[i].bank.stable && unstable < 0)
+            unstable = static_cast<int>(i);
+    QVERIFY2(unstable >= 0, "the bipolar demo is meant to run away in one segment");
+    const auto& op = reference.operatingPoints[static_cast<std::size_t>(unstable)];
+    QVERIFY(op.bank.runawayLoad_A && op.bank.firstToFail);
+
+    window.selectPoint(unstable);
+    const BankPicture& picture = window.bankView()->picture();
+    QVERIFY(picture.runsAway);
+    QCOMPARE(picture.firstToFail, *op.bank.firstToFail);
+
+    QTableWidget* table = window.charts()->bankStudies();
+    QVERIFY(table);
+    int column = -1;
+    for (int c = 1; c < table->columnCount(); ++c)
+        if (table->horizontalHeaderItem(c)->text() == QString::fromStdString(op.name))
+            column = c;
+    QVERIFY(column > 0);
+    auto cell = [&](const QString& rowStart) {
+        for (int r = 0; r < table->rowCount(); ++r)
+            if (table->item(r, 0)->text().startsWith(rowStart))
+                return table->item(r, column)->text();
+        return QString();
+    };
+    QCOMPARE(cell("Electrothermal state"), QStringLiteral("runs away"));
+    QCOMPARE(cell("Runaway onset"), formatSi(*op.bank.runawayLoad_A, units::Unit::Ampere, 4));
+    QCOMPARE(cell("First device to fail"), QStringLiteral("device %1").arg(*op.bank.firstToFail));
+    if (op.bank.minimumBallast_ohm && *op.bank.minimumBallast_ohm > 0.0)
+        QCOMPARE(cell("Smallest ballast per device"), formatSi(*op.bank.minimumBallast_ohm, units::Unit::Ohm, 4));
+    QVERIFY(op.bank.spread);
+    QCOMPARE(cell("Samples without a stable state"), formatSi(op.bank.spread->runawayFraction, units::Unit::Percent, 4));
+    QVERIFY(window.charts()->bankSummary()->text().contains(QString::fromStdString(op.name)));
+}
+
+void TestWorkbench::safetyCautionsAreShown() {
+    // Every caution core/checks/cautions.h gives for the demo is on the Safety tab, with the
+    // closing statement that local codes and licensed practice decide; the tab counts them.
+    MainWindow window;
+    QVERIFY(window.openExample(demoFile()));
+    const auto cautions = cautionsFor(window.document()->design(), *window.document()->results());
+    QVERIFY(cautions.size() >= 3);
+    const QString shown = window.safetyView()->toPlainText();
+    for (const auto& c : cautions) {
+        QVERIFY2(shown.contains(QString::fromStdString(c.title)), c.title.c_str());
+        QVERIFY2(shown.contains(QString::fromStdString(c.text)), c.text.c_str());
+    }
+    QVERIFY(shown.contains("Local codes, the machine's or vehicle's regulations and licensed practice decide."));
+    auto* tabs = window.findChild<QTabWidget*>("detailTabs");
+    QCOMPARE(tabs->tabText(tabs->indexOf(window.safetyView())), QStringLiteral("Safety (%1)").arg(cautions.size()));
 }
 
 void TestWorkbench::entryPointOpensDemoOrFile() {
