@@ -9,6 +9,10 @@ namespace amp::thermal {
 
 namespace {
 
+// A step in which a junction moves more than this (or 4 × the re-solve step) is redone in parts.
+constexpr double kMaxStepRise_K = 10.0;
+constexpr double kMaxSubSteps = 200.0;
+
 double masslessJc(const TransientSource& s) {
     return s.zthJc.empty() ? s.rthJc_KperW : 0.0;
 }
@@ -348,7 +352,37 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
                             std::to_string(si + 1) + " at " + std::to_string(time) + " s");
                         return out;
                     }
+                const TransientState before = stepper.state();
                 stepper.advance(dt, power, seg.ambient_C);
+                double jump = 0.0;
+                for (std::size_t k = 0; k < n; ++k)
+                    jump = std::max(jump, std::abs(stepper.junction_C(k) - tj[k]));
+                const double allowed = std::max(kMaxStepRise_K, 4.0 * opt.resolveStep_K);
+                if (jump > allowed) {
+                    // The losses were held through a step in which a junction moved far. Losses that
+                    // depend strongly on temperature (a cold bipolar bank out of saturation, a bank
+                    // near runaway) are then wrong for most of the step and the junction overshoots:
+                    // redo the step in parts with the losses solved afresh at each.
+                    stepper.setState(before);
+                    const int parts = static_cast<int>(std::min(kMaxSubSteps, 2.0 * std::ceil(jump / allowed)));
+                    const double h = dt / parts;
+                    std::vector<double> now = tj;
+                    for (int m = 0; m < parts; ++m) {
+                        losses.resolve(si, now, power);
+                        ++out.resolves;
+                        if (power.size() != n || std::any_of(power.begin(), power.end(),
+                                                             [](double p) { return !std::isfinite(p); })) {
+                            out.problems.push_back("The loss model returned a power that is not a number in segment " +
+                                                   std::to_string(si + 1) + " at " + std::to_string(time) + " s");
+                            return out;
+                        }
+                        tjRef = now;
+                        powerRef = power;
+                        stepper.advance(h, power, seg.ambient_C);
+                        for (std::size_t k = 0; k < n; ++k)
+                            now[k] = stepper.junction_C(k);
+                    }
+                }
                 time += dt;
                 repTime += dt;
                 ++out.steps;

@@ -297,6 +297,30 @@ class TestThermalTransient : public QObject {
         QVERIFY(held.timeToLimit_s && *held.timeToLimit_s > *s.timeToLimit_s);
     }
 
+    void fallingLossDoesNotOvershoot() {
+        // A loss that falls as the junction warms, P = 0.5 W/K·(60 °C − T_j) (a cold bipolar
+        // device leaving its active region behaves so), into one fast stage (R 1 K/W, τ 1 ms)
+        // over an ideal sink at 25 °C: τ·dT/dt = R·P(T) − (T − 25), a first-order system that
+        // rises monotonically to T* = (0.5·60 + 25)/1.5 = 36.667 °C and never passes it [calc].
+        // With 10 ms steps the start power (17.5 W) held over a whole step would put the junction
+        // at 42.5 °C; the engine must redo such a step in parts. Limit: T* + 0.5 K.
+        const TransientNetwork net = singleSource({{1.0, 1e-3}});
+        TransientLosses l;
+        l.resolve = [](std::size_t, const std::vector<double>& tj, std::vector<double>& out) {
+            out = {std::max(0.0, 0.5 * (60.0 - tj[0]))};
+        };
+        TransientOptions opt;
+        opt.step_s = 10e-3;
+        const TransientResult r = runTransient(net, {{0.2, 25.0}}, l, opt, restState(net, 25.0));
+        QVERIFY(r.ok);
+        const double steady = (0.5 * 60.0 + 25.0) / 1.5;
+        QVERIFY2(r.tjMax_C[0] < steady + 0.5, qPrintable(QString::number(r.tjMax_C[0])));
+        // It ends near T*: within the temperature step after which the losses are solved afresh
+        // (TransientOptions::resolveStep_K), the engine's stated resolution.
+        QVERIFY2(std::abs(r.tj_C[0].back() - steady) < opt.resolveStep_K,
+                 qPrintable(QString::number(r.tj_C[0].back())));
+    }
+
     void stallTimeWithHeatsink() {
         // The bank stalled at 200 A from its 60 A steady state: the adaptive search must agree with
         // the fixed-step run (10 ms steps, full solve every step) on the crossing time within 1 %.
