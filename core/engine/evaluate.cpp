@@ -271,6 +271,8 @@ struct Electrical {
     double diodeThreshold_V = 0.0;
     double diodeLoss_W = 0.0;           // all freewheel diodes
     LossPoint losses;                   // switching, drive, recovery; every bank of the topology
+                                        // (numbers only: checksOf() adds the checks)
+    LossPointInput lossInput;           // what `losses` was computed from
     double busExtraUsed_A = 0.0;        // the bus current for those losses this solve assumed
     double busExtra_A = 0.0;            // the bus current they draw (V_bus·I = their power)
 };
@@ -345,6 +347,7 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
     // The stage's losses draw their bus current from the battery too: V_bus = V − R·(I_sw + I_x).
     // I_x depends on V_bus only weakly (the edge energies scale with it): a few passes settle it.
     double extra = busExtra_A;
+    double previousExtra = 0.0, previousResidual = 0.0;
     for (int pass = 0; pass < 20; ++pass) {
         ChopperSupply supply = c.supply;
         supply.voltage_V -= supply.resistance_ohm * extra;
@@ -365,7 +368,9 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         li.resistance_ohm = e.device_ohm;
         li.tj_C = tj_C;
         li.otherTj_C = otherTj_C;
+        li.withChecks = false;
         e.losses = computeLossPoint(c.losses, d, li);
+        e.lossInput = std::move(li);
         // Synchronous topologies: the stage has every bank's conduction (none when it could not
         // compute the point, e.g. with no bus voltage left).
         if (e.losses.computesConduction && !e.losses.banks.empty()) {
@@ -375,9 +380,20 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         }
         const double busPower = e.losses.busPower_W(standInConduction(circuit, w));
         e.busExtra_A = e.chopper.busVoltage_V > 0.0 ? busPower / e.chopper.busVoltage_V : 0.0;
-        if (std::abs(e.busExtra_A - extra) <= 1e-12 * std::max(1.0, std::abs(extra)))
+        const double residual = e.busExtra_A - extra;
+        if (std::abs(residual) <= 1e-12 * std::max(1.0, std::abs(extra)))
             break;
-        extra = e.busExtra_A;
+        // Secant steps on g(x) − x after the first pass: the map is nearly linear in x, so this
+        // settles in two or three passes where plain substitution took five or six.
+        double next = e.busExtra_A;
+        if (pass > 0 && residual != previousResidual) {
+            const double secant = extra - residual * (extra - previousExtra) / (residual - previousResidual);
+            if (std::isfinite(secant) && secant >= 0.0)
+                next = secant;
+        }
+        previousExtra = extra;
+        previousResidual = residual;
+        extra = next;
     }
     return e;
 }
@@ -646,9 +662,19 @@ Electrical chopperWithBank(const Context& c, const Demand& demand, double drop_V
     li.share = share;
     li.resistance_ohm = deviceResistance_ohm;
     li.tj_C = tj_C;
+    li.withChecks = false;
     e.losses = computeLossPoint(c.losses, d, li);
+    e.lossInput = std::move(li);
     e.busExtra_A = e.busExtraUsed_A;
     return e;
+}
+
+// The reported pass of the loss stage: the same input as the iteration's last, now with the
+// checks and their messages (the iterations leave them out for speed; the numbers are the same).
+LossPoint lossesWithChecks(const Context& c, const Electrical& e) {
+    LossPointInput li = e.lossInput;
+    li.withChecks = true;
+    return computeLossPoint(c.losses, *c.design, li);
 }
 
 BankSolve solveBankPoint(const Context& c, const Demand& demand) {
@@ -1232,7 +1258,7 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
         std::vector<double> drive(n);
         for (std::size_t k = 0; k < n; ++k)
             drive[k] = op.devices[k].drive_W;
-        recordLossPoint(e.losses, {}, {}, op, checks);
+        recordLossPoint(lossesWithChecks(c, e), {}, {}, op, checks);
         for (std::size_t k = 0; k < n; ++k) {
             DeviceResult& dv = op.devices[k];
             if (!c.mosfet)
@@ -1244,7 +1270,7 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
                                           s.thermal.junction_C.end());
         const std::vector<double> otherTcase(s.thermal.case_C.begin() + static_cast<std::ptrdiff_t>(n + 1),
                                              s.thermal.case_C.end());
-        recordLossPoint(e.losses, otherTj, otherTcase, op, checks);
+        recordLossPoint(lossesWithChecks(c, e), otherTj, otherTcase, op, checks);
     }
     op.bankLoss_W = 0.0;
     for (const auto& dv : op.devices)

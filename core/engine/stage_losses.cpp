@@ -733,6 +733,8 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
     const auto caps = losses::busCapacitors(ci);
     if (caps.ok()) {
         lp.busCapacitorRipple_A = caps.capacitorRms_A;
+    }
+    if (caps.ok() && in.withChecks) {
         const bool fitted = d.layout.capacitorCount > 0;
         lp.checks.push_back(makeCheck(
             "capacitor.ripple", caps.ripple.failed ? Severity::Fail : Severity::Pass, caps.perCapacitorRms_A,
@@ -768,7 +770,7 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
     }
 
     // ---- Overshoot and avalanche checks (at the highest bus voltage) ----
-    if (atMax.ok() && offCurrentMax > 0.0) {
+    if (in.withChecks && atMax.ok() && offCurrentMax > 0.0) {
         const double allowed = d.layout.overshootDerating * part.voltageRating_V;
         const bool high = atMax.peak_V > allowed;
         const bool over = atMax.peak_V > part.voltageRating_V;
@@ -802,7 +804,7 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
     }
 
     // ---- Safe operating area of the solver's bank ----
-    if (!part.soa.empty()) {
+    if (in.withChecks && !part.soa.empty()) {
         double worstRatio = 0.0;
         std::string worstMessage;
         bool failed = false;
@@ -847,7 +849,7 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
     }
 
     // ---- Bipolar drive at the lowest supply (needs the point's current) ----
-    if (!plan.mosfet) {
+    if (in.withChecks && !plan.mosfet) {
         double worstMargin = 1e300, value = 0.0, limit = 0.0;
         std::string message;
         bool failed = false;

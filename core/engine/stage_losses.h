@@ -93,6 +93,9 @@ struct LossPointInput {
     /// Junction temperature of each device of the other banks (bank by bank) from the previous pass.
     std::vector<double> otherTj_C;
     double diodeTj_C = 25.0;            ///< freewheel diodes
+    /// false: the numbers only, without the checks and their messages (the engine's iterations ask
+    /// so; the reported pass runs again with them, and gets the same numbers).
+    bool withChecks = true;
 };
 
 /// One device's share of the stage's losses in one operating point.

@@ -65,8 +65,9 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
             out.firstSource = k;
         }
     }
-    // A millikelvin is plenty for a decision with a 1 K margin; start from the present junctions.
-    const SteadyState steady = steadyState(net, 0, ambient_C, losses.resolve, 1e-3, &tj);
+    // A hundredth of a kelvin is plenty for a decision with a 1 K margin and a figure printed to
+    // four digits; start from the present junctions.
+    const SteadyState steady = steadyState(net, 0, ambient_C, losses.resolve, 1e-2, &tj);
     if (steady.converged)
         out.steadyTj_C = *std::max_element(steady.tj_C.begin(), steady.tj_C.end());
     if (out.timeToLimit_s)
