@@ -4,6 +4,7 @@
 #include "core/bank/banknetwork.h"
 #include "core/bank/thermalnetwork.h"
 #include "core/bank/thermalvoltage.h"
+#include "core/units/units.h"
 
 #include <Eigen/Dense>
 
@@ -36,12 +37,7 @@ const char* toString(BankMode m) {
 
 namespace {
 
-std::string num(double v, int precision = 4) {
-    std::ostringstream s;
-    s.precision(precision);
-    s << v;
-    return s.str();
-}
+std::string num(double v, int precision = 4) { return units::plain(v, precision); }
 
 class Checker {
   public:

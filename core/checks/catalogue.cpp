@@ -94,6 +94,18 @@ std::vector<CheckInfo> buildCatalogue() {
         {"bank.sharing", "Current sharing",
          "ratio of the highest to the lowest device current against the sharing target",
          "bank.sharingTarget (user's choice; 1.05–1.2 typical)", "bank.ballast_ohm", Severity::Warning},
+        {"bank.spread-runaway", "Runaway across the parts' spread",
+         "share of the Monte Carlo banks drawn from bank.spread that run away or pass T_j,max, and the "
+         "worst-case corner (full evaluation only)",
+         "this tool's rule, not a standard: fail at 1 % of the samples or more, warning below that or when "
+         "only the corner runs away",
+         "bank.ballast_ohm", Severity::Fail},
+        {"bank.runaway-margin", "Headroom to the runaway onset",
+         "the point's on-state bank current against the load where the bank starts to run away (full "
+         "evaluation, when an onset is found below the current limit)",
+         "this tool's choice: warning when the load is above 80 % of the onset, 20 % headroom for ambient, "
+         "heatsink and part spread the onset leaves out",
+         "bank.ballast_ohm", Severity::Warning},
 
         // Chopper and motor
         {"chopper.discontinuous", "Discontinuous conduction",

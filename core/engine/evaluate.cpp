@@ -17,6 +17,7 @@
 #include "core/physics/mosfet_rdson.h"
 #include "core/physics/motor.h"
 #include "core/physics/thermal_chain.h"
+#include "core/units/units.h"
 
 // GCC 12 reports a false use-after-free inside <complex> when it inlines Eigen's eigen-solver.
 #if defined(__GNUC__) && !defined(__clang__) && __GNUC__ == 12
@@ -51,7 +52,7 @@ constexpr double kJunctionMargin_K = 15.0;
 
 bool finite(double v) { return std::isfinite(v); }
 
-std::string num(double v, int digits = 3) { return fmt::format("{:.{}g}", v, digits); }
+std::string num(double v, int digits = 3) { return units::plain(v, digits); }
 
 // ---------------------------------------------------------------------------------------------
 // Input problems: evaluate() must give a clear message instead of NaN for any design that slipped
@@ -1059,6 +1060,8 @@ void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t in
                             : std::string()),
             "Match the devices or add source/emitter ballast (bank.ballast_ohm)", "bank.ballast_ohm", name));
     }
+
+    addBankStudyChecks(d, op, out); // evaluateFull only: the spread and the runaway onset
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -8,7 +8,9 @@
 #include "core/bank/spread.h"
 #include "core/bank/switchingimbalance.h"
 #include "core/bank/thermalvoltage.h"
+#include "core/checks/makecheck.h"
 #include "core/physics/thermal_chain.h"
+#include "core/units/units.h"
 
 #include <fmt/format.h>
 
@@ -18,6 +20,13 @@
 namespace amp {
 
 namespace {
+
+// bank.spread-runaway: the share of Monte Carlo banks that may run away before the check fails
+// (this tool's choice, see the header).
+constexpr double kSpreadRunawayFail = 0.01;
+// bank.runaway-margin: the highest on-state load, as a fraction of the runaway onset, that passes
+// (this tool's choice: 20 % of headroom, see the header).
+constexpr double kRunawayLoadFraction = 0.8;
 
 // The collector current the base drive is built for (see the header).
 double designCollectorCurrent(const Design& d) {
@@ -92,13 +101,14 @@ std::string baseDriveNote(const Design& d, const BankProblem& p) {
     const std::string basis =
         d.drive.baseDriveCurrent_A > 0.0
             ? std::string("drive.baseDriveCurrent_A")
-            : fmt::format("{:.3g} A / forced β {:.3g}", designCollectorCurrent(d), d.drive.forcedBeta);
+            : fmt::format("{} A / forced β {}", units::plain(designCollectorCurrent(d)),
+                          units::plain(d.drive.forcedBeta));
     return fmt::format(
-        "base drive: {:.3g} V behind {:.3g} Ω shared{}, built for {:.3g} A of base current in all ({})",
-        p.driveVoltage_V, p.driveResistance_ohm,
-        p.gateResistor_ohm > 0.0 ? fmt::format(" and {:.3g} Ω per base", p.gateResistor_ohm)
+        "base drive: {} V behind {} Ω shared{}, built for {} A of base current in all ({})",
+        units::plain(p.driveVoltage_V), units::plain(p.driveResistance_ohm),
+        p.gateResistor_ohm > 0.0 ? fmt::format(" and {} Ω per base", units::plain(p.gateResistor_ohm))
                                  : std::string(", bases tied together"),
-        ib, basis);
+        units::plain(ib), basis);
 }
 
 void addBankStudies(const Design& d, const BankProblem& p, BankResult& bank) {
@@ -149,6 +159,63 @@ void addBankStudies(const Design& d, const BankProblem& p, BankResult& bank) {
     const SwitchingImbalance sw = estimateSwitchingImbalance(p, d.pwm.frequency_Hz, p.busVoltage_V);
     if (sw.applicable)
         bank.switchingImbalance_W = sw.extraPower_W;
+}
+
+void addBankStudyChecks(const Design&, const OperatingPointResult& op, std::vector<Check>& out) {
+    const std::string& name = op.name;
+    const BankResult& b = op.bank;
+    using units::plain;
+
+    if (b.spread && b.spread->samples > 0) {
+        const BankSpreadResult& s = *b.spread;
+        const double fraction = std::clamp(s.runawayFraction, 0.0, 1.0);
+        const long long running = std::llround(fraction * s.samples);
+        const bool cornerRuns = !s.cornerTjMax_C.has_value();
+        const Severity sev = fraction >= kSpreadRunawayFail   ? Severity::Fail
+                             : fraction > 0.0 || cornerRuns ? Severity::Warning
+                                                            : Severity::Pass;
+        const std::string corner =
+            cornerRuns ? fmt::format("the worst-case corner (device {} favoured) runs away too",
+                                     s.cornerDevice.value_or(0))
+                       : fmt::format("the worst-case corner (device {} favoured) settles with its hottest "
+                                     "junction at {} °C",
+                                     s.cornerDevice.value_or(0), plain(*s.cornerTjMax_C, 4));
+        std::string message =
+            fmt::format("{}: {} of {} banks drawn from the stated spread ({} %) run away or pass T_j,max; {}", name,
+                        running, s.samples, plain(100.0 * fraction), corner);
+        if (sev != Severity::Pass && b.stable)
+            message += ", although the bank with the stated parts is stable";
+        out.push_back(makeCheck(
+            "bank.spread-runaway", sev, fraction, kSpreadRunawayFail, "",
+            "this tool's rule: fail when 1 % or more of the Monte Carlo banks run away, warning when fewer do "
+            "or only the worst-case corner does (bank.spread, core/bank/spread.h)",
+            std::move(message),
+            "Add emitter/source ballast (bank.ballast_ohm), stiffen the gate/base drive, lower the thermal "
+            "resistance (heatsink.part.rthSa_KperW), add devices (bank.count) or buy matched parts (bank.spread)",
+            "bank.ballast_ohm", name));
+    }
+
+    if (b.runawayLoad_A && *b.runawayLoad_A > 0.0) {
+        double load = 0.0; // on-state bank current, as the runaway scan counts it
+        for (const auto& dv : op.devices)
+            load += dv.current_A;
+        if (load > 0.0) {
+            const double onset = *b.runawayLoad_A;
+            const double ratio = load / onset;
+            const Severity sev = ratio > kRunawayLoadFraction ? Severity::Warning : Severity::Pass;
+            out.push_back(makeCheck(
+                "bank.runaway-margin", sev, ratio, kRunawayLoadFraction, "",
+                "this tool's rule: the on-state load at most 80 % of the runaway onset (20 % headroom for a "
+                "warmer day, a fouled heatsink or parts at their spread, which the onset does not include)",
+                fmt::format("{}: the bank runs away above {} A of on-state current (device {} first); this "
+                            "point's {} A is {} % of that onset, {} % allowed",
+                            name, plain(onset, 4), b.firstToFail.value_or(0), plain(load, 4), plain(100.0 * ratio),
+                            plain(100.0 * kRunawayLoadFraction)),
+                "Add emitter/source ballast (bank.ballast_ohm), add devices (bank.count) or lower the thermal "
+                "resistance (heatsink.part.rthSa_KperW)",
+                "bank.ballast_ohm", name));
+        }
+    }
 }
 
 } // namespace amp

@@ -34,6 +34,7 @@
 #include "core/model/design.h"
 
 #include <string>
+#include <vector>
 
 namespace amp {
 
@@ -45,5 +46,18 @@ std::string baseDriveNote(const Design& design, const BankProblem& problem);
 
 /// The studies of evaluateFull() for one operating point, written into `bank`.
 void addBankStudies(const Design& design, const BankProblem& atPoint, BankResult& bank);
+
+/// The checks on those studies for one evaluated point, appended to `out`; nothing when the
+/// studies did not run (quick evaluate()) or found nothing to judge:
+/// - bank.spread-runaway (with a Monte Carlo result): fail when 1 % or more of the samples run
+///   away, warning when fewer do or only the worst-case corner does, pass when none does. The 1 %
+///   is this tool's choice, not a standard: one bank in a hundred built from the stated spread
+///   that runs away is a field failure rate no builder accepts, and fewer than that is still a
+///   finding the samples resolve only roughly.
+/// - bank.runaway-margin (when a runaway load was found): the point's on-state bank current over
+///   the onset; warning above 0.8 (the load within 20 % of the onset), pass otherwise. The 20 % is
+///   this tool's choice: the onset holds for the stated parts, ambient and heatsink only, and
+///   part spread, a warmer day or a fouled heatsink move it down by that order.
+void addBankStudyChecks(const Design& design, const OperatingPointResult& point, std::vector<Check>& out);
 
 } // namespace amp

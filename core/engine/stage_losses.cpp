@@ -14,6 +14,7 @@
 #include "core/losses/topology.h"
 #include "core/physics/chopper.h"
 #include "core/physics/mosfet_rdson.h"
+#include "core/units/units.h"
 
 #include <fmt/format.h>
 
@@ -27,7 +28,7 @@ namespace {
 
 using losses::Topology;
 
-std::string num(double v, int digits = 3) { return fmt::format("{:.{}g}", v, digits); }
+std::string num(double v, int digits = 3) { return units::plain(v, digits); }
 
 Topology modelTopology(StageTopology t) {
     switch (t) {

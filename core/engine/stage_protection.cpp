@@ -13,6 +13,7 @@
 #include "core/protection/fuse.h"
 #include "core/protection/precharge.h"
 #include "core/protection/reversal.h"
+#include "core/units/units.h"
 
 #include <fmt/format.h>
 
@@ -38,9 +39,7 @@ constexpr double kLifeAdvice_years = 1.0;
 // Advice when the motor, slowed only by its own no-load torque, takes longer than this to stop.
 constexpr double kLongSlowDown_s = 5.0;
 
-std::string num(double v, int digits = 3) {
-    return fmt::format("{:.{}g}", v, digits);
-}
+std::string num(double v, int digits = 3) { return units::plain(v, digits); }
 
 // The makeCheck of core/checks, with a value or limit that a model left undefined (not finite)
 // shown as 0.

@@ -10,6 +10,7 @@
 #include "core/thermal/stall.h"
 #include "core/thermal/touch_temperature.h"
 #include "core/thermal/transient.h"
+#include "core/units/units.h"
 
 #include <fmt/format.h>
 
@@ -29,9 +30,7 @@ constexpr std::size_t kSamples = 1000;
 // A fin spacing this far from the optimum earns an advice.
 constexpr double kSpacingAdvice = 0.3;
 
-std::string num(double v, int digits = 3) {
-    return fmt::format("{:.{}g}", v, digits);
-}
+std::string num(double v, int digits = 3) { return units::plain(v, digits); }
 
 bool computed(const OperatingPointResult& op) {
     return op.valid && !op.devices.empty();

@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/losses/inputcheck.h"
 
+#include "core/units/units.h"
+
 #include <cmath>
 #include <cstdio>
 
@@ -11,9 +13,7 @@ std::string num(double value) {
         return "NaN";
     if (std::isinf(value))
         return value > 0 ? "infinity" : "-infinity";
-    char buffer[32];
-    std::snprintf(buffer, sizeof buffer, "%.4g", value);
-    return buffer;
+    return units::plain(value, 4);
 }
 
 bool InputCheck::finite(std::string_view field, double value, std::string_view meaning) {

@@ -271,6 +271,21 @@ std::string joinUnit(const std::string& number, std::string_view sym) {
 
 std::string_view symbol(Unit unit) { return info(unit).symbol; }
 
+std::string plain(double v, int significant) {
+    if (std::isnan(v))
+        return "not a number";
+    if (std::isinf(v))
+        return v > 0 ? "∞" : "−∞";
+    significant = std::clamp(significant, 1, 15);
+    const double r = roundSignificant(v, significant);
+    const double a = std::abs(r);
+    if (a == 0.0 || (a >= 1e-3 && a < 1e7))
+        return fixedDigits(r, significant);
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.*g", significant, r);
+    return buf;
+}
+
 Parsed parse(std::string_view text, Unit expected) {
     const std::string_view t = trim(text);
     if (t.empty())

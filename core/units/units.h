@@ -64,6 +64,11 @@ Parsed parse(std::string_view text, Unit expected);
 /// "3.5 mΩ"; temperatures as "85 °C"; significant digits as given (trailing zeros removed).
 std::string format(double si, Unit unit, int significant = 4);
 
+/// A plain number for messages: `significant` digits, trailing zeros removed, fixed notation for
+/// 1e-3 ≤ |v| < 1e7 ("10000", "3720", "0.0042") and an exponent only outside that range ("2e-05",
+/// "1.5e+08"); "not a number" and "∞" for the non-finite values.
+std::string plain(double v, int significant = 3);
+
 /// The unit's display symbol ("Ω", "K/W", "°C", "" for None).
 std::string_view symbol(Unit unit);
 

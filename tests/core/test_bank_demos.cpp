@@ -118,6 +118,31 @@ class TestBankDemos : public QObject {
         // Each ballast resistor dissipates I²·R averaged over the waveform: a few watts at the haul.
         for (const auto& dv : haul(r).devices)
             QVERIFY(dv.ballast_W > 1.0 && dv.ballast_W < 20.0);
+
+        // Stable with the stated parts, but not with parts drawn from the stated spread, and the
+        // haul sits just below the runaway onset: the full evaluation says both. The quick one
+        // has no studies and so neither check.
+        QVERIFY(!findCheck(r, "bank.spread-runaway", "Haul") && !findCheck(r, "bank.runaway-margin", "Haul"));
+        const Results full = evaluateFull(d);
+        const OperatingPointResult& f = haul(full);
+        QVERIFY(f.bank.spread.has_value() && f.bank.runawayLoad_A.has_value());
+        const Check* spread = findCheck(full, "bank.spread-runaway", "Haul");
+        QVERIFY(spread);
+        // This tool's rule: 1 % of the samples or more fails; the value is the runaway fraction.
+        QCOMPARE(spread->value, f.bank.spread->runawayFraction);
+        QCOMPARE(spread->severity, f.bank.spread->runawayFraction >= 0.01 ? Severity::Fail : Severity::Warning);
+        QVERIFY(spread->severity != Severity::Pass);
+        const Check* margin = findCheck(full, "bank.runaway-margin", "Haul");
+        QVERIFY(margin);
+        // Load over onset recomputed from the devices' on-state currents (exact, 1e-12 relative),
+        // against this tool's 0.8.
+        double onState = 0.0;
+        for (const auto& dv : f.devices)
+            onState += dv.current_A;
+        QVERIFY(std::abs(margin->value - onState / *f.bank.runawayLoad_A) <= 1e-12 * margin->value);
+        QVERIFY(margin->value > 0.8 && margin->value < 1.0);
+        QCOMPARE(margin->severity, Severity::Warning);
+        QCOMPARE(findCheck(full, "bank.runaway", "Haul")->severity, Severity::Pass);
     }
 
     void monteCarloRepeatsWithItsSeed() {

@@ -171,6 +171,24 @@ class TestUnits : public QObject {
         QVERIFY(!s.empty());
     }
 
+    void plainNumbers() {
+        // Messages print plain decimals between 1e-3 and 1e7 (this project's rule); the expected
+        // text is the value written out in decimal by hand, rounded to the digits asked for.
+        QCOMPARE(QString::fromStdString(amp::units::plain(1e4)), QString("10000"));
+        QCOMPARE(QString::fromStdString(amp::units::plain(3721.6)), QString("3720"));
+        QCOMPARE(QString::fromStdString(amp::units::plain(9999999.0, 7)), QString("9999999"));
+        QCOMPARE(QString::fromStdString(amp::units::plain(0.0042)), QString("0.0042"));
+        QCOMPARE(QString::fromStdString(amp::units::plain(-14.06)), QString("-14.1"));
+        QCOMPARE(QString::fromStdString(amp::units::plain(0.0)), QString("0"));
+        QCOMPARE(QString::fromStdString(amp::units::plain(89.9713, 4)), QString("89.97"));
+        // Outside the band an exponent is clearer than a run of zeros.
+        QCOMPARE(QString::fromStdString(amp::units::plain(2e-5)), QString("2e-05"));
+        QCOMPARE(QString::fromStdString(amp::units::plain(1.5e8)), QString("1.5e+08"));
+        // Rounding that carries into the band's edge stays readable.
+        QCOMPARE(QString::fromStdString(amp::units::plain(9996.0)), QString("10000"));
+        QCOMPARE(QString::fromStdString(amp::units::plain(std::nan(""))), QString("not a number"));
+    }
+
     void roundTrip() {
         // format() output parses back to the value within the formatted precision (4 digits:
         // relative 5e-4).
