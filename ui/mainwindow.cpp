@@ -4,6 +4,7 @@
 #include "ui/bankview.h"
 #include "ui/chartsview.h"
 #include "ui/designdocument.h"
+#include "ui/evaluationrunner.h"
 #include "ui/devicetable.h"
 #include "ui/fieldeditor.h"
 #include "ui/findingslist.h"
@@ -45,6 +46,8 @@
 #include <QVBoxLayout>
 
 #include <cmath>
+#include <set>
+#include <utility>
 
 namespace amp::ui {
 
@@ -248,6 +251,11 @@ void MainWindow::buildCentre() {
     m_detailTabs->addTab(m_findings, tr("Findings"));
     m_detailTabs->addTab(m_deviceTable, tr("Per device"));
     m_charts = new ChartsView(m_document, this);
+    // The full evaluation's own checks join the findings when it finishes.
+    connect(m_charts->runner(), &EvaluationRunner::finished, this, [this] {
+        if (const Results* quick = m_document->results())
+            refreshFindings(*quick);
+    });
     m_charts->addTabsTo(m_detailTabs);
     m_safety = new SafetyView(m_detailTabs);
     m_detailTabs->addTab(m_safety, tr("Safety"));
@@ -278,6 +286,30 @@ void MainWindow::refreshEditors(bool force) {
 
 QString MainWindow::evaluationStatus() const { return m_evalLabel->text(); }
 
+void MainWindow::refreshFindings(const Results& quick) {
+    std::vector<Check> checks = quick.checks;
+    const EvaluationRunner* runner = m_charts->runner();
+    if (runner->isCurrent() && runner->latest()->full) {
+        std::set<std::pair<std::string, std::string>> have;
+        for (const auto& c : checks)
+            have.insert({c.id, c.operatingPoint});
+        for (const auto& c : runner->latest()->full->checks)
+            if (!have.count({c.id, c.operatingPoint}))
+                checks.push_back(c);
+    }
+    m_findings->setChecks(checks);
+    m_tallyLabel->setText(FindingsList::tally(checks));
+    const Severity worst = worstSeverity(checks);
+    m_tallyLabel->setStyleSheet(QStringLiteral("QLabel { background: %1; color: %2; padding: 1px 8px; border-radius: 3px; }")
+                                    .arg(colours::severity(worst).name(), colours::severityText(worst).name()));
+    // The full tally is in the status bar; the tab counts failures and warnings, so the tabs fit.
+    std::vector<Check> raised;
+    for (const auto& c : checks)
+        if (c.severity == Severity::Fail || c.severity == Severity::Warning)
+            raised.push_back(c);
+    m_detailTabs->setTabText(0, raised.empty() ? tr("Findings") : tr("Findings (%1)").arg(FindingsList::tally(raised)));
+}
+
 void MainWindow::showResults() {
     const Results* results = m_document->results();
     const Design& design = m_document->design();
@@ -307,10 +339,7 @@ void MainWindow::showResults() {
     if (unreachable > 0)
         state += tr(" · %1 cannot be reached").arg(unreachable);
     m_evalLabel->setText(state);
-    m_tallyLabel->setText(FindingsList::tally(results->checks));
-    const Severity worst = worstSeverity(results->checks);
-    m_tallyLabel->setStyleSheet(QStringLiteral("QLabel { background: %1; color: %2; padding: 1px 8px; border-radius: 3px; }")
-                                    .arg(colours::severity(worst).name(), colours::severityText(worst).name()));
+    refreshFindings(*results);
 
     // Start on the hottest point: that is where the bank is judged.
     if (m_selectedPoint < 0 || m_selectedPoint >= static_cast<int>(points.size())) {
@@ -326,16 +355,6 @@ void MainWindow::showResults() {
     }
     m_pointTable->setResults(design, *results, m_selectedPoint);
     m_charts->showQuick(m_selectedPoint);
-    m_findings->setChecks(results->checks);
-    // The full tally is in the status bar; the tab counts failures and warnings, so the tabs fit.
-    {
-        std::vector<Check> raised;
-        for (const auto& c : results->checks)
-            if (c.severity == Severity::Fail || c.severity == Severity::Warning)
-                raised.push_back(c);
-        m_detailTabs->setTabText(0, raised.empty() ? tr("Findings")
-                                                   : tr("Findings (%1)").arg(FindingsList::tally(raised)));
-    }
     const int cautions = m_safety->setResults(design, *results);
     m_detailTabs->setTabText(m_detailTabs->indexOf(m_safety), tr("Safety (%1)").arg(cautions));
 

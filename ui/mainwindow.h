@@ -16,6 +16,10 @@ class QMenu;
 class QDragEnterEvent;
 class QDropEvent;
 
+namespace amp {
+struct Results;
+}
+
 namespace amp::ui {
 
 class BankView;
@@ -86,6 +90,10 @@ class MainWindow : public QMainWindow {
     void buildCentre();
     void updateTitle();
     void showResults();
+    /// The findings list, its tab and the status-bar tally: the quick evaluation's checks plus
+    /// those only the slow full evaluation makes (duty-profile transient, power cycling, bank
+    /// spread), once it has finished for the design as it stands.
+    void refreshFindings(const Results& quick);
     void refreshEditors(bool force);
     void showLoadProblems(const QString& path, const QStringList& problems);
 
