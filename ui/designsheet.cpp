@@ -2,7 +2,7 @@
 #include "ui/designsheet.h"
 
 #include "ui/bankstudies.h"
-
+#include "ui/fieldeditor.h"
 #include "ui/sheetcharts.h"
 
 #include "core/checks/catalogue.h"
@@ -374,7 +374,8 @@ QString fieldValue(const FieldSpec& f, const nlohmann::json& v) {
         return fmt(v.get<double>(), f.unit);
     }
     if (v.is_string())
-        return esc(v.get<std::string>());
+        return esc(f.type == FieldSpec::Type::Choice ? FieldEditor::choiceLabel(v.get<std::string>())
+                                                     : QString::fromStdString(v.get<std::string>()));
     return dash();
 }
 
