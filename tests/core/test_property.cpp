@@ -15,6 +15,7 @@
 #include <QDir>
 #include <QtTest>
 
+#include <chrono>
 #include <cmath>
 #include <exception>
 #include <fstream>
@@ -126,11 +127,13 @@ class TestProperty : public QObject {
         std::mt19937_64 rng(0x5eed0002);
         int points = 0, solved = 0, discontinuous = 0, limited = 0;
         double worstBalance = 0.0;
+        double slowest = 0.0;
         for (int i = 0; i < m_cases; ++i) {
             const test::RandomDesign r = test::randomDesign(rng, m_parts);
             const std::string which = "case " + std::to_string(i) + (r.wide ? " (wide)" : "");
             QVERIFY2(r.problems.empty(), (which + ": " + describe(r.problems)).c_str());
             Results res;
+            const auto started = std::chrono::steady_clock::now();
             try {
                 res = evaluate(r.design);
             } catch (const std::exception& e) {
@@ -138,6 +141,13 @@ class TestProperty : public QObject {
             } catch (...) {
                 QFAIL((which + ": evaluate threw something that is not a std::exception").c_str());
             }
+            // The interactive evaluation answers within a fraction of a second; a design that takes
+            // longer points at a solver that iterates without need (printed, not failed: the
+            // machine may be busy).
+            const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+            slowest = std::max(slowest, seconds);
+            if (seconds > 1.0)
+                qInfo("%s: evaluate took %.2f s (%s)", which.c_str(), seconds, keep(r.design, i).c_str());
             const nlohmann::json j = resultsToJson(res);
             const std::string bad = firstNonFinite(j);
             QVERIFY2(bad.empty(), (which + ": not finite at " + bad + "\n" + projectToJson(r.design).dump()).c_str());
@@ -178,8 +188,9 @@ class TestProperty : public QObject {
             }
         }
         spdlog::default_logger()->sinks().pop_back();
-        qInfo("%d points, %d solved (%d discontinuous, %d at the current limit); worst balance %.3g relative",
-              points, solved, discontinuous, limited, worstBalance);
+        qInfo("%d points, %d solved (%d discontinuous, %d at the current limit); worst balance %.3g relative; "
+              "slowest evaluation %.3f s",
+              points, solved, discontinuous, limited, worstBalance, slowest);
         // The generator must reach the engine's main paths (about half the points solve; the rest ask
         // for more than the supply or the limit gives), or the property proves little.
         QVERIFY(solved > points * 2 / 5);
