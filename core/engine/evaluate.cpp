@@ -304,7 +304,11 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
                  tj_C.empty() ? d.heatsink.ambient_C : *std::max_element(tj_C.begin(), tj_C.end()), circuit);
     // The stage's losses draw their bus current from the battery too: V_bus = V − R·(I_sw + I_x).
     // I_x depends on V_bus only weakly (the edge energies scale with it): a few passes settle it.
+    // Where the losses are large against what the battery can give, the sag they cause cuts them
+    // back (P_x ∝ V_bus² for the edges) and plain passes overshoot and ring: secant steps on
+    // I_x − G(I_x) from the second pass settle it either way.
     double extra = busExtra_A;
+    double lastExtra = 0.0, lastResidual = 0.0;
     for (int pass = 0; pass < 20; ++pass) {
         ChopperSupply supply = c.supply;
         supply.voltage_V -= supply.resistance_ohm * extra;
@@ -354,9 +358,18 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         }
         const double busPower = e.losses.busPower_W(standInConduction(circuit, w));
         e.busExtra_A = e.chopper.busVoltage_V > 0.0 ? busPower / e.chopper.busVoltage_V : 0.0;
-        if (std::abs(e.busExtra_A - extra) <= 1e-12 * std::max(1.0, std::abs(extra)))
+        const double residual = e.busExtra_A - extra;
+        if (std::abs(residual) <= 1e-12 * std::max(1.0, std::abs(extra)))
             break;
-        extra = e.busExtra_A;
+        double next = e.busExtra_A;
+        if (pass > 0 && residual != lastResidual) {
+            const double secant = extra - residual * (extra - lastExtra) / (residual - lastResidual);
+            if (std::isfinite(secant) && secant >= 0.0)
+                next = secant;
+        }
+        lastExtra = extra;
+        lastResidual = residual;
+        extra = next;
     }
     return e;
 }
