@@ -272,6 +272,7 @@ struct Electrical {
     LossPoint losses;                   // switching, drive, recovery; every bank of the topology
     double busExtraUsed_A = 0.0;        // the bus current for those losses this solve assumed
     double busExtra_A = 0.0;            // the bus current they draw (V_bus·I = their power)
+    bool busSettled = true;             // the bus current of those losses found (solveElectrical)
 };
 
 Electrical solveElectrical(const Context& c, const Demand& demand, const std::vector<double>& tj_C, double tjDiode_C,
@@ -359,7 +360,8 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         const double busPower = e.losses.busPower_W(standInConduction(circuit, w));
         e.busExtra_A = e.chopper.busVoltage_V > 0.0 ? busPower / e.chopper.busVoltage_V : 0.0;
         const double residual = e.busExtra_A - extra;
-        if (std::abs(residual) <= 1e-12 * std::max(1.0, std::abs(extra)))
+        e.busSettled = std::abs(residual) <= 1e-12 * std::max(1.0, std::abs(extra));
+        if (e.busSettled)
             break;
         double next = e.busExtra_A;
         if (pass > 0 && residual != lastResidual) {
@@ -1182,6 +1184,18 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     if (!w.valid) {
         op.valid = false;
         op.notes.push_back(w.problem + " (motor.armatureResistance20_ohm)");
+        return op;
+    }
+    if (!e.busSettled) {
+        // No bus current carries the stage's losses: they take more than the battery can give
+        // (at most V²/(4·R) into any load), so the bus collapses and there is no steady point.
+        op.valid = false;
+        op.notes.push_back(fmt::format("the switching, drive and recovery losses ({} W) take more than the battery "
+                                       "can give through its {} Ω (at most {} W): the bus collapses",
+                                       num(e.losses.stageLoss_W), num(c.supply.resistance_ohm),
+                                       num(c.supply.resistance_ohm > 0.0
+                                               ? c.supply.voltage_V * c.supply.voltage_V / (4.0 * c.supply.resistance_ohm)
+                                               : 0.0)));
         return op;
     }
     if (!ch.reached) {
