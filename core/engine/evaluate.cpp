@@ -276,6 +276,7 @@ struct Electrical {
     LossPointInput lossInput;           // what `losses` was computed from
     double busExtraUsed_A = 0.0;        // the bus current for those losses this solve assumed
     double busExtra_A = 0.0;            // the bus current they draw (V_bus·I = their power)
+    bool busSettled = true;             // the bus current of those losses found (solveElectrical)
 };
 
 // The motor circuit the chopper drives, with the bank's on-state drop and resistance and the
@@ -347,8 +348,11 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
                  tj_C.empty() ? d.heatsink.ambient_C : *std::max_element(tj_C.begin(), tj_C.end()), circuit);
     // The stage's losses draw their bus current from the battery too: V_bus = V − R·(I_sw + I_x).
     // I_x depends on V_bus only weakly (the edge energies scale with it): a few passes settle it.
+    // Where the losses are large against what the battery can give, the sag they cause cuts them
+    // back (P_x ∝ V_bus² for the edges) and plain passes overshoot and ring: secant steps on
+    // I_x − G(I_x) from the second pass settle it either way.
     double extra = busExtra_A;
-    double previousExtra = 0.0, previousResidual = 0.0;
+    double lastExtra = 0.0, lastResidual = 0.0;
     for (int pass = 0; pass < 20; ++pass) {
         ChopperSupply supply = c.supply;
         supply.voltage_V -= supply.resistance_ohm * extra;
@@ -382,18 +386,17 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         const double busPower = e.losses.busPower_W(standInConduction(circuit, w));
         e.busExtra_A = e.chopper.busVoltage_V > 0.0 ? busPower / e.chopper.busVoltage_V : 0.0;
         const double residual = e.busExtra_A - extra;
-        if (std::abs(residual) <= 1e-12 * std::max(1.0, std::abs(extra)))
+        e.busSettled = std::abs(residual) <= 1e-12 * std::max(1.0, std::abs(extra));
+        if (e.busSettled)
             break;
-        // Secant steps on g(x) − x after the first pass: the map is nearly linear in x, so this
-        // settles in two or three passes where plain substitution took five or six.
         double next = e.busExtra_A;
-        if (pass > 0 && residual != previousResidual) {
-            const double secant = extra - residual * (extra - previousExtra) / (residual - previousResidual);
+        if (pass > 0 && residual != lastResidual) {
+            const double secant = extra - residual * (extra - lastExtra) / (residual - lastResidual);
             if (std::isfinite(secant) && secant >= 0.0)
                 next = secant;
         }
-        previousExtra = extra;
-        previousResidual = residual;
+        lastExtra = extra;
+        lastResidual = residual;
         extra = next;
     }
     return e;
@@ -596,6 +599,7 @@ BankSolve solveBankSimple(const Context& c, const Demand& demand) {
 // temperatures, V0 and R_b. The rounds settle in a few; the bank's losses then balance the
 // chopper's energy exactly (banksolver.h: r_eff).
 constexpr int kMaxCouplingRounds = 40;
+constexpr std::size_t kMixingDepth = 5;
 
 void bankResultFrom(const BankSolution& b, BankResult& r) {
     r.converged = b.converged;
@@ -633,6 +637,19 @@ double baseDrivePower(const Context& c, const BankSolution& b) {
     double w = 0.0;
     for (const auto& dv : b.devices)
         w += b.powerScale * dv.driveCurrent_A * (dv.controlVoltage_V + b.commonNode_V - dv.voltage_V);
+    return w;
+}
+
+// Power a MOSFET bank's gate circuit puts into the source paths, averaged: the DC gate current
+// through each pull-down returns through the device's ballast and leg (banknetwork.cpp), where the
+// network books I_S² = (I_D + I_G)² of heat; the bus pays only for I_D, the driver (fed from the
+// battery, as for the drive power) for I_G·V_S. The pull-down's own I_G²·R_pd stays the driver's.
+double gateSourcePower(const Context& c, const BankSolution& b) {
+    if (!c.mosfet)
+        return 0.0;
+    double w = 0.0;
+    for (const auto& dv : b.devices)
+        w += b.powerScale * dv.driveCurrent_A * (b.commonNode_V - dv.voltage_V);
     return w;
 }
 
@@ -707,12 +724,24 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     bool runaway = false;
     BankSolution runawayState;
     // y = what the chopper sees of the bank and the diode, the heatsink's R_th,sa at the heat it
-    // takes, and the bus current of the stage's other losses: (V0, R_b, T_diode, R_th,sa, I_x). One
+    // takes, and the bus current of the stage's other losses: (V0, R_b, T_diode, R_th,sa, I_x); then
+    // the state the loss stage takes from the network, per device: share and junction temperature
+    // (the stage's switching and drive heat follow each device's share and feed back into the
+    // network: left out of y, that loop iterated unmixed, and a bank whose switching heat moves its
+    // shares strongly crept along for more rounds than allowed). One
     // round maps the chopper at y through the network to g(y); the rounds settle at g(y) = y.
-    // Anderson mixing of depth 1 on the scaled residual g − y (Walker & Ni, SIAM J. Numer. Anal. 49,
-    // 2011) cuts the rounds of this mildly contracting map to a few.
-    constexpr int kY = 5;
-    std::array<double, kY> y{}, gPrev{}, fPrev{};
+    // Anderson mixing on the scaled residual g − y over the last kMixingDepth rounds (Walker & Ni,
+    // SIAM J. Numer. Anal. 49, 2011) cuts the rounds of this mildly contracting map to a few; with
+    // the devices' states in y it needs more than one past round to capture the slow modes of a
+    // bank whose switching heat moves its shares (depth 1 crept for tens of rounds).
+    constexpr std::size_t kY = 5;
+    const std::size_t ny = kY + 2 * n;
+    std::vector<double> y(ny, 0.0), g(ny, 0.0), scale(ny, 1.0), f(ny, 0.0);
+    std::vector<std::vector<double>> histF, histG; // the last rounds' residuals and maps
+    for (std::size_t k = 0; k < n; ++k) {
+        y[kY + k] = e.sharing.share[k];
+        y[kY + n + k] = d.heatsink.ambient_C;
+    }
     {
         double heat = e.diodeLoss_W + e.losses.freewheelRecovery_W;
         for (const double w : junctionHeat(e))
@@ -720,7 +749,6 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
         y[3] = std::max(0.0, c.heatsink.rthSa(heat));
         y[4] = e.busExtraUsed_A;
     }
-    bool havePrev = false;
     for (int round = 0; round < kMaxCouplingRounds; ++round) {
         s.iterations = round + 1;
         const ChopperWaveform& w = e.chopper.waveform;
@@ -767,16 +795,25 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             for (const auto& dl : e.losses.banks.front())
                 stageBus -= dl.drive_W;
         const double vBus = e.chopper.busVoltage_V;
-        const std::array<double, kY> g{
-            b.commonNode_V - b.incrementalResistance_ohm * b.load_A, b.incrementalResistance_ohm,
-            b.heatsink_C + p.sinkExtraPower_W / c.diodes * diodeR, std::max(0.0, c.heatsink.rthSa(heat)),
-            vBus > 0.0 ? (stageBus + baseDrivePower(c, b)) / vBus : 0.0};
-        const std::array<double, kY> scale{std::max(std::abs(b.commonNode_V), 0.01),
-                                           std::max(std::abs(b.incrementalResistance_ohm), 1e-6), 1.0,
-                                           std::max(g[3], 1e-3), std::max(std::abs(g[4]), 1e-3)};
-        std::array<double, kY> f{};
+        g[0] = b.commonNode_V - b.incrementalResistance_ohm * b.load_A;
+        g[1] = b.incrementalResistance_ohm;
+        g[2] = b.heatsink_C + p.sinkExtraPower_W / c.diodes * diodeR;
+        g[3] = std::max(0.0, c.heatsink.rthSa(heat));
+        g[4] = vBus > 0.0 ? (stageBus + baseDrivePower(c, b) + gateSourcePower(c, b)) / vBus : 0.0;
+        scale[0] = std::max(std::abs(b.commonNode_V), 0.01);
+        scale[1] = std::max(std::abs(b.incrementalResistance_ohm), 1e-6);
+        scale[2] = 1.0;
+        scale[3] = std::max(g[3], 1e-3);
+        scale[4] = std::max(std::abs(g[4]), 1e-3);
+        for (std::size_t k = 0; k < n; ++k) {
+            const BankDeviceState& dv = b.devices[k];
+            g[kY + k] = dv.share;
+            g[kY + n + k] = dv.tj_C;
+            scale[kY + k] = 1.0 / static_cast<double>(n); // the average device's share
+            scale[kY + n + k] = 1.0;
+        }
         double fmax = 0.0;
-        for (int i = 0; i < kY; ++i) {
+        for (std::size_t i = 0; i < ny; ++i) {
             f[i] = (g[i] - y[i]) / scale[i];
             fmax = std::max(fmax, std::abs(f[i]));
         }
@@ -786,28 +823,39 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             settled = true;
             break;
         }
-        std::array<double, kY> yNext = g;
-        if (havePrev) {
-            double num = 0.0, den = 0.0;
-            for (int i = 0; i < kY; ++i) {
-                const double df = f[i] - fPrev[i];
-                num += f[i] * df;
-                den += df * df;
+        std::vector<double> yNext = g;
+        if (!histF.empty()) {
+            // γ = argmin ‖f − Σ_j γ_j·(f − f_j)‖ over the kept rounds j; y ← g − Σ_j γ_j·(g − g_j).
+            const auto m = static_cast<Eigen::Index>(histF.size());
+            Eigen::MatrixXd dF(static_cast<Eigen::Index>(ny), m);
+            Eigen::VectorXd fv(static_cast<Eigen::Index>(ny));
+            for (std::size_t i = 0; i < ny; ++i) {
+                fv(static_cast<Eigen::Index>(i)) = f[i];
+                for (Eigen::Index j = 0; j < m; ++j)
+                    dF(static_cast<Eigen::Index>(i), j) = f[i] - histF[static_cast<std::size_t>(j)][i];
             }
-            if (den > 0.0 && std::isfinite(num / den))
-                for (int i = 0; i < kY; ++i)
-                    yNext[i] = g[i] - (num / den) * (g[i] - gPrev[i]);
+            const Eigen::VectorXd gamma = dF.completeOrthogonalDecomposition().solve(fv);
+            if (gamma.allFinite())
+                for (std::size_t i = 0; i < ny; ++i)
+                    for (Eigen::Index j = 0; j < m; ++j)
+                        yNext[i] -= gamma(j) * (g[i] - histG[static_cast<std::size_t>(j)][i]);
         }
-        gPrev = g;
-        fPrev = f;
-        havePrev = round > 0;
-        y = yNext;
+        if (round > 0) {
+            histF.push_back(f);
+            histG.push_back(g);
+            if (histF.size() > kMixingDepth) {
+                histF.erase(histF.begin());
+                histG.erase(histG.begin());
+            }
+        }
+        y = std::move(yNext);
         std::vector<double> share(n), resistance(n), tj(n);
         for (std::size_t k = 0; k < n; ++k) {
             const BankDeviceState& dv = b.devices[k];
-            share[k] = dv.share;
+            share[k] = y[kY + k];
+            // The on-state resistance V/I only sets the stage's SOA point: the network's latest.
             resistance[k] = dv.current_A > 1e-9 ? std::max(dv.voltage_V / dv.current_A, 0.0) : 0.0;
-            tj[k] = dv.tj_C;
+            tj[k] = y[kY + n + k];
         }
         e = chopperWithBank(c, demand, y[0], std::max(y[1], 0.0), y[2], y[4], share, resistance, tj);
     }
@@ -1131,6 +1179,18 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     if (!w.valid) {
         op.valid = false;
         op.notes.push_back(w.problem + " (motor.armatureResistance20_ohm)");
+        return op;
+    }
+    if (!e.busSettled) {
+        // No bus current carries the stage's losses: they take more than the battery can give
+        // (at most V²/(4·R) into any load), so the bus collapses and there is no steady point.
+        op.valid = false;
+        op.notes.push_back(fmt::format("the switching, drive and recovery losses ({} W) take more than the battery "
+                                       "can give through its {} Ω (at most {} W): the bus collapses",
+                                       num(e.losses.stageLoss_W), num(c.supply.resistance_ohm),
+                                       num(c.supply.resistance_ohm > 0.0
+                                               ? c.supply.voltage_V * c.supply.voltage_V / (4.0 * c.supply.resistance_ohm)
+                                               : 0.0)));
         return op;
     }
     if (!ch.reached) {

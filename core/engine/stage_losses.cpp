@@ -695,7 +695,22 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
             lp.overshoot_V = atPoint.overshoot_V;
             lp.avalancheEnergy_J = atPoint.avalancheEnergy_J;
             if (atPoint.avalanches) {
-                // Every hard turn-off clamps; the device with the largest share takes it (worst case).
+                // Every hard turn-off clamps, and one device takes it all (worst case): the one that
+                // carries the most current at equal junction temperatures (the lowest on-state path
+                // at 25 °C; in a bipolar bank the lowest V_BE). A fixed choice: picked by the shares
+                // at the solved temperatures, the clamp heat hopped to whichever device its own
+                // heating had just made the largest, and the coupled solve had no fixed point.
+                std::size_t worst = 0;
+                auto rank = [&](std::size_t k) {
+                    if (k >= d.bank.devices.size())
+                        return 0.0;
+                    const auto& dev = d.bank.devices[k];
+                    return plan.mosfet ? part.mosfet.rdsOn25_ohm * (1.0 + dev.rdsOnDeviation) + ballast(k) + leg(k)
+                                       : dev.vbeDeviation_V;
+                };
+                for (std::size_t k = 1; k < nz; ++k)
+                    if (rank(k) < rank(worst))
+                        worst = k;
                 for (std::size_t b = 0; b < share.size(); ++b) {
                     int offs = 0;
                     for (const auto& e : events)
@@ -703,8 +718,6 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
                             ++offs;
                     if (offs == 0)
                         continue;
-                    const auto worst = static_cast<std::size_t>(
-                        std::max_element(share[b].begin(), share[b].end()) - share[b].begin());
                     const double p = offs * atPoint.avalanche_W;
                     lp.banks[b][worst].switching_W += p;
                     lp.banks[b][worst].junction_W += p;

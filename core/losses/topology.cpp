@@ -336,14 +336,47 @@ TopologyResult topologyCurrents(const TopologyInput& in) {
                         ba.diode.avg += weight * s.diode_A;
                         ba.diode.sq += weight * s.diode_A * s.diode_A;
                         ba.diode.loss += weight * s.diodeLoss_W;
-                        if (s.diode_A > 0.0)
-                            ba.diode.fraction += weight;
-                        if (states[k][l] != LegState::Dead && (s.channel_A > 0.0 || x == 0.0))
-                            ba.channel.fraction += weight; // gated on and carrying (or no current at all)
                     }
                 }
                 busAvg += weight * bus;
                 busSq += weight * bus * bus;
+            }
+            // Conduction times: a part keeps one current sign, so its channel either carries over
+            // all of it or not at all, and a diode carries where the current's magnitude, linear in
+            // time, exceeds the level at which it takes over. Decided per part, not per Simpson
+            // sample: a sample that lands on the zero crossing (0 or ±1e-17 A by rounding) would
+            // otherwise add or drop a sample weight of conduction time, and with it the base or
+            // gate drive that scales with it.
+            if (!chopper) {
+                const double ia = a + slope * (t0 - t[k]), ib = a + slope * (t1 - t[k]);
+                for (std::size_t l = 0; l < legs.size(); ++l) {
+                    const Leg& leg = legs[l];
+                    const double outSign = leg.sign * midI;
+                    const LegState st = states[k][l];
+                    const bool forward = (st == LegState::High && outSign >= 0.0) || (st == LegState::Low && outSign <= 0.0);
+                    const int bank = st == LegState::High  ? leg.highBank
+                                     : st == LegState::Low ? leg.lowBank
+                                     : outSign > 0.0       ? leg.lowBank
+                                                           : leg.highBank;
+                    BankAccum& ba = acc[static_cast<std::size_t>(bank)];
+                    // Gated on and carrying (or no current at all): forward, or in reverse through a
+                    // channel that conducts both ways (channelReverse gives it a share of any current).
+                    if (st != LegState::Dead && (forward || p.reverseChannel || midI == 0.0))
+                        ba.channel.fraction += span;
+                    // The diode: always in the dead time and in reverse without a reverse channel;
+                    // with one, above the current where the channel's drop reaches the diode's threshold.
+                    double level = -1.0; // no diode conduction
+                    if (st == LegState::Dead || (!forward && !p.reverseChannel))
+                        level = 0.0;
+                    else if (!forward && (p.bodyVf0_V > 0.0 || p.bodyRd_ohm > 0.0) && p.bankResistance_ohm > 0.0)
+                        level = p.bodyVf0_V / p.bankResistance_ohm;
+                    if (level >= 0.0) {
+                        const double xa = std::abs(ia), xb = std::abs(ib);
+                        const double lo = std::min(xa, xb), hi = std::max(xa, xb);
+                        if (hi > level)
+                            ba.diode.fraction += lo >= level ? span : span * (hi - level) / (hi - lo);
+                    }
+                }
             }
             if (chopper) {
                 if (states[k][0] == LegState::High)

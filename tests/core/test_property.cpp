@@ -15,6 +15,7 @@
 #include <QDir>
 #include <QtTest>
 
+#include <chrono>
 #include <cmath>
 #include <exception>
 #include <fstream>
@@ -114,10 +115,19 @@ class TestProperty : public QObject {
 
     void evaluateRandomDesigns() {
         // Runs on request only (AMPWRIGHT_PROPERTY_EVALUATE=1) until the open findings are fixed.
-        // It has found: a crash on a synchronous-topology point with no bus voltage left (fixed
-        // 2 December 2026, evaluate.cpp); the energy balance off by about 1 % in a full-bridge
-        // bipolar design at milliamps, 373 kHz and a 2.9 V bus (case 53 of this seed, open); and
-        // some designs whose full evaluation (transient, bank studies) takes minutes (open).
+        // Found and fixed (2 December 2026): a crash on a synchronous-topology point with no bus
+        // voltage left (evaluate.cpp); case 53, a bank's conduction time counted per Simpson sample
+        // so a sample on the zero crossing flipped the base drive (losses/topology.cpp); case 125,
+        // the bank coupling creeping past its 40 rounds (devices' shares and junctions now mixed);
+        // case 207, a MOSFET gate current's I_G·V_S in the source paths not drawn from the battery;
+        // case 330, the avalanche heat hopping between devices; case 424, the stage's bus current
+        // ringing unsettled; case 473, losses above what the battery can give (now an invalid
+        // point). The first 1,234 cases of this seed pass. Open: case 1235, a bipolar bank whose
+        // base drive collapses a 3.2 Ω battery on the network path (the coupling does not settle;
+        // it should be reported invalid like case 473); and large bipolar/Darlington banks whose
+        // network solve takes seconds to a minute per design (cases 119, 838, 892: Newton on the
+        // dense (2 + 4N)-unknown network, retried cold and by load stepping when it fails), which
+        // keeps 10,000 cases far beyond a few minutes.
         if (qEnvironmentVariableIsEmpty("AMPWRIGHT_PROPERTY_EVALUATE"))
             QSKIP("evaluate() over random designs runs with AMPWRIGHT_PROPERTY_EVALUATE=1 until its open findings "
                   "are fixed (see the comment)");
@@ -126,11 +136,13 @@ class TestProperty : public QObject {
         std::mt19937_64 rng(0x5eed0002);
         int points = 0, solved = 0, discontinuous = 0, limited = 0;
         double worstBalance = 0.0;
+        double slowest = 0.0;
         for (int i = 0; i < m_cases; ++i) {
             const test::RandomDesign r = test::randomDesign(rng, m_parts);
             const std::string which = "case " + std::to_string(i) + (r.wide ? " (wide)" : "");
             QVERIFY2(r.problems.empty(), (which + ": " + describe(r.problems)).c_str());
             Results res;
+            const auto started = std::chrono::steady_clock::now();
             try {
                 res = evaluate(r.design);
             } catch (const std::exception& e) {
@@ -138,6 +150,13 @@ class TestProperty : public QObject {
             } catch (...) {
                 QFAIL((which + ": evaluate threw something that is not a std::exception").c_str());
             }
+            // The interactive evaluation answers within a fraction of a second; a design that takes
+            // longer points at a solver that iterates without need (printed, not failed: the
+            // machine may be busy).
+            const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+            slowest = std::max(slowest, seconds);
+            if (seconds > 1.0)
+                qInfo("%s: evaluate took %.2f s (%s)", which.c_str(), seconds, keep(r.design, i).c_str());
             const nlohmann::json j = resultsToJson(res);
             const std::string bad = firstNonFinite(j);
             QVERIFY2(bad.empty(), (which + ": not finite at " + bad + "\n" + projectToJson(r.design).dump()).c_str());
@@ -178,8 +197,9 @@ class TestProperty : public QObject {
             }
         }
         spdlog::default_logger()->sinks().pop_back();
-        qInfo("%d points, %d solved (%d discontinuous, %d at the current limit); worst balance %.3g relative",
-              points, solved, discontinuous, limited, worstBalance);
+        qInfo("%d points, %d solved (%d discontinuous, %d at the current limit); worst balance %.3g relative; "
+              "slowest evaluation %.3f s",
+              points, solved, discontinuous, limited, worstBalance, slowest);
         // The generator must reach the engine's main paths (about half the points solve; the rest ask
         // for more than the supply or the limit gives), or the property proves little.
         QVERIFY(solved > points * 2 / 5);
