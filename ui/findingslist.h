@@ -6,7 +6,11 @@
 
 #include "core/engine/results.h"
 
+#include <QFont>
+#include <QHash>
 #include <QTableWidget>
+
+#include <vector>
 
 namespace amp::ui {
 
@@ -29,6 +33,11 @@ class FindingsList : public QTableWidget {
   private:
     void fitRows(); ///< row heights for the wrapped messages at the present column width
     bool m_rowsFitted = false;
+    std::vector<Check> m_shown;   ///< the findings as listed, row by row
+    QHash<QString, int> m_heights; ///< fitted row height by message, for the width and font below
+    int m_heightsWidth = -1;
+    int m_heightsMargin = -1;
+    QFont m_heightsFont;
 };
 
 } // namespace amp::ui
