@@ -22,7 +22,7 @@ QString toQ(const std::string& s) { return QString::fromStdString(s); }
 } // namespace
 
 FieldEditor::FieldEditor(DesignDocument* document, const FieldSpec& spec, QWidget* parent)
-    : QWidget(parent), m_document(document), m_spec(spec) {
+    : QWidget(parent), m_document(document), m_spec(spec), m_path(toQ(spec.path)) {
     auto* layout = new QVBoxLayout(this);
     layout->setContentsMargins(0, 0, 0, 0);
     layout->setSpacing(2);
@@ -75,7 +75,7 @@ FieldEditor::FieldEditor(DesignDocument* document, const FieldSpec& spec, QWidge
     refresh(true);
 }
 
-QString FieldEditor::path() const { return toQ(m_spec.path); }
+QString FieldEditor::path() const { return m_path; }
 
 QWidget* FieldEditor::input() const {
     if (m_edit)
