@@ -8,6 +8,7 @@
 
 #include <algorithm>
 #include <array>
+#include <memory>
 
 namespace amp::ui {
 
@@ -70,7 +71,6 @@ bool sameCheck(const Check& a, const Check& b) {
 struct RowTexts {
     QString message; ///< without the point in front
     QString point;
-    QString tip;
 };
 
 RowTexts rowTexts(const Check& c) {
@@ -80,6 +80,10 @@ RowTexts rowTexts(const Check& c) {
     r.point = toQ(c.operatingPoint);
     if (!r.point.isEmpty() && r.message.startsWith(r.point + QStringLiteral(": ")))
         r.message = r.message.mid(r.point.size() + 2);
+    return r;
+}
+
+QString tooltipText(const Check& c) {
     QStringList tip;
     tip << QStringLiteral("<b>%1</b>").arg(toQ(c.id).toHtmlEscaped());
     tip << toQ(c.message).toHtmlEscaped();
@@ -93,9 +97,39 @@ RowTexts rowTexts(const Check& c) {
         tip << FindingsList::tr("To change: %1").arg(toQ(c.fix).toHtmlEscaped());
     if (!c.field.empty())
         tip << FindingsList::tr("<i>Double-click to go to %1</i>").arg(toQ(c.field).toHtmlEscaped());
-    r.tip = tip.join(QStringLiteral("<br>"));
-    return r;
+    return tip.join(QStringLiteral("<br>"));
 }
+} // namespace
+
+/// A listed finding, shared by the three items of its row. The tooltip is written when first asked
+/// for (a hover), not for every finding after every edit.
+struct FindingsList::ShownFinding {
+    Check check;
+    mutable QString tip;
+    mutable bool tipWritten = false;
+    QString tooltip() const {
+        if (!tipWritten) {
+            tip = tooltipText(check);
+            tipWritten = true;
+        }
+        return tip;
+    }
+};
+
+namespace {
+class FindingItem : public QTableWidgetItem {
+  public:
+    FindingItem(const QString& text, std::shared_ptr<const FindingsList::ShownFinding> finding)
+        : QTableWidgetItem(text), m_finding(std::move(finding)) {}
+    QVariant data(int role) const override {
+        if (role == Qt::ToolTipRole)
+            return m_finding->tooltip();
+        return QTableWidgetItem::data(role);
+    }
+
+  private:
+    std::shared_ptr<const FindingsList::ShownFinding> m_finding;
+};
 } // namespace
 
 void FindingsList::setChecks(const std::vector<Check>& checks) {
@@ -108,18 +142,21 @@ void FindingsList::setChecks(const std::vector<Check>& checks) {
     // items stay and only what changed is written, so that the columns are not measured again
     // and only the rows whose message changed are fitted again.
     bool inPlace = static_cast<int>(sorted.size()) == rowCount() && m_shown.size() == sorted.size();
-    for (std::size_t i = 0; inPlace && i < sorted.size(); ++i)
-        inPlace = sorted[i]->id == m_shown[i].id && sorted[i]->severity == m_shown[i].severity &&
-                  sorted[i]->operatingPoint == m_shown[i].operatingPoint && item(static_cast<int>(i), SeverityColumn) &&
+    for (std::size_t i = 0; inPlace && i < sorted.size(); ++i) {
+        const Check& was = m_shown[i]->check;
+        inPlace = sorted[i]->id == was.id && sorted[i]->severity == was.severity &&
+                  sorted[i]->operatingPoint == was.operatingPoint && item(static_cast<int>(i), SeverityColumn) &&
                   item(static_cast<int>(i), MessageColumn) && item(static_cast<int>(i), PointColumn);
+    }
     if (inPlace) {
         bool anyMessage = false;
         for (int row = 0; row < rowCount(); ++row) {
             const Check& c = *sorted[static_cast<std::size_t>(row)];
-            Check& shown = m_shown[static_cast<std::size_t>(row)];
-            if (sameCheck(c, shown))
+            ShownFinding& shown = *m_shown[static_cast<std::size_t>(row)];
+            if (sameCheck(c, shown.check))
                 continue;
-            shown = c;
+            shown.check = c;
+            shown.tipWritten = false; // the row's items ask for it again when hovered
             const RowTexts texts = rowTexts(c);
             QTableWidgetItem* message = item(row, MessageColumn);
             if (message->text() != texts.message) {
@@ -128,9 +165,6 @@ void FindingsList::setChecks(const std::vector<Check>& checks) {
             }
             if (message->data(FieldRole).toString() != toQ(c.field))
                 message->setData(FieldRole, toQ(c.field));
-            if (message->toolTip() != texts.tip)
-                for (int column = 0; column < ColumnCount; ++column)
-                    item(row, column)->setToolTip(texts.tip);
         }
         if (anyMessage) {
             m_rowsFitted = false;
@@ -149,19 +183,19 @@ void FindingsList::setChecks(const std::vector<Check>& checks) {
     bold.setBold(true);
     for (int row = 0; row < rowCount(); ++row) {
         const Check* c = sorted[static_cast<std::size_t>(row)];
-        m_shown.push_back(*c);
-        auto* chip = new QTableWidgetItem(QString::fromLatin1(toString(c->severity)));
+        auto shown = std::make_shared<ShownFinding>();
+        shown->check = *c;
+        m_shown.push_back(shown);
+        auto* chip = new FindingItem(QString::fromLatin1(toString(c->severity)), shown);
         chip->setTextAlignment(Qt::AlignCenter);
         chip->setBackground(colours::severity(c->severity));
         chip->setForeground(colours::severityText(c->severity));
         chip->setFont(bold);
         chip->setData(SeverityRole, static_cast<int>(c->severity));
         const RowTexts texts = rowTexts(*c);
-        auto* message = new QTableWidgetItem(texts.message);
+        auto* message = new FindingItem(texts.message, shown);
         message->setData(FieldRole, toQ(c->field));
-        auto* where = new QTableWidgetItem(texts.point);
-        for (auto* item : {chip, message, where})
-            item->setToolTip(texts.tip);
+        auto* where = new FindingItem(texts.point, shown);
         setItem(row, SeverityColumn, chip);
         setItem(row, MessageColumn, message);
         setItem(row, PointColumn, where);
