@@ -102,7 +102,7 @@ QColor columnColour(const ChartColumn& c, int fallbackIndex) {
 
 } // namespace
 
-ChartPanel::ChartPanel(QWidget* parent) : QWidget(parent) {
+ChartPanel::ChartPanel(QWidget* parent) : QWidget(parent), m_niceProbe(new QValueAxis(this)) {
     auto* layout = new QVBoxLayout(this);
     layout->setContentsMargins(0, 0, 0, 0);
     layout->setSpacing(2);
@@ -556,16 +556,14 @@ void ChartPanel::fill() {
                     widen(v);
                 }
                 if (line->points() != points)
-                    if (line->points() != points)
-            line->replace(points);
+                    line->replace(points);
             }
         }
         if (anyStack)
             for (double t : stackTop)
                 widen(t);
         const auto [bottom, top] = paddedRange(lo, hi, true);
-        m_bound.y->setRange(bottom, top);
-        m_bound.y->applyNiceNumbers();
+        setNiceRange(m_bound.y, bottom, top);
         return;
     }
 
@@ -583,8 +581,7 @@ void ChartPanel::fill() {
         if (wholeX()) {
             axis->setRange(xmin - 0.5, xmax + 0.5);
         } else {
-            axis->setRange(xmin, xmax > xmin ? xmax : xmin + 1.0);
-            axis->applyNiceNumbers();
+            setNiceRange(axis, xmin, xmax > xmin ? xmax : xmin + 1.0);
         }
     }
     for (std::size_t ci = 0; ci < m_data.columns.size(); ++ci) {
@@ -616,8 +613,7 @@ void ChartPanel::fill() {
     if (std::isfinite(limitLevel) && limitLevel > lo && hi > limitLevel + 0.4 * (limitLevel - lo))
         hi = limitLevel + 0.4 * (limitLevel - lo);
     const auto [bottom, top] = paddedRange(lo, hi, false);
-    m_bound.y->setRange(bottom, top);
-    m_bound.y->applyNiceNumbers();
+    setNiceRange(m_bound.y, bottom, top);
 
     if (m_bound.ring) {
         QList<QPointF> rings;
@@ -635,6 +631,22 @@ void ChartPanel::fill() {
         if (m_bound.ring->points() != rings)
             m_bound.ring->replace(rings);
     }
+}
+
+void ChartPanel::setNiceRange(QValueAxis* axis, double lo, double hi) {
+    // setRange() and applyNiceNumbers() each lay the whole chart out again, even when the rounded
+    // range comes out as the one drawn (the usual case after a small edit). The same two calls on
+    // a detached axis holding the drawn state give the outcome; the drawn axis is touched only
+    // when that differs, and then by the same two calls.
+    m_niceProbe->setRange(axis->min(), axis->max());
+    m_niceProbe->setTickCount(axis->tickCount());
+    m_niceProbe->setRange(lo, hi);
+    m_niceProbe->applyNiceNumbers();
+    if (m_niceProbe->min() == axis->min() && m_niceProbe->max() == axis->max() &&
+        m_niceProbe->tickCount() == axis->tickCount())
+        return;
+    axis->setRange(lo, hi);
+    axis->applyNiceNumbers();
 }
 
 QString ChartPanel::readout(int row) const {

@@ -69,6 +69,8 @@ class ChartPanel : public QWidget {
     void buildCategorical(QChart* chart, const std::vector<int>& shown);
     void buildNumeric(QChart* chart, const std::vector<int>& shown);
     void fill(); ///< the table's values into the series drawn, and the axes' ranges
+    /// axis->setRange(lo, hi) then applyNiceNumbers(), skipped when that would leave it as it is.
+    void setNiceRange(QValueAxis* axis, double lo, double hi);
     QString structureKey() const;
     bool drawnLayer(const ChartColumn& c) const;
     bool wholeX() const;
@@ -102,6 +104,7 @@ class ChartPanel : public QWidget {
     QStackedWidget* m_stack = nullptr;
     QChartView* m_view = nullptr;
     QLabel* m_note = nullptr;
+    QValueAxis* m_niceProbe = nullptr; ///< detached axis: works out applyNiceNumbers() beforehand
 };
 
 } // namespace amp::ui

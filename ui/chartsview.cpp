@@ -8,6 +8,7 @@
 #include "ui/format.h"
 #include "ui/palette.h"
 
+#include <QEvent>
 #include <QHBoxLayout>
 #include <QHeaderView>
 #include <QLabel>
@@ -81,6 +82,7 @@ ChartsView::ChartsView(DesignDocument* document, QWidget* parentWidget)
     }
     for (QWidget* page : {m_sharingPage, m_lossPage, m_profilePage, m_sweepPage, m_spreadPage})
         page->hide();
+    m_spreadPage->installEventFilter(this);
 
     // The two sweeps show the same quantity.
     connect(m_countSweep, &ChartPanel::viewChanged, m_frequencySweep, &ChartPanel::setCurrentView);
@@ -181,7 +183,42 @@ void ChartsView::showQuick(int point) {
         showBankStudies(design, *results, false);
 }
 
+QTableWidget* ChartsView::bankStudies() const {
+    flushBankStudies();
+    return m_bankStudies;
+}
+
+QLabel* ChartsView::bankSummary() const {
+    flushBankStudies();
+    return m_bankSummary;
+}
+
+bool ChartsView::eventFilter(QObject* watched, QEvent* event) {
+    if (watched == m_spreadPage && event->type() == QEvent::Show)
+        flushBankStudies();
+    return QObject::eventFilter(watched, event);
+}
+
 void ChartsView::showBankStudies(const Design& design, const Results& results, bool full) {
+    // Behind another tab the table is not filled after every edit (the measuring of its columns
+    // is most of the cost): the figures wait and are filled when the page is shown.
+    if (!m_spreadPage->isVisible()) {
+        m_pendingStudies = PendingStudies{design, results, full};
+        return;
+    }
+    m_pendingStudies.reset();
+    fillBankStudies(design, results, full);
+}
+
+void ChartsView::flushBankStudies() const {
+    if (!m_pendingStudies)
+        return;
+    const PendingStudies pending = std::move(*m_pendingStudies);
+    m_pendingStudies.reset();
+    fillBankStudies(pending.design, pending.results, pending.full);
+}
+
+void ChartsView::fillBankStudies(const Design& design, const Results& results, bool full) const {
     const NumberFormat format = [](double v, units::Unit u) { return formatSi(v, u, 4); };
     const BankStudyTable t = bankStudyTable(design, results, format);
     QString summary = runawaySummary(design, results, format);

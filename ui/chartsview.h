@@ -18,6 +18,7 @@
 #include <QObject>
 #include <QString>
 
+#include <optional>
 #include <vector>
 
 class QLabel;
@@ -53,16 +54,23 @@ class ChartsView : public QObject {
     ChartPanel* countSweep() const { return m_countSweep; }
     ChartPanel* frequencySweep() const { return m_frequencySweep; }
     ChartPanel* spread() const { return m_spread; }
-    /// The bank's figures per operating point beside the spread chart.
-    QTableWidget* bankStudies() const { return m_bankStudies; }
-    QLabel* bankSummary() const { return m_bankSummary; }
+    /// The bank's figures per operating point beside the spread chart (filled now when the
+    /// Stability page was hidden at the last results: it is filled when shown).
+    QTableWidget* bankStudies() const;
+    QLabel* bankSummary() const;
     std::vector<ChartPanel*> panels() const;
     /// The page holding a panel (for tests and screenshots).
     QWidget* pageOf(const ChartPanel* panel) const;
 
+  protected:
+    bool eventFilter(QObject* watched, QEvent* event) override;
+
   private:
     void showSlow();
+    /// The table and summary now when the Stability page is shown, else when it is shown next.
     void showBankStudies(const Design& design, const Results& results, bool full);
+    void fillBankStudies(const Design& design, const Results& results, bool full) const;
+    void flushBankStudies() const;
     void markSlowOutdated();
 
     DesignDocument* m_document = nullptr;
@@ -84,6 +92,13 @@ class ChartsView : public QObject {
     QWidget* m_status = nullptr;
     QLabel* m_statusLabel = nullptr;
     QProgressBar* m_progress = nullptr;
+    /// What the bank's table waits to show while the Stability page is hidden.
+    struct PendingStudies {
+        Design design;
+        Results results;
+        bool full = false;
+    };
+    mutable std::optional<PendingStudies> m_pendingStudies;
 };
 
 } // namespace amp::ui

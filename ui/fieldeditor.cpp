@@ -22,7 +22,7 @@ QString toQ(const std::string& s) { return QString::fromStdString(s); }
 } // namespace
 
 FieldEditor::FieldEditor(DesignDocument* document, const FieldSpec& spec, QWidget* parent)
-    : QWidget(parent), m_document(document), m_spec(spec) {
+    : QWidget(parent), m_document(document), m_spec(spec), m_path(toQ(spec.path)) {
     auto* layout = new QVBoxLayout(this);
     layout->setContentsMargins(0, 0, 0, 0);
     layout->setSpacing(2);
@@ -75,7 +75,7 @@ FieldEditor::FieldEditor(DesignDocument* document, const FieldSpec& spec, QWidge
     refresh(true);
 }
 
-QString FieldEditor::path() const { return toQ(m_spec.path); }
+QString FieldEditor::path() const { return m_path; }
 
 QWidget* FieldEditor::input() const {
     if (m_edit)
@@ -95,8 +95,14 @@ void FieldEditor::refresh(bool force) {
         showError({});
     const nlohmann::json value = m_document->fieldValue(path());
     if (m_edit) {
-        m_edit->setText(formatFieldValue(m_spec, value));
-        m_edit->setCursorPosition(0);
+        // The same text, untouched and with the cursor at its start, is left as it is: setText()
+        // would lay the line out again (every editor of every page follows every edit).
+        const QString text = formatFieldValue(m_spec, value);
+        if (text != m_edit->text() || m_edit->isModified() || m_edit->cursorPosition() != 0 ||
+            m_edit->hasSelectedText()) {
+            m_edit->setText(text);
+            m_edit->setCursorPosition(0);
+        }
     } else if (m_check) {
         const QSignalBlocker block(m_check);
         m_check->setChecked(value.is_boolean() && value.get<bool>());

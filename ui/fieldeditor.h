@@ -47,6 +47,7 @@ class FieldEditor : public QWidget {
 
     DesignDocument* m_document;
     FieldSpec m_spec;
+    QString m_path; ///< m_spec.path as text (asked for after every edit)
     QLineEdit* m_edit = nullptr;
     QCheckBox* m_check = nullptr;
     QComboBox* m_combo = nullptr;

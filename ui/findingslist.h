@@ -6,7 +6,12 @@
 
 #include "core/engine/results.h"
 
+#include <QFont>
+#include <QHash>
 #include <QTableWidget>
+
+#include <memory>
+#include <vector>
 
 namespace amp::ui {
 
@@ -20,6 +25,8 @@ class FindingsList : public QTableWidget {
     /// Counts per severity, worst first ("2 fail · 1 warning · 14 pass").
     static QString tally(const std::vector<Check>& checks);
 
+    struct ShownFinding; ///< a listed finding and its tooltip (written when first asked for)
+
   signals:
     void fieldRequested(const QString& path);
 
@@ -29,6 +36,11 @@ class FindingsList : public QTableWidget {
   private:
     void fitRows(); ///< row heights for the wrapped messages at the present column width
     bool m_rowsFitted = false;
+    std::vector<std::shared_ptr<ShownFinding>> m_shown; ///< the findings as listed, row by row
+    QHash<QString, int> m_heights; ///< fitted row height by message, for the width and font below
+    int m_heightsWidth = -1;
+    int m_heightsMargin = -1;
+    QFont m_heightsFont;
 };
 
 } // namespace amp::ui

@@ -61,6 +61,11 @@ QLabel* caption(const QString& text, QWidget* parent) {
     label->setFont(f);
     return label;
 }
+/// QTabWidget::setTabText() lays the tab bar out again even for the same text.
+void setTabLabel(QTabWidget* tabs, int index, const QString& text) {
+    if (tabs->tabText(index) != text)
+        tabs->setTabText(index, text);
+}
 } // namespace
 
 MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent), m_document(new DesignDocument(this)) {
@@ -307,7 +312,7 @@ void MainWindow::refreshFindings(const Results& quick) {
     for (const auto& c : checks)
         if (c.severity == Severity::Fail || c.severity == Severity::Warning)
             raised.push_back(c);
-    m_detailTabs->setTabText(0, raised.empty() ? tr("Findings") : tr("Findings (%1)").arg(FindingsList::tally(raised)));
+    setTabLabel(m_detailTabs, 0, raised.empty() ? tr("Findings") : tr("Findings (%1)").arg(FindingsList::tally(raised)));
 }
 
 void MainWindow::showResults() {
@@ -325,7 +330,7 @@ void MainWindow::showResults() {
         m_findings->setChecks({});
         m_charts->showQuick(-1);
         m_safety->clearResults();
-        m_detailTabs->setTabText(m_detailTabs->indexOf(m_safety), tr("Safety"));
+        setTabLabel(m_detailTabs, m_detailTabs->indexOf(m_safety), tr("Safety"));
         return;
     }
     m_evalLabel->setPalette(QPalette());
@@ -356,7 +361,7 @@ void MainWindow::showResults() {
     m_pointTable->setResults(design, *results, m_selectedPoint);
     m_charts->showQuick(m_selectedPoint);
     const int cautions = m_safety->setResults(design, *results);
-    m_detailTabs->setTabText(m_detailTabs->indexOf(m_safety), tr("Safety (%1)").arg(cautions));
+    setTabLabel(m_detailTabs, m_detailTabs->indexOf(m_safety), tr("Safety (%1)").arg(cautions));
 
     if (m_selectedPoint < 0) {
         m_bankView->setMessage(tr("The design has no operating points: add a segment to the duty profile."));
@@ -375,7 +380,7 @@ void MainWindow::showResults() {
         m_bankView->setPicture(bankPicture(design, point));
         m_deviceTable->setPoint(design, point);
     }
-    m_detailTabs->setTabText(1, tr("Per device · %1").arg(QString::fromStdString(point.name)));
+    setTabLabel(m_detailTabs, 1, tr("Per device · %1").arg(QString::fromStdString(point.name)));
 }
 
 void MainWindow::selectPoint(int index) {

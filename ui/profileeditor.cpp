@@ -308,7 +308,17 @@ ProfileEditor::ProfileEditor(DesignDocument* document, QWidget* parent) : QWidge
     column->addWidget(m_preview, 1);
     column->addWidget(m_total);
 
-    connect(m_document, &DesignDocument::designChanged, this, &ProfileEditor::refresh);
+    connect(m_document, &DesignDocument::designChanged, this, [this] {
+        // Most edits are elsewhere in the design: the table keeps its items (refresh() would make
+        // every cell anew with the same text) and only the preview follows.
+        if (m_document->design().dutyProfile == m_shownProfile && m_table->font() == m_shownFont &&
+            palette() == m_shownPalette) {
+            updateButtons();
+            updatePreview();
+            return;
+        }
+        refresh();
+    });
     connect(m_document, &DesignDocument::resultsChanged, this, &ProfileEditor::updatePreview);
     refresh();
 }
@@ -389,6 +399,9 @@ void ProfileEditor::refresh() {
     m_total->setText(tr("%1 · %2 in all")
                          .arg(countOf(rows, tr("segment"), tr("segments")), readableDuration(total)));
     m_refreshing = false;
+    m_shownProfile = d.dutyProfile;
+    m_shownFont = m_table->font();
+    m_shownPalette = palette();
     updateButtons();
     updatePreview();
 }

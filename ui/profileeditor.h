@@ -6,6 +6,10 @@
 // the quick evaluation found (reverse segments below the axis), its colour the hottest junction's
 // margin. Every change goes through the DesignDocument facade and is one undoable command.
 
+#include "core/model/design.h"
+
+#include <QFont>
+#include <QPalette>
 #include <QString>
 #include <QWidget>
 
@@ -101,6 +105,11 @@ class ProfileEditor : public QWidget {
     QPushButton* m_up = nullptr;
     QPushButton* m_down = nullptr;
     bool m_refreshing = false;
+    // The profile, font and palette the table was last filled with: an edit elsewhere in the
+    // design leaves the table as it is and redraws only the preview.
+    std::vector<Segment> m_shownProfile;
+    QFont m_shownFont;
+    QPalette m_shownPalette;
 };
 
 } // namespace amp::ui

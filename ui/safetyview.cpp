@@ -39,12 +39,17 @@ SafetyView::SafetyView(QWidget* parent) : QTextBrowser(parent) {
 
 int SafetyView::setResults(const Design& design, const Results& results) {
     int n = 0;
-    setHtml(cautionsHtml(design, results, &n));
+    QString html = cautionsHtml(design, results, &n);
+    if (html != m_html) { // the document is laid out afresh on every setHtml()
+        m_html = std::move(html);
+        setHtml(m_html);
+    }
     return n;
 }
 
 void SafetyView::clearResults() {
-    setHtml(tr("<p>No results, so no cautions computed for this design.</p>") + standing());
+    m_html = tr("<p>No results, so no cautions computed for this design.</p>") + standing();
+    setHtml(m_html);
 }
 
 } // namespace amp::ui

@@ -22,6 +22,9 @@ class SafetyView : public QTextBrowser {
     int setResults(const Design& design, const Results& results);
     /// No results: the standing statement only.
     void clearResults();
+
+  private:
+    QString m_html; ///< as last given to setHtml()
 };
 
 } // namespace amp::ui
