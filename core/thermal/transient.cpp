@@ -11,7 +11,11 @@ namespace {
 
 // A step in which a junction moves more than this (or 4 × the re-solve step) is redone in parts.
 constexpr double kMaxStepRise_K = 10.0;
-constexpr double kMaxSubSteps = 200.0;
+constexpr double kMaxSubSteps = 50.0;
+// ... when the losses at the end of that step differ by more than this share from those it held,
+constexpr double kHeldLossChange = 0.2;
+// ... while a run has solves left of this many for it.
+constexpr int kSubStepBudget = 2000;
 
 double masslessJc(const TransientSource& s) {
     return s.zthJc.empty() ? s.rthJc_KperW : 0.0;
@@ -296,6 +300,7 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
     double time = 0.0;
 
     double lastSinkDrift = std::numeric_limits<double>::quiet_NaN();
+    int subStepBudget = kSubStepBudget;
     for (int rep = 0; rep < reps; ++rep) {
         const TransientState start = stepper.state();
         std::vector<ReversalTracker> rev(n, ReversalTracker(opt.reversalHysteresis_K));
@@ -358,13 +363,32 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
                 for (std::size_t k = 0; k < n; ++k)
                     jump = std::max(jump, std::abs(stepper.junction_C(k) - tj[k]));
                 const double allowed = std::max(kMaxStepRise_K, 4.0 * opt.resolveStep_K);
+                bool redo = false;
                 if (jump > allowed) {
-                    // The losses were held through a step in which a junction moved far. Losses that
-                    // depend strongly on temperature (a cold bipolar bank out of saturation, a bank
-                    // near runaway) are then wrong for most of the step and the junction overshoots:
-                    // redo the step in parts with the losses solved afresh at each.
+                    // The losses were held through a step in which a junction moved far. Where they
+                    // change steeply with the junction (a cold bipolar bank leaving its active region
+                    // falls, a bank near runaway rises), holding the start value over- or undershoots:
+                    // such a step is redone in parts with the losses solved afresh at each, within a
+                    // budget of extra solves per run (a bank that runs away would otherwise ask for
+                    // parts at every step). Losses that hardly move keep the one step: the next step
+                    // starts from the losses at its end.
+                    std::vector<double> tjEnd(n), endPower;
+                    for (std::size_t k = 0; k < n; ++k)
+                        tjEnd[k] = stepper.junction_C(k);
+                    losses.resolve(si, tjEnd, endPower);
+                    ++out.resolves;
+                    for (std::size_t k = 0; k < n && k < endPower.size(); ++k)
+                        redo = redo || !(std::abs(endPower[k] - power[k]) <= kHeldLossChange * std::abs(power[k]));
+                    redo = redo && subStepBudget > 0;
+                    if (!redo && endPower.size() == n) {
+                        tjRef = tjEnd;
+                        powerRef = endPower;
+                    }
+                }
+                if (redo) {
                     stepper.setState(before);
                     const int parts = static_cast<int>(std::min(kMaxSubSteps, 2.0 * std::ceil(jump / allowed)));
+                    subStepBudget -= parts;
                     const double h = dt / parts;
                     std::vector<double> now = tj;
                     for (int m = 0; m < parts; ++m) {
