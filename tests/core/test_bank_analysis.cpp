@@ -10,6 +10,7 @@
 #include "core/bank/spread.h"
 #include "core/bank/switchingimbalance.h"
 #include "core/bank/thermalvoltage.h"
+#include "support/bankparts.h"
 #include "support/testsupport.h"
 
 #include <QTest>
@@ -20,26 +21,11 @@ using namespace amp;
 
 namespace {
 
-SwitchPart mosfetPart() {
-    SwitchPart s;
-    s.kind = "mosfet";
-    s.currentRating_A = 120.0;
-    s.tjMax_C = 175.0;
-    s.rthJc_KperW = 0.5;
-    s.mosfet.rdsOn25_ohm = 4e-3;
-    s.mosfet.rdsOnTempExponent = 2.3;
-    s.mosfet.rdsOnSpecGate_V = 10.0;
-    s.mosfet.vth_V = 3.0;
-    s.mosfet.vthTempCoeff_VperK = -6e-3;
-    s.mosfet.transconductance_AperV2 = 60.0;
-    return s;
-}
-
 // A bank whose devices are pure R_ds(on)(T) resistors: gate at the specified voltage, no
 // pull-down, no driver resistance, no leg.
 BankProblem resistiveBank(int n, double load) {
     BankProblem p;
-    p.part = mosfetPart();
+    p.part = test::genericMosfet();
     p.devices.resize(static_cast<std::size_t>(n));
     p.load_A = load;
     p.duty = 0.9;

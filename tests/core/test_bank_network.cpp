@@ -8,6 +8,7 @@
 #include "core/bank/bjtmodel.h"
 #include "core/bank/mosfetmodel.h"
 #include "core/bank/thermalvoltage.h"
+#include "support/bankparts.h"
 #include "support/testsupport.h"
 
 #include <QTest>
@@ -64,24 +65,9 @@ BankProblem singleHeldBase(double is25, double re, double vG, double vC, double 
     return p;
 }
 
-SwitchPart genericMosfet() {
-    SwitchPart s;
-    s.kind = "mosfet";
-    s.currentRating_A = 120.0;
-    s.tjMax_C = 175.0;
-    s.rthJc_KperW = 0.5;
-    s.mosfet.rdsOn25_ohm = 4e-3;
-    s.mosfet.rdsOnTempExponent = 2.3;
-    s.mosfet.rdsOnSpecGate_V = 10.0;
-    s.mosfet.vth_V = 3.0;
-    s.mosfet.vthTempCoeff_VperK = -6e-3;
-    s.mosfet.transconductance_AperV2 = 60.0;
-    return s;
-}
-
 BankProblem mosfetBank(int n, double load) {
     BankProblem p;
-    p.part = genericMosfet();
+    p.part = test::genericMosfet();
     p.devices.resize(static_cast<std::size_t>(n));
     p.load_A = load;
     p.duty = 0.8;
