@@ -24,6 +24,7 @@
 #include <nlohmann/json.hpp>
 #include <spdlog/spdlog.h>
 
+#include <cctype>
 #include <cstdio>
 #include <fstream>
 
@@ -122,11 +123,22 @@ std::optional<int> parseArguments(QCommandLineParser& p, const QStringList& args
     return std::nullopt;
 }
 
+// A field's choice in words: "lowSideChopper" → "low side chopper".
+QString words(const std::string& camel) {
+    QString text;
+    for (const char ch : camel) {
+        if (std::isupper(static_cast<unsigned char>(ch)) && !text.isEmpty())
+            text += QChar(' ');
+        text += QChar(static_cast<char>(std::tolower(static_cast<unsigned char>(ch))));
+    }
+    return text;
+}
+
 void printSummary(const Results& r) {
     out(QString("%1%2  [%3]")
             .arg(QString::fromStdString(r.design),
                  r.variant.empty() ? QString() : QString(" · variant \"%1\"").arg(QString::fromStdString(r.variant)),
-                 QString::fromStdString(r.topology)));
+                 words(r.topology)));
     for (const auto& op : r.operatingPoints) {
         double tjMax = 0.0;
         for (const auto& d : op.devices)
