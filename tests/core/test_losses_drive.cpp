@@ -4,6 +4,7 @@
 
 #include "core/losses/diode.h"
 #include "core/losses/gate_drive.h"
+#include "support/checkrel.h"
 #include "support/testsupport.h"
 
 #include <QtTest>
@@ -11,24 +12,9 @@
 #include <cmath>
 
 using namespace amp;
+using amp::test::hasProblem;
 using namespace amp::losses;
 
-#define CHECK_REL(actual, expected, tol)                                                                    \
-    QVERIFY2(test::relDiff((actual), (expected)) <= (tol),                                                 \
-             qPrintable(QString("%1 = %2, expected %3 within %4 %")                                         \
-                            .arg(#actual)                                                                   \
-                            .arg((actual), 0, 'g', 8)                                                       \
-                            .arg((expected), 0, 'g', 8)                                                     \
-                            .arg((tol) * 100.0)))
-
-namespace {
-bool hasProblem(const std::vector<Problem>& problems, const std::string& path) {
-    for (const Problem& p : problems)
-        if (p.path == path && !p.message.empty())
-            return true;
-    return false;
-}
-} // namespace
 
 class TestLossesDrive : public QObject {
     Q_OBJECT

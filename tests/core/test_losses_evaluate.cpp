@@ -6,6 +6,7 @@
 #include "core/engine/evaluate.h"
 #include "core/engine/results_json.h"
 #include "core/model/design_json.h"
+#include "support/checkrel.h"
 #include "support/testsupport.h"
 
 #include <nlohmann/json.hpp>
@@ -19,13 +20,6 @@
 using namespace amp;
 using nlohmann::json;
 
-#define CHECK_REL(actual, expected, tol)                                                                    \
-    QVERIFY2(test::relDiff((actual), (expected)) <= (tol),                                                 \
-             qPrintable(QString("%1 = %2, expected %3 within %4 %")                                         \
-                            .arg(#actual)                                                                   \
-                            .arg((actual), 0, 'g', 10)                                                      \
-                            .arg((expected), 0, 'g', 10)                                                    \
-                            .arg((tol) * 100.0)))
 
 namespace {
 

@@ -7,6 +7,7 @@
 #include "core/losses/lineinductance.h"
 #include "core/losses/overshoot.h"
 #include "core/losses/soa.h"
+#include "support/checkrel.h"
 #include "support/testsupport.h"
 
 #include <QtTest>
@@ -16,24 +17,9 @@
 #include <numbers>
 
 using namespace amp;
+using amp::test::hasProblem;
 using namespace amp::losses;
 
-#define CHECK_REL(actual, expected, tol)                                                                    \
-    QVERIFY2(test::relDiff((actual), (expected)) <= (tol),                                                 \
-             qPrintable(QString("%1 = %2, expected %3 within %4 %")                                         \
-                            .arg(#actual)                                                                   \
-                            .arg((actual), 0, 'g', 8)                                                       \
-                            .arg((expected), 0, 'g', 8)                                                     \
-                            .arg((tol) * 100.0)))
-
-namespace {
-bool hasProblem(const std::vector<Problem>& problems, const std::string& path) {
-    for (const Problem& p : problems)
-        if (p.path == path && !p.message.empty())
-            return true;
-    return false;
-}
-} // namespace
 
 class TestLossesStress : public QObject {
     Q_OBJECT
