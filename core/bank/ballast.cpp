@@ -1,8 +1,9 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/bank/ballast.h"
 
+#include "core/units/units.h"
+
 #include <cmath>
-#include <sstream>
 
 namespace amp {
 
@@ -81,12 +82,10 @@ BallastSearch findMinimumBallast(const BankProblem& problem, double target, doub
     }
     if (!found) {
         r.solution = s;
-        std::ostringstream os;
-        os.precision(4);
-        os << "no ballast up to " << std::min(maxBallast_ohm, std::max(lo, 1e-4) * 2.0)
-           << " Ω brings the max/min current within " << target
-           << " (beyond it the drive can no longer hold the bank on, or the limit is reached)";
-        r.reason = os.str();
+        r.reason = "no ballast up to " +
+                   units::format(std::min(maxBallast_ohm, std::max(lo, 1e-4) * 2.0), units::Unit::Ohm) +
+                   " brings the max/min current within " + units::plain(target, 4) +
+                   " (beyond it the drive can no longer hold the bank on, or the limit is reached)";
         return r;
     }
     if (lo <= 0.0)
@@ -127,12 +126,11 @@ BallastSearch findMinimumBallast(const BankProblem& problem, double target, doub
         below = ohm;
     }
     r.solution = atHi;
-    std::ostringstream os;
-    os.precision(4);
-    os << sharing << " Ω brings the max/min current within " << target << ", but the bank is not stable there"
-       << (atHi.overTemperature ? " (a junction stays above T_j,max)" : "")
-       << " nor with up to four times that: ballast cannot fix an undersized heatsink or a starved drive";
-    r.reason = os.str();
+    r.reason =
+        units::format(sharing, units::Unit::Ohm) + " brings the max/min current within " +
+        units::plain(target, 4) + ", but the bank is not stable there" +
+        (atHi.overTemperature ? " (a junction stays above T_j,max)" : "") +
+        " nor with up to four times that: ballast cannot fix an undersized heatsink or a starved drive";
     return r;
 }
 

@@ -1,9 +1,10 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/bank/runaway.h"
 
+#include "core/units/units.h"
+
 #include <algorithm>
 #include <cmath>
-#include <sstream>
 
 namespace amp {
 
@@ -88,10 +89,8 @@ RunawaySearch findRunawayLoad(const BankProblem& problem, double maxLoad_A, int 
             }
             if (!bracketed) {
                 r.driveLimit_A = b;
-                std::ostringstream os;
-                os.precision(4);
-                os << "stable up to " << a << " A, where the drive can no longer hold the bank on";
-                r.cause = os.str();
+                r.cause = "stable up to " + units::plain(a, 4) +
+                          " A, where the drive can no longer hold the bank on";
                 return r;
             }
             break;

@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/losses/soa.h"
 
+#include "core/units/units.h"
+
 #include <algorithm>
 #include <cmath>
 #include <limits>
@@ -98,16 +100,19 @@ SoaResult checkStress(const SoaInput& in) {
                                num(in.voltageRating_V) + " V rating";
         } else if (chosen < 0.0) {
             pr.check.rated = false;
-            pr.check.message = in.soa.empty() ? "the part states no safe operating area"
-                                              : sp.name + ": no SOA curve covers a " + num(sp.duration_s) + " s stress";
+            pr.check.message = in.soa.empty()
+                                   ? "the part states no safe operating area"
+                                   : sp.name + ": no SOA curve covers a " +
+                                         units::format(sp.duration_s, units::Unit::Second) + " stress";
         } else {
             pr.curvePulse_s = chosen;
             pr.check.limit = soaLimit(curveOf(chosen), sp.voltage_V, in.voltageRating_V);
             pr.check.failed = sp.current_A > pr.check.limit;
             if (pr.check.failed)
-                pr.check.message = sp.name + ": " + num(sp.current_A) + " A at " + num(sp.voltage_V) + " V for " +
-                                   (chosen > 0.0 ? num(sp.duration_s) + " s" : std::string("DC")) +
-                                   " is outside the safe operating area (limit " + num(pr.check.limit) + " A)";
+                pr.check.message =
+                    sp.name + ": " + num(sp.current_A) + " A at " + num(sp.voltage_V) + " V for " +
+                    (chosen > 0.0 ? units::format(sp.duration_s, units::Unit::Second) : std::string("DC")) +
+                    " is outside the safe operating area (limit " + num(pr.check.limit) + " A)";
         }
         r.anyFailed = r.anyFailed || pr.check.failed;
         r.points.push_back(pr);

@@ -9,10 +9,10 @@
 #include "core/thermal/plate_convection.h"
 #include "core/thermal/radiation.h"
 #include "core/thermal/spreading.h"
+#include "core/units/units.h"
 
 #include <algorithm>
 #include <cmath>
-#include <sstream>
 
 namespace amp::thermal {
 
@@ -23,10 +23,7 @@ constexpr double kHorizontalFactor = 0.8; // trade estimate, see heatsink.h
 constexpr double kZeroHeatRise_K = 1.0;
 
 std::string mm(double m) {
-    std::ostringstream s;
-    s.precision(3);
-    s << m * 1e3 << " mm";
-    return s.str();
+    return units::plain(m * 1e3, 3) + " mm";
 }
 
 bool finite(double x) {

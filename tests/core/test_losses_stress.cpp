@@ -285,6 +285,20 @@ class TestLossesStress : public QObject {
         QVERIFY(r.points[1].check.message.find("outside the safe operating area") != std::string::npos);
     }
 
+    void soaMessageGivesThePulseWithAPrefix() {
+        // A pulse outside its curve is named as a designer reads it: "5 µs", never "5e-06 s".
+        SoaInput in;
+        in.voltageRating_V = 100.0;
+        in.soa = {{10.0, 300.0, 10e-6}, {100.0, 30.0, 10e-6}};
+        in.points = {{"hard turn-off", 48.0, 80.0, 5e-6}}; // limit 300·4.8^−1 = 62.5 A → outside
+        const SoaResult r = checkStress(in);
+        QVERIFY(r.ok());
+        QVERIFY(r.points[0].check.failed);
+        const std::string& m = r.points[0].check.message;
+        QVERIFY2(m.find("for 5 µs") != std::string::npos, m.c_str());
+        QVERIFY2(m.find("e-") == std::string::npos, m.c_str());
+    }
+
     void leadLimitAndShortCircuit() {
         // Trade: TO-220-class leads carry of the order of 75–100 A whatever the die rating.
         SoaInput in;
