@@ -3,17 +3,15 @@
 
 #include "core/engine/evaluate.h"
 #include "core/physics/chopper.h"
-#include "core/physics/copper.h"
-#include "core/physics/diode_conduction.h"
-#include "core/physics/mosfet_rdson.h"
-#include "core/physics/motor.h"
 #include "reference/chopperreference.h"
+#include "reference/designcircuit.h"
 
 #include <algorithm>
 #include <atomic>
 #include <chrono>
 #include <ctime>
 #include <cmath>
+#include <optional>
 #include <thread>
 #include <vector>
 
@@ -104,43 +102,21 @@ std::optional<ReferenceFigures> referenceFigures(const Design& d) {
         if (!p.valid || p.devices.empty() || p.conductionMode != "continuous")
             continue;
         // The circuit of this point with the on-resistances at the junction temperatures the engine
-        // found (as in tests/core/test_reference_chopper.cpp).
+        // found (as in tests/core/test_reference_chopper.cpp), and the engine's chopper on the same.
+        const std::optional<reference::CycleCircuit> built = reference::circuitOfPoint(d, p);
+        if (!built)
+            continue;
+        const reference::CycleCircuit& c = *built;
         ChopperCircuit e;
-        e.frequency_Hz = d.pwm.frequency_Hz;
-        e.inductance_H = d.motor.inductance_H;
-        e.loadResistance_ohm = makeMotorModel(d.motor).armatureResistance_ohm +
-                               copper::conductorResistance(d.wiring.motorCableLength_m, d.wiring.motorCable_mm2,
-                                                           d.wiring.cableTemperature_C) +
-                               (d.reversing.present ? 2.0 * d.reversing.contactor.contactResistance_ohm : 0.0);
-        e.backEmf_V = p.backEmf_V;
-        double g = 0.0;
-        for (std::size_t k = 0; k < p.devices.size() && k < d.bank.devices.size(); ++k) {
-            const auto& dev = d.bank.devices[k];
-            g += 1.0 / (rdsOn(d.bank.device.mosfet, p.devices[k].tj_C) * (1.0 + dev.rdsOnDeviation) +
-                        std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm) +
-                        std::max(0.0, d.bank.legResistance_ohm + dev.legResistanceDeviation_ohm));
-        }
-        e.switchResistance_ohm = 1.0 / g;
-        e.diodeDrop_V = diodeThreshold(d.bank.freewheelDiode, p.freewheelDiode.tj_C);
-        e.diodeResistance_ohm = d.bank.freewheelDiode.rd_ohm / std::max(1, d.bank.diodeCount);
-        const ChopperSupply supply{d.supply.nominal_V,
-                                   d.supply.internalResistance_ohm +
-                                       copper::conductorResistance(d.wiring.batteryCableLength_m, d.wiring.batteryCable_mm2,
-                                                                   d.wiring.cableTemperature_C)};
-        reference::CycleCircuit c;
-        c.batteryVoltage_V = supply.voltage_V;
-        c.batteryResistance_ohm = supply.resistance_ohm;
-        c.frequency_Hz = e.frequency_Hz;
-        c.duty = p.duty;
-        c.inductance_H = e.inductance_H;
-        c.loadResistance_ohm = e.loadResistance_ohm;
-        c.backEmf_V = e.backEmf_V;
-        c.switchResistance_ohm = e.switchResistance_ohm;
-        c.diodeDrop_V = e.diodeDrop_V;
-        c.diodeResistance_ohm = e.diodeResistance_ohm;
-        // The stage's other losses draw a bus current of their own (as evaluate() charges them).
-        const double extra = std::max(0.0, p.batteryCurrent_A - p.switchAverageCurrent_A);
-        c.busLoad_A = extra;
+        e.frequency_Hz = c.frequency_Hz;
+        e.inductance_H = c.inductance_H;
+        e.loadResistance_ohm = c.loadResistance_ohm;
+        e.backEmf_V = c.backEmf_V;
+        e.switchResistance_ohm = c.switchResistance_ohm;
+        e.diodeDrop_V = c.diodeDrop_V;
+        e.diodeResistance_ohm = c.diodeResistance_ohm;
+        const ChopperSupply supply{c.batteryVoltage_V, c.batteryResistance_ohm};
+        const double extra = c.busLoad_A;
         const reference::CycleResult r = reference::simulateChopper(c);
         ChopperSupply engineSupply = supply;
         engineSupply.voltage_V -= supply.resistance_ohm * extra;
