@@ -67,9 +67,10 @@ BankStudyTable bankStudyTable(const Design& design, const Results& results, cons
         [&](const OperatingPointResult& op) {
             if (op.bank.runawayLoad_A)
                 return format(*op.bank.runawayLoad_A, Unit::Ampere);
-            // The studies ran (evaluateFull) when there is a spread or a ballast answer.
+            // The studies ran (evaluateFull) when there is a spread or a ballast answer: the onset lies
+            // above the scan's top.
             if (op.bank.spread || op.bank.minimumBallast_ohm || op.bank.switchingImbalance_W)
-                return QStringLiteral("none up to %1").arg(format(scanTop_A, Unit::Ampere));
+                return QStringLiteral("above %1").arg(format(scanTop_A, Unit::Ampere));
             return none();
         },
         [](const OperatingPointResult& op) {
@@ -77,7 +78,7 @@ BankStudyTable bankStudyTable(const Design& design, const Results& results, cons
         });
     add(QStringLiteral("First device to fail"),
         [](const OperatingPointResult& op) { return deviceName(op.bank.firstToFail); }, never);
-    add(QStringLiteral("Max / min device current (target ≤ %1)").arg(format(design.bank.sharingTarget, Unit::None)),
+    add(QStringLiteral("Max / min current (target ≤ %1)").arg(format(design.bank.sharingTarget, Unit::None)),
         [&](const OperatingPointResult& op) { return format(op.bank.maxMinCurrentRatio, Unit::None); },
         [&](const OperatingPointResult& op) { return op.bank.maxMinCurrentRatio > design.bank.sharingTarget; });
     add(QStringLiteral("Smallest ballast per device"),

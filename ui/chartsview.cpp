@@ -14,6 +14,7 @@
 #include <QLabel>
 #include <QProgressBar>
 #include <QScrollBar>
+#include <QSplitter>
 #include <QTabWidget>
 #include <QTableWidget>
 #include <QVBoxLayout>
@@ -59,10 +60,17 @@ ChartsView::ChartsView(DesignDocument* document, QWidget* parentWidget)
     m_lossPage = pageWith({m_losses}, parentWidget);
     m_profilePage = pageWith({m_profile}, parentWidget);
     m_sweepPage = pageWith({m_countSweep, m_frequencySweep}, parentWidget);
-    m_spreadPage = pageWith({m_spread}, parentWidget);
+    m_spreadPage = new QWidget(parentWidget);
     {
-        // The bank's figures per point on the left, the spread chart on the right.
-        auto* side = new QWidget(m_spreadPage);
+        // The bank's figures per point on the left, the spread chart on the right, with a handle
+        // between them the user can drag.
+        auto* row = new QHBoxLayout(m_spreadPage);
+        row->setContentsMargins(0, 4, 0, 0);
+        m_spreadSplitter = new QSplitter(Qt::Horizontal, m_spreadPage);
+        m_spreadSplitter->setObjectName(QStringLiteral("stabilitySplitter"));
+        m_spreadSplitter->setChildrenCollapsible(false);
+        row->addWidget(m_spreadSplitter);
+        auto* side = new QWidget(m_spreadSplitter);
         auto* column = new QVBoxLayout(side);
         column->setContentsMargins(0, 0, 0, 0);
         m_bankSummary = new QLabel(side);
@@ -78,7 +86,13 @@ ChartsView::ChartsView(DesignDocument* document, QWidget* parentWidget)
         m_bankStudies->horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
         column->addWidget(m_bankSummary);
         column->addWidget(m_bankStudies, 1);
-        static_cast<QHBoxLayout*>(m_spreadPage->layout())->insertWidget(0, side, 0);
+        m_spreadSplitter->addWidget(side);
+        m_spread->setParent(m_spreadSplitter);
+        m_spread->setMinimumWidth(200);
+        m_spreadSplitter->addWidget(m_spread);
+        m_spreadSplitter->setStretchFactor(0, 0);
+        m_spreadSplitter->setStretchFactor(1, 1);
+        connect(m_spreadSplitter, &QSplitter::splitterMoved, this, [this] { m_splitterMovedByUser = true; });
     }
     for (QWidget* page : {m_sharingPage, m_lossPage, m_profilePage, m_sweepPage, m_spreadPage})
         page->hide();
@@ -143,6 +157,8 @@ std::vector<ChartPanel*> ChartsView::panels() const {
 }
 
 QWidget* ChartsView::pageOf(const ChartPanel* panel) const {
+    if (panel == m_spread)
+        return m_spreadPage; // inside the page's splitter
     return panel ? panel->parentWidget() : nullptr;
 }
 
@@ -245,14 +261,17 @@ void ChartsView::fillBankStudies(const Design& design, const Results& results, b
             m_bankStudies->setItem(r, c + 1, item);
         }
     }
-    // As wide as its columns (the chart takes the rest), at most 60 % of the page.
+    // As wide as its columns (the chart takes the rest, at least 200 px), unless the user has
+    // placed the handle.
     m_bankStudies->resizeColumnsToContents();
-    int width = 2 * m_bankStudies->frameWidth() + m_bankStudies->verticalScrollBar()->sizeHint().width();
-    for (int c = 0; c < m_bankStudies->columnCount(); ++c)
-        width += m_bankStudies->columnWidth(c);
-    const int page = m_spreadPage->width() > 100 ? m_spreadPage->width() : 800;
-    m_bankStudies->parentWidget()->setMaximumWidth(std::min(width, page * 3 / 5));
-    m_bankStudies->parentWidget()->setMinimumWidth(std::min(width, page * 3 / 5));
+    if (m_splitterMovedByUser)
+        return;
+    // (+2: the viewport's rounding; without it a last pixel scrolls.)
+    const int width = 2 * m_bankStudies->frameWidth() + m_bankStudies->verticalScrollBar()->sizeHint().width() +
+                      m_bankStudies->horizontalHeader()->length() + 2;
+    const int page = m_spreadSplitter->width() > 100 ? m_spreadSplitter->width() : 800;
+    const int table = std::min(width, page - m_spread->minimumWidth() - m_spreadSplitter->handleWidth());
+    m_spreadSplitter->setSizes({table, std::max(m_spread->minimumWidth(), page - table)});
 }
 
 void ChartsView::markSlowOutdated() {

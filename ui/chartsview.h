@@ -23,6 +23,7 @@
 
 class QLabel;
 class QProgressBar;
+class QSplitter;
 class QTableWidget;
 class QTabWidget;
 class QWidget;
@@ -89,6 +90,8 @@ class ChartsView : public QObject {
     ChartPanel* m_spread = nullptr;
     QTableWidget* m_bankStudies = nullptr;
     QLabel* m_bankSummary = nullptr;
+    QSplitter* m_spreadSplitter = nullptr; ///< the Stability page: figures | spread chart
+    bool m_splitterMovedByUser = false;
     QWidget* m_status = nullptr;
     QLabel* m_statusLabel = nullptr;
     QProgressBar* m_progress = nullptr;
