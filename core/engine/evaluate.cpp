@@ -1401,14 +1401,15 @@ Results evaluate(const Design& input, const EvaluateOptions& options) {
         }
         r.operatingPoints.push_back(std::move(op));
     }
-    addProtection(d, r);
+    if (options.designStudies)
+        addProtection(d, r);
     std::vector<std::vector<double>> lossMemory(r.operatingPoints.size() + 1); // per point, then the stall
     addThermalResults(
         d, context.heatsink,
         [&](std::size_t i, const std::vector<double>& tj, std::vector<double>& p) {
             sourceLosses(context, r, i, tj, p, lossMemory[std::min(i, lossMemory.size() - 1)]);
         },
-        {options.thermalTransient}, r);
+        {options.thermalTransient, options.designStudies}, r);
     return r;
 }
 

@@ -19,6 +19,11 @@ struct EvaluateOptions {
     /// over bank.spread with its worst-case corner, and the switching-imbalance estimate. Tens of
     /// milliseconds per point instead of a fraction of one: for reports and the command line.
     bool bankStudies = false;
+    /// The design-wide studies that do not depend on one operating point's figures: the stall
+    /// time to the junction limit and the protection stage (reversal, contactor, bridge,
+    /// disconnect, precharge, cables, fuse). A map over many design copies (core/engine/sweep.h)
+    /// leaves them out; the results then have none of their figures or checks.
+    bool designStudies = true;
 };
 
 Results evaluate(const Design& design, const EvaluateOptions& options = {});

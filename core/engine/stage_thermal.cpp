@@ -385,7 +385,7 @@ void addThermalResults(const Design& d, const HeatsinkModel& hs, const SourceLos
     adapter.active = [&r, points](std::size_t p) { return p >= points || computed(r.operatingPoints[p]); };
 
     // Stall at the current limit, from the chosen start.
-    {
+    if (options.stall) {
         std::vector<double> probe(static_cast<std::size_t>(d.bank.count) + 1, ambient), p;
         losses(points, probe, p);
         double stallHeat = 0.0;

@@ -57,6 +57,7 @@ using SourceLosses =
 
 struct ThermalStageOptions {
     bool transient = false; ///< duty-profile transient and life
+    bool stall = true;      ///< the stall's time to the junction limit
 };
 
 /// Fill Results::heatsink, stallTimeToLimit_s, (transient, life) and the thermal checks from the

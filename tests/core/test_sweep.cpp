@@ -1,0 +1,149 @@
+// SPDX-License-Identifier: GPL-3.0-or-later
+// The count × frequency map (core/engine/sweep.h): every cell is evaluate() of its own design copy,
+// whatever the number of threads; the grid's frequencies follow their formula; bad grids are
+// refused with the field named; and the map shows the trade's two well-known trends.
+
+#include "core/engine/evaluate.h"
+#include "core/engine/sweep.h"
+#include "core/io/projectfile.h"
+#include "support/testsupport.h"
+
+#include <QtTest>
+
+#include <cmath>
+#include <stdexcept>
+
+using namespace amp;
+
+namespace {
+
+Design loadDemo() {
+    const LoadResult r = loadProject(test::demoDir() / "garden-cart.ampw");
+    if (!r)
+        throw std::runtime_error("garden-cart demo does not load: " + describe(r.problems));
+    return *r.design;
+}
+
+bool hasProblemAt(const SweepResult& r, const std::string& path) {
+    for (const Problem& p : r.problems)
+        if (p.path == path && !p.message.empty())
+            return true;
+    return false;
+}
+
+} // namespace
+
+class TestSweep : public QObject {
+    Q_OBJECT
+
+private slots:
+    void initTestCase() { test::installLogGuard(); }
+    void cleanupTestCase() { QCOMPARE(test::unexpectedErrorLogs(), 0); }
+
+    void gridFrequenciesFollowTheirFormula() {
+        // Even steps: f_j = f_min + (f_max − f_min)·j/(n − 1); geometric: a constant ratio
+        // (f_max/f_min)^(1/(n − 1)) between neighbours (exact formulas recomputed).
+        CountFrequencyGrid g;
+        g.frequencyMin_Hz = 2000.0;
+        g.frequencyMax_Hz = 40000.0;
+        g.frequencies = 5;
+        const std::vector<double> lin = gridFrequencies(g);
+        QCOMPARE(lin.size(), std::size_t(5));
+        for (int j = 0; j < 5; ++j)
+            QVERIFY(std::abs(lin[static_cast<std::size_t>(j)] - (2000.0 + 38000.0 * j / 4.0)) <= 1e-9);
+        g.logarithmic = true;
+        const std::vector<double> geo = gridFrequencies(g);
+        const double ratio = std::pow(20.0, 0.25);
+        QVERIFY(std::abs(geo.front() - 2000.0) <= 1e-9 && std::abs(geo.back() - 40000.0) <= 1e-7);
+        for (std::size_t j = 1; j < geo.size(); ++j)
+            QVERIFY(std::abs(geo[j] / geo[j - 1] - ratio) <= 1e-12);
+        g.frequencies = 1;
+        QCOMPARE(gridFrequencies(g), std::vector<double>{2000.0});
+    }
+
+    void badGridsAreRefusedWithTheField() {
+        const Design d = loadDemo();
+        auto refused = [&](const std::string& path, auto change) {
+            CountFrequencyGrid g;
+            change(g);
+            const SweepResult r = sweepCountAndFrequency(d, g);
+            QVERIFY2(!r.ok() && r.cells.empty(), path.c_str());
+            QVERIFY2(hasProblemAt(r, path), (path + ": " + describe(r.problems)).c_str());
+        };
+        refused("countMin", [](CountFrequencyGrid& g) { g.countMin = 0; });
+        refused("countMax", [](CountFrequencyGrid& g) { g.countMin = 8; g.countMax = 4; });
+        refused("countMax", [](CountFrequencyGrid& g) { g.countMax = 65; }); // bank.count's range is 1–64
+        refused("frequencyMin_Hz", [](CountFrequencyGrid& g) { g.frequencyMin_Hz = -1.0; });
+        refused("frequencyMin_Hz", [](CountFrequencyGrid& g) { g.frequencyMin_Hz = std::nan(""); });
+        refused("frequencyMax_Hz", [](CountFrequencyGrid& g) { g.frequencyMax_Hz = 1000.0; });
+        refused("frequencies", [](CountFrequencyGrid& g) { g.frequencies = 0; });
+        refused("point", [&](CountFrequencyGrid& g) { g.point = d.dutyProfile.size(); });
+    }
+
+    void everyCellIsItsOwnEvaluationWhateverTheThreads() {
+        const Design d = loadDemo();
+        CountFrequencyGrid g;
+        g.countMin = 3;
+        g.countMax = 6;
+        g.frequencyMin_Hz = 4000.0;
+        g.frequencyMax_Hz = 20000.0;
+        g.frequencies = 3;
+        g.point = 1; // the demo's second segment
+        g.threads = 1;
+        const SweepResult one = sweepCountAndFrequency(d, g);
+        g.threads = 3;
+        const SweepResult three = sweepCountAndFrequency(d, g);
+        QVERIFY2(one.ok(), describe(one.problems).c_str());
+        QCOMPARE(one.cells.size(), std::size_t(12));
+        QCOMPARE(one.pointName, d.dutyProfile[1].name);
+        for (std::size_t i = 0; i < one.cells.size(); ++i) {
+            QCOMPARE(one.cells[i].tjMax_C, three.cells[i].tjMax_C); // bit for bit
+            QCOMPARE(one.cells[i].totalLoss_W, three.cells[i].totalLoss_W);
+            QCOMPARE(one.cells[i].failedChecks, three.cells[i].failedChecks);
+        }
+        // One cell recomputed by hand: the design with the count and frequency replaced and only
+        // that segment, through evaluate() without the design-wide studies.
+        Design copy = d;
+        copy.dutyProfile = {d.dutyProfile[1]};
+        copy.bank.count = 5;
+        normalizeBank(copy.bank);
+        copy.pwm.frequency_Hz = 12000.0;
+        EvaluateOptions options;
+        options.designStudies = false;
+        const Results r = evaluate(copy, options);
+        QVERIFY(!r.stallTimeToLimit_s);
+        const SweepCell& c = one.at(5, 1);
+        QCOMPARE(c.count, 5);
+        QCOMPARE(c.frequency_Hz, 12000.0);
+        QVERIFY(c.valid);
+        double tj = 0.0;
+        for (const auto& dv : r.operatingPoints.front().devices)
+            tj = std::max(tj, dv.tj_C);
+        QCOMPARE(c.tjMax_C, tj);
+        QCOMPARE(c.totalLoss_W, r.operatingPoints.front().totalLoss_W);
+        QCOMPARE(c.stable, r.operatingPoints.front().bank.stable);
+    }
+
+    void theMapShowsTheTradesTrends() {
+        // Common practice: at a fixed frequency more devices in parallel run each junction cooler
+        // (each carries 1/N of the current, its conduction loss falls as 1/N²); at a fixed count a
+        // higher PWM frequency costs switching loss (energy per transition × f).
+        const Design d = loadDemo();
+        CountFrequencyGrid g;
+        g.countMin = 2;
+        g.countMax = 8;
+        g.frequencyMin_Hz = 4000.0;
+        g.frequencyMax_Hz = 32000.0;
+        g.frequencies = 3;
+        g.point = 1;
+        const SweepResult r = sweepCountAndFrequency(d, g);
+        QVERIFY(r.ok());
+        for (int n = g.countMin + 1; n <= g.countMax; ++n)
+            QVERIFY2(r.at(n, 0).tjMax_C < r.at(n - 1, 0).tjMax_C, qPrintable(QString("N = %1").arg(n)));
+        for (int j = 1; j < 3; ++j)
+            QVERIFY(r.at(6, j).bankLoss_W > r.at(6, j - 1).bankLoss_W);
+    }
+};
+
+QTEST_GUILESS_MAIN(TestSweep)
+#include "test_sweep.moc"
