@@ -4,6 +4,7 @@
 #include "core/checks/catalogue.h"
 #include "core/engine/evaluate.h"
 #include "core/engine/results_json.h"
+#include "core/engine/sweep.h"
 #include "core/io/datapaths.h"
 #include "core/io/partslibrary.h"
 #include "core/io/projectfile.h"
@@ -25,6 +26,7 @@
 #include <spdlog/spdlog.h>
 
 #include <cctype>
+#include <chrono>
 #include <cstdio>
 #include <fstream>
 
@@ -208,6 +210,173 @@ int evaluateCommand(const QStringList& args) {
     return 0;
 }
 
+// "A:B" for counts; "F1:F2:N" for frequencies, each frequency with or without its unit
+// ("2k", "2 kHz"). False with the reason in `why`.
+bool parseCounts(const QString& text, CountFrequencyGrid& g, QString& why) {
+    const QStringList parts = text.split(':');
+    bool okA = false, okB = parts.size() == 1;
+    const int a = parts.value(0).trimmed().toInt(&okA);
+    const int b = parts.size() > 1 ? parts.value(1).trimmed().toInt(&okB) : a;
+    if (parts.size() > 2 || !okA || !okB) {
+        why = "--counts: \"" + text + "\" is not a range of whole numbers such as 1:16";
+        return false;
+    }
+    g.countMin = a;
+    g.countMax = b;
+    return true;
+}
+
+bool parseFrequencies(const QString& text, CountFrequencyGrid& g, QString& why) {
+    const QStringList parts = text.split(':');
+    if (parts.size() != 3) {
+        why = "--frequencies: \"" + text + "\" is not LOW:HIGH:STEPS such as 2k:40k:20";
+        return false;
+    }
+    for (int i = 0; i < 2; ++i) {
+        const units::Parsed f = units::parse(parts[i].toStdString(), units::Unit::Hertz);
+        if (!f) {
+            why = QString("--frequencies: %1 frequency: %2").arg(i == 0 ? "low" : "high", QString::fromStdString(f.error));
+            return false;
+        }
+        (i == 0 ? g.frequencyMin_Hz : g.frequencyMax_Hz) = *f.value;
+    }
+    bool ok = false;
+    g.frequencies = parts[2].trimmed().toInt(&ok);
+    if (!ok) {
+        why = "--frequencies: the steps \"" + parts[2] + "\" are not a whole number";
+        return false;
+    }
+    return true;
+}
+
+std::string sweepCsv(const SweepResult& r) {
+    std::string text = "count,frequency_Hz,valid,tjMax_C,heatsink_C,bankLoss_W,totalLoss_W,efficiency,stable,"
+                       "maxMinCurrentRatio,failedChecks,reason\n";
+    auto quoted = [](std::string t) {
+        std::string q = "\"";
+        for (const char c : t)
+            q += c == '"' ? std::string("\"\"") : std::string(1, c);
+        return q + "\"";
+    };
+    for (const SweepCell& c : r.cells) {
+        char row[320];
+        std::snprintf(row, sizeof row, "%d,%.6g,%d,%.6g,%.6g,%.6g,%.6g,%.6g,%d,%.6g,%d,", c.count, c.frequency_Hz,
+                      c.valid ? 1 : 0, c.tjMax_C, c.heatsink_C, c.bankLoss_W, c.totalLoss_W, c.efficiency,
+                      c.stable ? 1 : 0, c.maxMinCurrentRatio, c.failedChecks);
+        text += row + quoted(c.valid ? c.firstFailure : c.reason) + "\n";
+    }
+    return text;
+}
+
+int sweepCommand(const QStringList& args) {
+    QCommandLineParser p;
+    p.setApplicationDescription("Map one operating point over the number of switches and the PWM frequency.");
+    p.addHelpOption();
+    p.addPositionalArgument("sweep", "The command.");
+    p.addPositionalArgument("design", "The design file (.ampw).");
+    QCommandLineOption counts("counts", "Devices in parallel, A:B (default 1:16).", "A:B", "1:16");
+    QCommandLineOption freqs("frequencies", "PWM frequencies LOW:HIGH:STEPS (default 2k:40k:20).", "range",
+                             "2k:40k:20");
+    QCommandLineOption log("log", "Geometric frequency steps instead of even ones.");
+    QCommandLineOption point("point", "The duty-profile segment, by name or number from 1 (default 1).", "segment");
+    QCommandLineOption csv("csv", "Write every cell to <file> (CSV).", "file");
+    QCommandLineOption threads("threads", "Worker threads (default: every core).", "n", "0");
+    QCommandLineOption set("set", "Override a design field: path=value. Repeatable.", "path=value");
+    QCommandLineOption variant("variant", "Sweep the variant <name> instead of the active one.", "name");
+    QCommandLineOption quiet("quiet", "Print nothing but errors.");
+    QCommandLineOption verbose("verbose", "Log details to the console.");
+    p.addOptions({counts, freqs, log, point, csv, threads, set, variant, quiet, verbose});
+    if (const auto done = parseArguments(p, args))
+        return *done;
+    const QStringList pos = p.positionalArguments();
+    if (pos.size() != 2) {
+        err("sweep needs exactly one design file (see ampwright sweep --help)");
+        return 2;
+    }
+    CountFrequencyGrid grid;
+    QString why;
+    if (!parseCounts(p.value(counts), grid, why) || !parseFrequencies(p.value(freqs), grid, why)) {
+        err(why);
+        return 2;
+    }
+    grid.logarithmic = p.isSet(log);
+    bool okThreads = false;
+    grid.threads = p.value(threads).toInt(&okThreads);
+    if (!okThreads) {
+        err("--threads: \"" + p.value(threads) + "\" is not a whole number");
+        return 2;
+    }
+    const auto chosen = loadWithOverrides(pos[1], p.values(set), p.value(variant));
+    if (!chosen)
+        return 1;
+    if (p.isSet(point)) {
+        const QString wanted = p.value(point);
+        bool isNumber = false;
+        const int number = wanted.toInt(&isNumber);
+        bool found = false;
+        for (std::size_t i = 0; i < chosen->design.dutyProfile.size() && !found; ++i)
+            if ((isNumber && number == static_cast<int>(i) + 1) ||
+                QString::fromStdString(chosen->design.dutyProfile[i].name) == wanted) {
+                grid.point = i;
+                found = true;
+            }
+        if (!found) {
+            err("--point: the design has no segment \"" + wanted + "\"");
+            return 2;
+        }
+    }
+    const auto start = std::chrono::steady_clock::now();
+    const SweepResult r = sweepCountAndFrequency(chosen->design, grid);
+    const double ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - start).count();
+    if (!r.ok()) {
+        for (const Problem& pr : r.problems)
+            err(QString::fromStdString("sweep: " + pr.path + ": " + pr.message));
+        return 2;
+    }
+    if (!p.isSet(quiet)) {
+        int reached = 0, clean = 0;
+        const SweepCell* coolest = nullptr;
+        const SweepCell* leanest = nullptr;
+        for (const SweepCell& c : r.cells) {
+            reached += c.valid ? 1 : 0;
+            if (!c.valid || c.failedChecks > 0)
+                continue;
+            ++clean;
+            if (!coolest || c.tjMax_C < coolest->tjMax_C)
+                coolest = &c;
+            if (!leanest || c.totalLoss_W < leanest->totalLoss_W)
+                leanest = &c;
+        }
+        out(QString("%1: segment \"%2\", %3 to %4 devices × %5 frequencies from %6 to %7: %8 cells in %9 ms")
+                .arg(QFileInfo(pos[1]).fileName(), QString::fromStdString(r.pointName))
+                .arg(grid.countMin)
+                .arg(grid.countMax)
+                .arg(grid.frequencies)
+                .arg(fmt(grid.frequencyMin_Hz, units::Unit::Hertz), fmt(grid.frequencyMax_Hz, units::Unit::Hertz))
+                .arg(r.cells.size())
+                .arg(ms, 0, 'f', 0));
+        out(QString("  reached in %1 cells; no failed check in %2").arg(reached).arg(clean));
+        if (coolest)
+            out(QString("  coolest without a failed check: %1 devices at %2, T_j %3")
+                    .arg(coolest->count)
+                    .arg(fmt(coolest->frequency_Hz, units::Unit::Hertz), fmt(coolest->tjMax_C, units::Unit::Celsius)));
+        if (leanest)
+            out(QString("  least loss without a failed check: %1 devices at %2, %3")
+                    .arg(leanest->count)
+                    .arg(fmt(leanest->frequency_Hz, units::Unit::Hertz), fmt(leanest->totalLoss_W, units::Unit::Watt)));
+    }
+    if (p.isSet(csv)) {
+        const SaveResult saved = writeFileAtomically(p.value(csv).toStdString(), sweepCsv(r), SaveOptions{false, {}});
+        if (!saved) {
+            err("cannot write the sweep CSV: " + QString::fromStdString(saved.error));
+            return 1;
+        }
+        if (!p.isSet(quiet))
+            out("cells written to " + QFileInfo(p.value(csv)).absoluteFilePath());
+    }
+    return 0;
+}
+
 // Write the design sheet; false with the reason on stderr.
 bool writeSheet(const Design& design, const Results& results, const QString& pdf, const QString& paperName) {
 #ifdef AMPWRIGHT_WITH_UI
@@ -315,7 +484,8 @@ QString demoProject() {
 }
 
 bool isCommand(const QString& word) {
-    return word == "evaluate" || word == "sheet" || word == "fields" || word == "parts" || word == "checks";
+    return word == "evaluate" || word == "sheet" || word == "sweep" || word == "fields" || word == "parts" ||
+           word == "checks";
 }
 
 QString helpText() {
@@ -340,6 +510,11 @@ QString helpText() {
         "  sheet DESIGN --pdf OUT.pdf [--paper a4|letter] [--variant NAME] [--set path=value ...]\n"
         "        Evaluate a design and write its printable design sheet: inputs, results per\n"
         "        operating point and device, charts, every check, the safety cautions.\n"
+        "  sweep DESIGN [--counts A:B] [--frequencies LOW:HIGH:STEPS] [--log] [--point SEGMENT]\n"
+        "        [--csv OUT.csv] [--threads N] [--variant NAME] [--set path=value ...]\n"
+        "        Map one duty-profile segment over the number of switches and the PWM frequency\n"
+        "        (default 1:16 devices, 2k:40k:20): hottest T_j, losses, stability and failed checks\n"
+        "        per cell; prints the best cells and writes every cell to OUT.csv.\n"
         "  fields\n"
         "        Print every design field with its unit, range and meaning (Markdown).\n"
         "  checks\n"
@@ -384,6 +559,8 @@ int runCommand(const QStringList& args) {
         return evaluateCommand(args);
     if (verb == "sheet")
         return sheetCommand(args);
+    if (verb == "sweep")
+        return sweepCommand(args);
     if (verb == "fields")
         return fieldsCommand(args);
     if (verb == "parts")

@@ -42,7 +42,7 @@ class TestCli : public QObject {
     void help() {
         const Run r = run({"--help"});
         QCOMPARE(r.code, 0);
-        for (const char* word : {"evaluate", "--json", "--set", "--variant", "fields", "parts"})
+        for (const char* word : {"evaluate", "--json", "--set", "--variant", "sweep", "fields", "parts"})
             QVERIFY2(r.out.contains(word), word);
     }
 
@@ -71,6 +71,28 @@ class TestCli : public QObject {
             const auto sev = c.at("severity").get<std::string>();
             QVERIFY(sev == "pass" || sev == "advice" || sev == "warning" || sev == "fail");
         }
+    }
+
+    void sweepWritesEveryCell() {
+        const QString out = QString::fromStdString((amp::test::tempDir() / "map.csv").string());
+        const Run r = run({"sweep", demo(), "--counts", "2:5", "--frequencies", "4 kHz:16k:3", "--point", "2", "--csv", out});
+        QVERIFY2(r.code == 0, qPrintable(r.err));
+        QVERIFY2(r.out.contains("12 cells"), qPrintable(r.out));
+        const QStringList lines = QString::fromStdString(amp::test::readText(out.toStdString())).split('\n', Qt::SkipEmptyParts);
+        QCOMPARE(lines.size(), 1 + 4 * 3);
+        QVERIFY(lines[0].startsWith("count,frequency_Hz,valid,tjMax_C"));
+        QVERIFY2(lines[1].startsWith("2,4000,1,"), qPrintable(lines[1]));
+        QVERIFY2(lines[12].startsWith("5,16000,"), qPrintable(lines[12]));
+        // Bad grids: exit status 2 and the option or grid field named.
+        Run bad = run({"sweep", demo(), "--counts", "0:4"});
+        QCOMPARE(bad.code, 2);
+        QVERIFY2(bad.err.contains("countMin"), qPrintable(bad.err));
+        bad = run({"sweep", demo(), "--frequencies", "4 parsecs:16k:3"});
+        QCOMPARE(bad.code, 2);
+        QVERIFY2(bad.err.contains("--frequencies"), qPrintable(bad.err));
+        bad = run({"sweep", demo(), "--point", "no such segment"});
+        QCOMPARE(bad.code, 2);
+        QVERIFY2(bad.err.contains("--point"), qPrintable(bad.err));
     }
 
     void brokenFileNamesFileAndField() {
