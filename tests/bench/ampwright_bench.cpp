@@ -12,8 +12,8 @@
 //   bank_solve_n8_median_us  electrothermal solve of an eight-device bank
 //   montecarlo_10k_ms        10,000 Monte Carlo samples of that bank
 //   profile_1h_ms            one hour of duty profile at 10 ms steps, eight devices, via evaluate()
-//   sweep_10k_ms             10,000 evaluations (device count × PWM frequency) of one operating
-//                            point on every core (std::thread)
+//   sweep_10k_ms             the count × frequency map (core/engine/sweep.h, `ampwright sweep`) of
+//                            10,000 cells at one operating point, on every core
 //   reference_speedup        cycle-resolved reference time / engine time for the same point
 //   reference_max_rel_error  largest relative difference engine vs reference on the demo's points
 #include "core/engine/evaluate.h"

@@ -2,12 +2,12 @@
 #include "evidence.h"
 
 #include "core/engine/evaluate.h"
+#include "core/engine/sweep.h"
 #include "core/physics/chopper.h"
 #include "reference/chopperreference.h"
 #include "reference/designcircuit.h"
 
 #include <algorithm>
-#include <atomic>
 #include <chrono>
 #include <ctime>
 #include <cmath>
@@ -56,36 +56,25 @@ double evaluateMedian_us(const Design& design, int runs, double* cpu_us) {
 }
 
 double sweep10k_ms(const Design& design, int* threadsUsed, double* cpu_ms) {
-    Design one = design;
-    if (one.dutyProfile.size() > 1)
-        one.dutyProfile.resize(1);
-    constexpr int kCounts = 50, kFrequencies = 200;
-    const int threads = std::max(1u, std::thread::hardware_concurrency());
+    // The map a user asks for with `ampwright sweep`: 1…50 devices × 200 frequencies from 2 to
+    // 40 kHz at the first segment, on every core.
+    CountFrequencyGrid grid;
+    grid.countMin = 1;
+    grid.countMax = 50;
+    grid.frequencyMin_Hz = 2000.0;
+    grid.frequencyMax_Hz = 40000.0;
+    grid.frequencies = 200;
+    grid.point = 0;
+    grid.threads = static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
     if (threadsUsed != nullptr)
-        *threadsUsed = threads;
-    std::atomic<int> next{0};
-    std::atomic<long> solved{0};
+        *threadsUsed = grid.threads;
     const auto a = Clock::now();
     const double ca = cpuNow_us(CLOCK_PROCESS_CPUTIME_ID);
-    std::vector<std::thread> pool;
-    for (int t = 0; t < threads; ++t) {
-        pool.emplace_back([&] {
-            Design d = one;
-            for (int i = next++; i < kCounts * kFrequencies; i = next++) {
-                d.bank.count = 1 + i / kFrequencies;
-                normalizeBank(d.bank);
-                d.pwm.frequency_Hz = 2000.0 + 38000.0 * (i % kFrequencies) / (kFrequencies - 1);
-                const Results r = evaluate(d);
-                if (!r.operatingPoints.empty() && r.operatingPoints.front().valid)
-                    ++solved;
-            }
-        });
-    }
-    for (auto& th : pool)
-        th.join();
+    const SweepResult r = sweepCountAndFrequency(design, grid);
     if (cpu_ms != nullptr)
         *cpu_ms = (cpuNow_us(CLOCK_PROCESS_CPUTIME_ID) - ca) / 1000.0;
-    return micros(Clock::now() - a) / 1000.0;
+    const double wall = micros(Clock::now() - a) / 1000.0;
+    return r.ok() && r.cells.size() == 10000 ? wall : -1.0;
 }
 
 std::optional<ReferenceFigures> referenceFigures(const Design& d) {

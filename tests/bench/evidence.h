@@ -13,8 +13,9 @@ namespace amp::bench {
 /// of the thread (on a shared machine the wall time includes other jobs' load).
 double evaluateMedian_us(const Design& design, int runs = 301, double* cpu_us = nullptr);
 
-/// Wall time of 10,000 evaluations (device count 1…50 × 200 PWM frequencies from 2 to 40 kHz) of
-/// the design's first operating point alone, spread over every core with std::thread, ms.
+/// Wall time of the count × frequency map of core/engine/sweep.h over 10,000 cells (device count
+/// 1…50 × 200 PWM frequencies from 2 to 40 kHz) at the design's first segment, on every core, ms
+/// (−1 when the map could not be made).
 /// `threads` is set to the number of threads used.
 /// `cpu_ms` gets the CPU time of the whole process over the sweep.
 double sweep10k_ms(const Design& design, int* threads = nullptr, double* cpu_ms = nullptr);
