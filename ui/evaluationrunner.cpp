@@ -42,7 +42,11 @@ SweepPoint evaluateCopy(Design copy, double x) {
         return p;
     }
     try {
-        const Results r = evaluate(copy);
+        // The sweeps show the points' T_j, loss and efficiency: the design-wide studies (stall,
+        // protection) are left out, as in core/engine/sweep.h.
+        EvaluateOptions options;
+        options.designStudies = false;
+        const Results r = evaluate(copy, options);
         return sweepPointFrom(copy, r, x);
     } catch (const std::exception& e) {
         p.maxJunction_C = p.efficiency = p.maxTotalLoss_W = std::numeric_limits<double>::quiet_NaN();
