@@ -67,7 +67,7 @@ constexpr double kBodyFont_pt = 8.5;
 constexpr double kHeaderGap_mm = 5.0; // between the header rule and the body, and body and footer
 constexpr int kPdfResolution_dpi = 600;
 constexpr int kPointsPerTable = 4;
-constexpr std::size_t kPointsPerSpreadChart = 6; // groups of five bars side by side in one chart
+constexpr std::size_t kPointsPerSpreadChart = 8; // at most, groups of five bars side by side in one chart
 constexpr std::size_t kLifeCyclesShown = 12; // rows of the power-cycling table    // operating points side by side in the results table
 
 QString fmt(double v, Unit u) { return QString::fromStdString(units::format(v, u, kSheetDigits)); }
@@ -759,10 +759,12 @@ void SheetWriter::spreadChart() {
     if (points.empty())
         return;
     const double tjMax = m_d.bank.device.tjMax_C;
-    for (std::size_t start = 0; start < points.size(); start += kPointsPerSpreadChart) {
-        const std::vector<SpreadPoint> part(points.begin() + static_cast<std::ptrdiff_t>(start),
-                                            points.begin() + static_cast<std::ptrdiff_t>(
-                                                                 std::min(points.size(), start + kPointsPerSpreadChart)));
+    // More points than one chart holds are shared out evenly over as few charts as needed.
+    const std::size_t charts = (points.size() + kPointsPerSpreadChart - 1) / kPointsPerSpreadChart;
+    for (std::size_t c = 0; c < charts; ++c) {
+        const std::size_t from = points.size() * c / charts, to = points.size() * (c + 1) / charts;
+        const std::vector<SpreadPoint> part(points.begin() + static_cast<std::ptrdiff_t>(from),
+                                            points.begin() + static_cast<std::ptrdiff_t>(to));
         chart([part, tjMax](QPainter& p, const QRectF& r, double pt) { drawSpreadChart(p, r, pt, part, tjMax); },
               72.0);
     }

@@ -486,31 +486,41 @@ SpreadChartLayout layoutSpreadChart(const QPaintDevice* device, const QRectF& r,
     const QFontMetricsF name(chartFont(7.0), device);
     const QFontMetricsF value(chartFont(6.0), device);
 
-    double lo = std::min(0.0, tjMax_C), hi = tjMax_C, labelLength = value.horizontalAdvance(kRunsAway);
+    double lo = std::min(0.0, tjMax_C), hi = tjMax_C;
     for (const auto& pnt : points)
-        for (const auto& v : pnt.tj_C) {
+        for (const auto& v : pnt.tj_C)
             if (v && std::isfinite(*v)) {
                 lo = std::min(lo, *v);
                 hi = std::max(hi, *v);
             }
-            labelLength = std::max(labelLength, value.horizontalAdvance(spreadValueText(v)));
-        }
     const Axis a = makeAxis(lo, hi, 5);
     l.lo_C = a.lo;
     l.hi_C = a.hi;
     l.step_C = a.step;
 
-    // Top to bottom: the title, the legend, a band for the values written upward above the
-    // tallest bars, the plot, two lines for the point's name and one for its runaway share.
+    // Top to bottom: the title, the legend, the plot, two lines for the point's name and one for
+    // its runaway share. Above each bar its value is written upward: the plot is as tall as the
+    // room left over by the label of the tallest bar (and the T_j,max label over its line).
     const double left = r.left() + 26.0 * pt;
     const double limitW = std::max(small.horizontalAdvance(QStringLiteral("T_j,max")),
                                    small.horizontalAdvance(fmt(tjMax_C, Unit::Celsius)));
     const double right = r.right() - limitW - 5.0 * pt;
     const double legendH = legendBlock(nullptr, device, QPointF(left, 0.0), r.right() - left, spreadLegendNames(),
-                                  spreadLegendColours(), spreadLegendStyles(), pt);
-    const double top = r.top() + title.height() + 3.0 * pt + legendH + labelLength + 6.0 * pt;
+                                       spreadLegendColours(), spreadLegendStyles(), pt);
+    const double top = r.top() + title.height() + 3.0 * pt + legendH + 6.0 * pt;
     const double bottom = r.bottom() - 2.0 * name.height() - small.height() - 6.0 * pt;
-    l.plot = QRectF(left, top, std::max(1.0, right - left), std::max(1.0, bottom - top));
+    const double room = std::max(1.0, bottom - top);
+    auto share = [&](double v) { return std::clamp((v - a.lo) / (a.hi - a.lo), 0.0, 1.0); };
+    double height = room;
+    for (const auto& pnt : points)
+        for (const auto& v : pnt.tj_C) {
+            const double f = share(v && std::isfinite(*v) ? *v : tjMax_C);
+            if (f > 0.0)
+                height = std::min(height, (room - value.horizontalAdvance(spreadValueText(v)) - 3.0 * pt) / f);
+        }
+    height = std::min(height, (room - small.height()) / std::max(share(tjMax_C), 1e-6));
+    height = std::max(height, 0.3 * room);
+    l.plot = QRectF(left, bottom - height, std::max(1.0, right - left), height);
     l.limitY = a.y(l.plot, tjMax_C);
 
     const double base = a.y(l.plot, 0.0);
