@@ -67,6 +67,7 @@ constexpr double kBodyFont_pt = 8.5;
 constexpr double kHeaderGap_mm = 5.0; // between the header rule and the body, and body and footer
 constexpr int kPdfResolution_dpi = 600;
 constexpr int kPointsPerTable = 4;
+constexpr std::size_t kPointsPerSpreadChart = 8; // at most, groups of five bars side by side in one chart
 constexpr std::size_t kLifeCyclesShown = 12; // rows of the power-cycling table    // operating points side by side in the results table
 
 QString fmt(double v, Unit u) { return QString::fromStdString(units::format(v, u, kSheetDigits)); }
@@ -195,6 +196,7 @@ class SheetWriter {
     void pointResults();
     void deviceTables();
     void bankStudies();
+    void spreadChart();
     void sharingChart();
     void lossChart();
     void transient();
@@ -726,6 +728,57 @@ void SheetWriter::bankStudies() {
         }
         m_html += "</table><p class=\"gap\"></p>";
     }
+    spreadChart();
+}
+
+void SheetWriter::spreadChart() {
+    std::vector<SpreadPoint> points;
+    QStringList runs; // "N samples, seed S" of each point; one entry when they all agree
+    QStringList runsByPoint;
+    for (const auto& op : m_r.operatingPoints) {
+        if (!op.valid || op.devices.empty() || !op.bank.spread)
+            continue;
+        const BankSpreadResult& sp = *op.bank.spread;
+        SpreadPoint pnt;
+        pnt.name = QString::fromStdString(op.name);
+        // The nominal bank without a stable state runs away as a sample does (no fixed point,
+        // loop gain of 1 or more, or no state below T_j,max): its temperatures mean nothing.
+        if (op.bank.converged && op.bank.stable)
+            pnt.tj_C[0] = hottestDevice(op);
+        pnt.tj_C[1] = sp.tjMax_C.p50;
+        pnt.tj_C[2] = sp.tjMax_C.p95;
+        pnt.tj_C[3] = sp.tjMax_C.p99;
+        pnt.tj_C[4] = sp.cornerTjMax_C;
+        pnt.runawayFraction = sp.runawayFraction;
+        points.push_back(std::move(pnt));
+        const QString run = QStringLiteral("%1 samples, seed %2").arg(sp.samples).arg(sp.seed);
+        if (!runs.contains(run))
+            runs << run;
+        runsByPoint << esc(op.name) + ": " + run;
+    }
+    if (points.empty())
+        return;
+    const double tjMax = m_d.bank.device.tjMax_C;
+    // More points than one chart holds are shared out evenly over as few charts as needed.
+    const std::size_t charts = (points.size() + kPointsPerSpreadChart - 1) / kPointsPerSpreadChart;
+    for (std::size_t c = 0; c < charts; ++c) {
+        const std::size_t from = points.size() * c / charts, to = points.size() * (c + 1) / charts;
+        const std::vector<SpreadPoint> part(points.begin() + static_cast<std::ptrdiff_t>(from),
+                                            points.begin() + static_cast<std::ptrdiff_t>(to));
+        chart([part, tjMax](QPainter& p, const QRectF& r, double pt) { drawSpreadChart(p, r, pt, part, tjMax); },
+              72.0);
+    }
+    const QString drawn = m_d.bank.spread.distribution == "uniform"
+                              ? QStringLiteral("uniformly within their stated bands")
+                              : QStringLiteral("from normal distributions with their stated standard deviations");
+    m_html += QStringLiteral("<p class=\"small\">The bank's hottest junction in each operating point: nominal (every "
+                             "part as stated), the median, 95th and 99th percentile over the Monte Carlo samples of "
+                             "the parts' stated tolerances (bank.spread, drawn %1) and the worst-case corner. Monte "
+                             "Carlo run: %2; the same seed draws the same samples, so the figures can be reproduced. "
+                             "A hatched bar drawn to the dashed T_j,max reads “runs away”: that rank falls among the "
+                             "samples without a stable state; the share of those samples stands under each point's "
+                             "name.</p>")
+                  .arg(drawn, runs.size() == 1 ? runs.front() : runsByPoint.join(QStringLiteral("; ")));
 }
 
 void SheetWriter::sharingChart() {

@@ -100,25 +100,59 @@ void drawHorizontalAxis(QPainter& p, const QRectF& plot, const Axis& a, const QS
     p.drawText(QPointF(plot.center().x() - fs.horizontalAdvance(title) / 2, titleBaseline_y), title);
 }
 
-/// Legend in a row: coloured squares with names, from `at`; returns the height used.
-double drawLegend(QPainter& p, QPointF at, double width, const QStringList& names, const std::vector<QColor>& colours,
-                  double pt) {
-    p.setFont(chartFont(6.5));
-    const QFontMetricsF fm(p.font(), p.device());
+/// `rect` on white with diagonal lines in `colour` every 2.5 pt and an outline: drawn as lines, so
+/// the hatching keeps its spacing in a PDF at any resolution (a pattern brush is device pixels).
+void hatch(QPainter& p, const QRectF& rect, const QColor& colour, double pt) {
+    p.save();
+    p.fillRect(rect, Qt::white);
+    p.setClipRect(rect, Qt::IntersectClip);
+    p.setPen(QPen(colour, 0.6 * pt));
+    const double spacing = 2.5 * pt;
+    for (double x = rect.left() - rect.height(); x < rect.right(); x += spacing)
+        p.drawLine(QPointF(x, rect.bottom()), QPointF(x + rect.height(), rect.top()));
+    p.restore();
+    p.setPen(QPen(colour, 0.6 * pt));
+    p.setBrush(Qt::NoBrush);
+    p.drawRect(rect);
+}
+
+/// Legend in a row from `at`, wrapping at `width`: a square per name in its colour (filled, or
+/// hatched for a style other than solid), the name beside it. Returns the height
+/// used. With `p` null it only measures, with the fonts of `device`.
+double legendBlock(QPainter* p, const QPaintDevice* device, QPointF at, double width, const QStringList& names,
+              const std::vector<QColor>& colours, const std::vector<Qt::BrushStyle>& styles, double pt) {
+    const QFont font = chartFont(6.5);
+    const QFontMetricsF fm(font, device);
+    if (p)
+        p->setFont(font);
     const double box = 5.0 * pt;
     double x = at.x(), y = at.y();
     for (int i = 0; i < names.size(); ++i) {
+        const auto k = static_cast<std::size_t>(i);
         const double w = box + 2.5 * pt + fm.horizontalAdvance(names[i]) + 8.0 * pt;
         if (x + w > at.x() + width && x > at.x()) {
             x = at.x();
             y += fm.height() + 1.5 * pt;
         }
-        p.fillRect(QRectF(x, y + (fm.height() - box) / 2, box, box), colours[static_cast<std::size_t>(i)]);
-        p.setPen(QColor("#222222"));
-        p.drawText(QPointF(x + box + 2.5 * pt, y + fm.ascent()), names[i]);
+        if (p) {
+            const QRectF square(x, y + (fm.height() - box) / 2, box, box);
+            const Qt::BrushStyle style = k < styles.size() ? styles[k] : Qt::SolidPattern;
+            if (style == Qt::SolidPattern) {
+                p->fillRect(square, colours[k]);
+            } else {
+                hatch(*p, square, colours[k], pt);
+            }
+            p->setPen(QColor("#222222"));
+            p->drawText(QPointF(x + box + 2.5 * pt, y + fm.ascent()), names[i]);
+        }
         x += w;
     }
     return y + fm.height() - at.y();
+}
+
+double drawLegend(QPainter& p, QPointF at, double width, const QStringList& names, const std::vector<QColor>& colours,
+                  double pt) {
+    return legendBlock(&p, p.device(), at, width, names, colours, {}, pt);
 }
 
 } // namespace
@@ -392,6 +426,195 @@ void drawTimeline(QPainter& p, const QRectF& r, double pt, const std::vector<Tim
         p.setPen(QColor("#222222"));
         p.drawText(QPointF(tx, yc + fm.ascent() / 2.6), t);
         t0 += d;
+    }
+}
+
+
+namespace {
+
+const QColor kLimitColour("#b03a2e");
+const char* const kStatisticNames[] = {"nominal", "median", "95th percentile", "99th percentile", "worst corner"};
+// Nominal in the sheet's blue; the percentiles a ramp from light to dark amber, so the eye reads
+// them in order; the corner in slate, apart from the red of the limit.
+const QColor kStatisticColours[] = {QColor("#1f5f8b"), QColor("#e9b47c"), QColor("#c86f24"), QColor("#7d4212"),
+                                    QColor("#5a5a9e")};
+constexpr std::size_t kStatistics = 5;
+const QString kRunsAway = QStringLiteral("runs away");
+
+QString spreadValueText(const std::optional<double>& v) { return v ? fmt(*v, Unit::Celsius) : kRunsAway; }
+
+QStringList spreadLegendNames() {
+    QStringList names;
+    for (std::size_t s = 0; s < kStatistics; ++s)
+        names << spreadStatisticName(s);
+    names << QStringLiteral("hatched: runs away (no stable state), drawn to T_j,max");
+    return names;
+}
+
+std::vector<QColor> spreadLegendColours() {
+    std::vector<QColor> c(std::begin(kStatisticColours), std::end(kStatisticColours));
+    c.push_back(kLimitColour);
+    return c;
+}
+
+std::vector<Qt::BrushStyle> spreadLegendStyles() {
+    std::vector<Qt::BrushStyle> s(kStatistics, Qt::SolidPattern);
+    s.push_back(Qt::BDiagPattern);
+    return s;
+}
+
+QString runawayShareText(double fraction) {
+    return fraction > 0.0 ? fmt(fraction, Unit::Percent) + QStringLiteral(" of samples run away")
+                          : QStringLiteral("no sample runs away");
+}
+
+} // namespace
+
+QString spreadStatisticName(std::size_t statistic) {
+    return statistic < kStatistics ? QString::fromLatin1(kStatisticNames[statistic]) : QString();
+}
+
+QColor spreadStatisticColour(std::size_t statistic) {
+    return statistic < kStatistics ? kStatisticColours[statistic] : QColor(Qt::black);
+}
+
+SpreadChartLayout layoutSpreadChart(const QPaintDevice* device, const QRectF& r, double pt,
+                                    const std::vector<SpreadPoint>& points, double tjMax_C) {
+    SpreadChartLayout l;
+    const QFontMetricsF title(chartFont(7.0, true), device);
+    const QFontMetricsF small(chartFont(6.5), device);
+    const QFontMetricsF name(chartFont(7.0), device);
+    const QFontMetricsF value(chartFont(6.0), device);
+
+    double lo = std::min(0.0, tjMax_C), hi = tjMax_C;
+    for (const auto& pnt : points)
+        for (const auto& v : pnt.tj_C)
+            if (v && std::isfinite(*v)) {
+                lo = std::min(lo, *v);
+                hi = std::max(hi, *v);
+            }
+    const Axis a = makeAxis(lo, hi, 5);
+    l.lo_C = a.lo;
+    l.hi_C = a.hi;
+    l.step_C = a.step;
+
+    // Top to bottom: the title, the legend, the plot, two lines for the point's name and one for
+    // its runaway share. Above each bar its value is written upward: the plot is as tall as the
+    // room left over by the label of the tallest bar (and the T_j,max label over its line).
+    const double left = r.left() + 26.0 * pt;
+    const double limitW = std::max(small.horizontalAdvance(QStringLiteral("T_j,max")),
+                                   small.horizontalAdvance(fmt(tjMax_C, Unit::Celsius)));
+    const double right = r.right() - limitW - 5.0 * pt;
+    const double legendH = legendBlock(nullptr, device, QPointF(left, 0.0), r.right() - left, spreadLegendNames(),
+                                       spreadLegendColours(), spreadLegendStyles(), pt);
+    const double top = r.top() + title.height() + 3.0 * pt + legendH + 6.0 * pt;
+    const double bottom = r.bottom() - 2.0 * name.height() - small.height() - 6.0 * pt;
+    const double room = std::max(1.0, bottom - top);
+    auto share = [&](double v) { return std::clamp((v - a.lo) / (a.hi - a.lo), 0.0, 1.0); };
+    double height = room;
+    for (const auto& pnt : points)
+        for (const auto& v : pnt.tj_C) {
+            const double f = share(v && std::isfinite(*v) ? *v : tjMax_C);
+            if (f > 0.0)
+                height = std::min(height, (room - value.horizontalAdvance(spreadValueText(v)) - 3.0 * pt) / f);
+        }
+    height = std::min(height, (room - small.height()) / std::max(share(tjMax_C), 1e-6));
+    height = std::max(height, 0.3 * room);
+    l.plot = QRectF(left, bottom - height, std::max(1.0, right - left), height);
+    l.limitY = a.y(l.plot, tjMax_C);
+
+    const double base = a.y(l.plot, 0.0);
+    const double group = points.empty() ? l.plot.width() : l.plot.width() / static_cast<double>(points.size());
+    const double barW = std::min(group * 0.8 / kStatistics, 22.0 * pt);
+    for (std::size_t i = 0; i < points.size(); ++i) {
+        const double x0 = l.plot.left() + group * static_cast<double>(i) + (group - barW * kStatistics) / 2.0;
+        for (std::size_t s = 0; s < kStatistics; ++s) {
+            const auto& v = points[i].tj_C[s];
+            SpreadChartLayout::Bar b;
+            b.point = i;
+            b.statistic = s;
+            b.runaway = !v || !std::isfinite(*v);
+            const double y = b.runaway ? l.limitY : a.y(l.plot, *v);
+            // A small gap between neighbouring bars keeps them apart in print.
+            b.rect = QRectF(x0 + barW * static_cast<double>(s), std::min(y, base), barW * 0.88, std::abs(base - y));
+            l.bars.push_back(b);
+        }
+    }
+    return l;
+}
+
+void drawSpreadChart(QPainter& p, const QRectF& r, double pt, const std::vector<SpreadPoint>& points,
+                     double tjMax_C) {
+    const SpreadChartLayout l = layoutSpreadChart(p.device(), r, pt, points, tjMax_C);
+    const QRectF& plot = l.plot;
+    Axis a;
+    a.lo = l.lo_C;
+    a.hi = l.hi_C;
+    a.step = l.step_C;
+
+    p.setFont(chartFont(7.0, true));
+    const QFontMetricsF title(p.font(), p.device());
+    p.setPen(QColor("#222222"));
+    p.drawText(QPointF(plot.left(), r.top() + title.ascent()), QStringLiteral("Hottest junction temperature, °C"));
+    legendBlock(&p, p.device(), QPointF(plot.left(), r.top() + title.height() + 3.0 * pt), r.right() - plot.left(),
+           spreadLegendNames(), spreadLegendColours(), spreadLegendStyles(), pt);
+
+    drawValueAxis(p, plot, a, QStringLiteral("°C"), pt);
+
+    for (const auto& b : l.bars) {
+        const QColor c = spreadStatisticColour(b.statistic);
+        if (b.runaway) {
+            hatch(p, b.rect, c, pt);
+        } else {
+            p.fillRect(b.rect, c);
+        }
+    }
+
+    // T_j,max over the bars, its label beside the plot where no bar can cover it.
+    p.setPen(QPen(kLimitColour, 0.9 * pt, Qt::DashLine));
+    p.drawLine(QPointF(plot.left(), l.limitY), QPointF(plot.right(), l.limitY));
+    p.setFont(chartFont(6.5));
+    const QFontMetricsF small(p.font(), p.device());
+    p.setPen(kLimitColour);
+    p.drawText(QPointF(plot.right() + 4.0 * pt, l.limitY - 1.0 * pt), QStringLiteral("T_j,max"));
+    p.drawText(QPointF(plot.right() + 4.0 * pt, l.limitY + small.ascent()), fmt(tjMax_C, Unit::Celsius));
+
+    // Each bar's value written upward from its top, on white so the grid and the limit line do
+    // not run through the figures.
+    p.setFont(chartFont(6.0));
+    const QFontMetricsF value(p.font(), p.device());
+    for (const auto& b : l.bars) {
+        const QString t = spreadValueText(points[b.point].tj_C[b.statistic]);
+        const double w = value.horizontalAdvance(t);
+        const double baseline = (value.ascent() - value.descent()) / 2.0;
+        p.save();
+        p.translate(b.rect.center().x(), b.rect.top() - 2.5 * pt);
+        p.rotate(-90.0);
+        p.fillRect(QRectF(-0.5 * pt, baseline - value.ascent() - 0.4 * pt, w + 1.0 * pt, value.height() + 0.8 * pt),
+                   Qt::white);
+        p.setPen(b.runaway ? kLimitColour : QColor("#222222"));
+        p.drawText(QPointF(0.0, baseline), t);
+        p.restore();
+    }
+
+    // Under each group its name (up to two lines) and the share of its samples that run away.
+    p.setFont(chartFont(7.0));
+    const QFontMetricsF name(p.font(), p.device());
+    const double group = points.empty() ? plot.width() : plot.width() / static_cast<double>(points.size());
+    for (std::size_t i = 0; i < points.size(); ++i) {
+        const double x = plot.left() + group * static_cast<double>(i);
+        const QRectF nameBox(x + 1.0 * pt, plot.bottom() + 2.5 * pt, group - 2.0 * pt, 2.0 * name.height());
+        const QString shown = name.elidedText(points[i].name, Qt::ElideRight, 1.8 * nameBox.width());
+        p.setFont(chartFont(7.0));
+        p.setPen(QColor("#222222"));
+        p.drawText(nameBox, Qt::AlignHCenter | Qt::AlignTop | Qt::TextWordWrap, shown);
+        const QRectF used = name.boundingRect(nameBox, Qt::AlignHCenter | Qt::AlignTop | Qt::TextWordWrap, shown);
+        p.setFont(chartFont(6.5));
+        const QString share = small.elidedText(runawayShareText(points[i].runawayFraction), Qt::ElideRight, group);
+        p.setPen(points[i].runawayFraction > 0.0 ? kLimitColour : QColor("#555555"));
+        p.drawText(QPointF(x + (group - small.horizontalAdvance(share)) / 2.0,
+                           std::min(used.bottom(), nameBox.bottom()) + 1.0 * pt + small.ascent()),
+                   share);
     }
 }
 

@@ -12,9 +12,12 @@
 #include "ui/designsheet.h"
 #include "ui/mainwindow.h"
 #include "ui/sheetactions.h"
+#include "ui/sheetcharts.h"
 
 #include <QAction>
+#include <QImage>
 #include <QMenuBar>
+#include <QPainter>
 #include <QPrinter>
 #include <QtTest>
 
@@ -102,7 +105,10 @@ class TestDesignSheet : public QObject {
     QString out(const QString& name) const { return QString::fromStdString((m_dir / name.toStdString()).string()); }
 
     Pdf render(const Design& d, const QString& name, QPageSize::PageSizeId paper = QPageSize::A4) {
-        const Results r = evaluateAll(d);
+        return render(d, evaluateAll(d), name, paper);
+    }
+
+    Pdf render(const Design& d, const Results& r, const QString& name, QPageSize::PageSizeId paper = QPageSize::A4) {
         QString error;
         const bool ok = ui::writeDesignSheetPdf(d, r, out(name), paper, &error);
         if (!ok)
@@ -237,6 +243,139 @@ class TestDesignSheet : public QObject {
         }
         QVERIFY2(unstable >= 1, "the bipolar demo is meant to run away in one segment");
         QVERIFY(pdf.text.contains("Thermal runaway of the bank runs away"));
+    }
+
+    void spreadChartExactlyWhereASpreadWasComputed() {
+        // The bipolar demo's heavy segment runs away in part of the Monte Carlo samples, its light
+        // one in none. The chart's caption names the run as the design file states it (bank.spread
+        // samples and seed), and under each point the share of samples that run away, as the
+        // results carry it.
+        const LoadResult loaded = loadProject(test::demoDir() / "yard-robot-bipolar.ampw");
+        QVERIFY(loaded);
+        const Design& d = *loaded.design;
+        const Results full = evaluateAll(d);
+        int withSpread = 0;
+        QStringList shares;
+        for (const auto& op : full.operatingPoints)
+            if (op.bank.spread) {
+                ++withSpread;
+                QCOMPARE(op.bank.spread->samples, d.bank.spread.samples);
+                QCOMPARE(op.bank.spread->seed, static_cast<long long>(d.bank.spread.seed));
+                shares << (op.bank.spread->runawayFraction > 0.0
+                               ? sheetNumber(op.bank.spread->runawayFraction, units::Unit::Percent) +
+                                     " of samples run away"
+                               : QStringLiteral("no sample runs away"));
+            }
+        QVERIFY2(withSpread >= 2, "evaluateFull runs the spread at every point of the demo");
+        QVERIFY2(shares.contains("no sample runs away") && shares.size() > shares.count("no sample runs away"),
+                 qPrintable(shares.join(" | ")));
+        const QString run = QStringLiteral("Monte Carlo run: %1 samples, seed %2")
+                                .arg(d.bank.spread.samples)
+                                .arg(d.bank.spread.seed);
+        const QString legend = QStringLiteral("hatched: runs away (no stable state)");
+
+        const Pdf pdf = render(d, full, "spread-chart.pdf");
+        QVERIFY2(pdf.text.contains(run), qPrintable(run));
+        QVERIFY(pdf.text.contains(legend));
+        QVERIFY(pdf.text.contains("percentile over the Monte Carlo samples of the parts' stated tolerances"));
+        for (const QString& share : shares)
+            QVERIFY2(pdf.text.contains(share), qPrintable(share));
+        // Chart and caption stand in the bank's section: after its heading, before the next one.
+        const int section = pdf.text.indexOf("Bank stability, ballast and spread");
+        const int next = pdf.text.indexOf("Current and temperature per device", section);
+        QVERIFY(section >= 0 && next > section);
+        QVERIFY(pdf.text.indexOf(run) > section && pdf.text.indexOf(run) < next);
+        QVERIFY(pdf.text.indexOf(legend) > section && pdf.text.indexOf(legend) < next);
+
+        // The quick evaluation has the bank's table but no Monte Carlo run: no chart, no caption.
+        const Results quick = evaluate(d);
+        QVERIFY(std::none_of(quick.operatingPoints.begin(), quick.operatingPoints.end(),
+                             [](const auto& op) { return op.bank.spread.has_value(); }));
+        QVERIFY(ui::designSheetSections(d, quick).contains("Bank stability, ballast and spread"));
+        const Pdf plain = render(d, quick, "spread-chart-quick.pdf");
+        QVERIFY(plain.text.contains("Bank stability, ballast and spread"));
+        QVERIFY(!plain.text.contains("Monte Carlo run:"));
+        QVERIFY(!plain.text.contains(legend));
+        QVERIFY(!plain.text.contains("of samples run away") && !plain.text.contains("no sample runs away"));
+
+        // Only the points that carry a spread are drawn: drop it where samples run away.
+        Results partial = full;
+        for (auto& op : partial.operatingPoints)
+            if (op.bank.spread && op.bank.spread->runawayFraction > 0.0)
+                op.bank.spread.reset();
+        const Pdf some = render(d, partial, "spread-chart-partial.pdf");
+        QVERIFY(some.text.contains(run));
+        QVERIFY(some.text.contains("no sample runs away"));
+        QVERIFY(!some.text.contains("of samples run away"));
+    }
+
+    void spreadChartBarHeights() {
+        // Two points: every value known in the first; in the second the upper percentiles and the
+        // corner run away. On a 72 dpi image one point is one pixel.
+        const double tjMax = 150.0;
+        std::vector<ui::SpreadPoint> points(2);
+        points[0].name = "Steady";
+        points[0].tj_C = {80.0, 90.0, 100.0, 110.0, 120.0};
+        points[1].name = "Hard pull";
+        points[1].tj_C = {60.0, 70.0, std::nullopt, std::nullopt, std::nullopt};
+        points[1].runawayFraction = 0.07;
+        QImage image(900, 420, QImage::Format_ARGB32);
+        image.setDotsPerMeterX(2835); // 72 per inch
+        image.setDotsPerMeterY(2835);
+        image.fill(Qt::white);
+        const QRectF r(10, 10, 880, 400);
+        const ui::SpreadChartLayout l = ui::layoutSpreadChart(&image, r, 1.0, points, tjMax);
+        QCOMPARE(l.bars.size(), std::size_t{10});
+        QVERIFY(r.contains(l.plot));
+        // All temperatures positive: the axis starts at 0 °C, so a bar's height is proportional
+        // to its temperature (a bar chart's length starts at zero: common practice).
+        QCOMPARE(l.lo_C, 0.0);
+        QVERIFY(l.hi_C >= tjMax);
+        const auto& ref = l.bars[0]; // nominal of the first point, 80 °C
+        QVERIFY(ref.rect.height() > 50.0);
+        for (const auto& b : l.bars) {
+            const auto& v = points[b.point].tj_C[b.statistic];
+            QCOMPARE(b.runaway, !v.has_value());
+            // Bars of one point side by side in the order nominal … corner, the points left to right.
+            QVERIFY(l.plot.contains(b.rect.center()));
+            QCOMPARE(b.rect.bottom(), l.plot.bottom());
+            // Exact: a linear axis from 0 maps T to T / (hi − lo) of the plot's height, so heights
+            // stand in the ratio of the temperatures; a runaway bar reaches T_j,max. 1e-9 relative.
+            const double expected = (v ? *v : tjMax) / 80.0;
+            QVERIFY2(std::abs(b.rect.height() / ref.rect.height() - expected) < 1e-9 * expected,
+                     qPrintable(QString("point %1 bar %2: %3 vs %4")
+                                    .arg(b.point).arg(b.statistic).arg(b.rect.height() / ref.rect.height()).arg(expected)));
+            if (b.runaway)
+                QCOMPARE(b.rect.top(), l.limitY);
+        }
+        for (std::size_t i = 1; i < l.bars.size(); ++i)
+            QVERIFY(l.bars[i - 1].rect.right() <= l.bars[i].rect.left());
+        QVERIFY(std::abs((l.plot.bottom() - l.limitY) / ref.rect.height() - tjMax / 80.0) < 1e-9);
+
+        // The drawing puts the bars where the layout says: inside the top of a known bar its
+        // colour, just above it not; a runaway bar is hatched (white and its colour), not filled.
+        {
+            QPainter p(&image);
+            p.setRenderHint(QPainter::Antialiasing);
+            ui::drawSpreadChart(p, r, 1.0, points, tjMax);
+        }
+        for (const auto& b : l.bars) {
+            const QColor c = ui::spreadStatisticColour(b.statistic);
+            const int x = static_cast<int>(b.rect.center().x());
+            if (!b.runaway) {
+                QCOMPARE(image.pixelColor(x, static_cast<int>(b.rect.top() + 3.0)), c);
+                QCOMPARE(image.pixelColor(x, static_cast<int>(b.rect.bottom() - 3.0)), c);
+                QVERIFY(image.pixelColor(x, static_cast<int>(std::floor(b.rect.top() - 1.5))) != c);
+            } else {
+                int white = 0, ink = 0;
+                for (int y = static_cast<int>(b.rect.top() + 3.0); y < static_cast<int>(b.rect.bottom() - 3.0); ++y) {
+                    const QColor px = image.pixelColor(x, y);
+                    white += px == QColor(Qt::white);
+                    ink += px == c || (px.red() < 250 && std::abs(px.hue() - c.hue()) < 20);
+                }
+                QVERIFY2(white > 10 && ink > 10, qPrintable(QString("bar %1: %2 white, %3 ink").arg(b.statistic).arg(white).arg(ink)));
+            }
+        }
     }
 
     void failedChecksAndCautionsArePrinted() {
