@@ -4,6 +4,9 @@
 #include "core/physics/numerics.h"
 
 #include <algorithm>
+#include <array>
+#include <optional>
+#include <utility>
 #include <cmath>
 #include <limits>
 
@@ -217,10 +220,16 @@ ChopperSolution chopperAtDuty(const ChopperCircuit& circuit, const ChopperSupply
         // and |g| bounds the distance to it. In continuous conduction the periodic currents are
         // affine in the bus voltage, so secant steps land on the root at once; discontinuous
         // conduction bends g, and a secant that does not settle hands over to the bracketed search.
+        // The waveform of the last evaluation is kept: where the search settles on it, it is the
+        // answer and need not be computed again.
+        ChopperWaveform last;
+        double lastBus = std::numeric_limits<double>::quiet_NaN();
         auto g = [&](double vBus) {
             ChopperCircuit t = c;
             t.busVoltage_V = vBus;
-            return vBus - v + rBat * chopperWaveform(t, duty).switchAverage_A;
+            last = chopperWaveform(t, duty);
+            lastBus = vBus;
+            return vBus - v + rBat * last.switchAverage_A;
         };
         const double tolerance = 1e-12 * std::max(1.0, v);
         double x0 = v, g0 = g(v);
@@ -245,13 +254,120 @@ ChopperSolution chopperAtDuty(const ChopperCircuit& circuit, const ChopperSupply
         if (!settled)
             if (const auto root = numerics::findRoot(g, 0.0, v, tolerance))
                 c.busVoltage_V = *root;
+        if (c.busVoltage_V == lastBus)
+            s.waveform = std::move(last);
+        else
+            s.waveform = chopperWaveform(c, duty);
+    } else {
+        s.waveform = chopperWaveform(c, duty);
     }
-    s.waveform = chopperWaveform(c, duty);
     s.busVoltage_V = c.busVoltage_V;
     s.batteryCurrent_A = s.waveform.switchAverage_A;
     s.backEmf_V = c.backEmf_V;
     return s;
 }
+
+namespace {
+
+// The averaged circuit's duty for an average motor current I, with the switch and diode carrying
+// D·I and (1 − D)·I: over a period the inductor's volt-seconds balance,
+//   D·(V_bus − V_sw0 − E) − (1 − D)·(V_f0 + E) = R_m·I + R_sw·D·I + r_d·(1 − D)·I,
+// with V_bus = V − R_bat·D·I: R_bat·I·D² − b·D + c = 0, b = V − V_sw0 + V_f0 + (r_d − R_sw)·I,
+// c = V_f0 + E + (R_m + r_d)·I; the smaller root. Exact in continuous conduction but for the
+// ripple's share in the switch and diode averages; only a starting point for the exact search.
+// Also the slope dI/dD of the averaged circuit there. Empty when the averaged circuit cannot
+// carry the current.
+struct AveragedDuty {
+    double duty = 0.0;
+    double slope_AperUnit = 0.0;
+};
+std::optional<AveragedDuty> averagedDuty(const ChopperCircuit& c, const ChopperSupply& supply, double current_A) {
+    const double rm = std::max(0.0, c.loadResistance_ohm), rsw = std::max(0.0, c.switchResistance_ohm);
+    const double rd = std::max(0.0, c.diodeResistance_ohm), rb = std::max(0.0, supply.resistance_ohm);
+    const double vf = std::max(0.0, c.diodeDrop_V);
+    const double v = std::max(0.0, supply.voltage_V);
+    const double b0 = v - c.switchDrop_V + vf, c0 = vf + c.backEmf_V;
+    const double a = rb * current_A, b = b0 + (rd - rsw) * current_A, cc = c0 + (rm + rd) * current_A;
+    const double disc = b * b - 4.0 * a * cc;
+    if (!(disc >= 0.0) || !(b > 0.0))
+        return std::nullopt;
+    const double duty = 2.0 * cc / (b + std::sqrt(disc));
+    // I(D) = (D·b0 − c0)/M(D), M = R_m + r_d + D·(R_sw − r_d) + R_bat·D².
+    const double m = rm + rd + duty * (rsw - rd) + rb * duty * duty;
+    const double dm = rsw - rd + 2.0 * rb * duty;
+    if (!(m > 0.0) || !std::isfinite(duty))
+        return std::nullopt;
+    const double slope = (b0 * m - (duty * b0 - c0) * dm) / (m * m);
+    if (!(slope > 0.0) || !std::isfinite(slope))
+        return std::nullopt;
+    return AveragedDuty{duty, slope};
+}
+
+// The duty in (0, dHigh] where the average motor current crosses `current_A`, I(dHigh) ≥ current_A
+// and a single crossing below dHigh (see chopperForCurrent). Secant steps from the averaged
+// circuit's duty bring the bracket [lo, hi] (I(lo) < current_A ≤ I(hi)) close around the crossing;
+// Brent's method on that bracket then gives it to 1e-13 in duty, as a search over [0, dHigh] would.
+// Every solution computed is kept, so the bracket's ends and the root are not computed twice.
+ChopperSolution crossingBelow(const ChopperCircuit& circuit, const ChopperSupply& supply, double current_A,
+                              double dHigh, const ChopperSolution& high) {
+    constexpr std::size_t kKept = 8;
+    std::array<std::pair<double, ChopperSolution>, kKept> kept;
+    std::size_t keptCount = 0, keptNext = 0;
+    auto solutionAt = [&](double d) -> const ChopperSolution& {
+        for (std::size_t i = 0; i < keptCount; ++i)
+            if (kept[i].first == d)
+                return kept[i].second;
+        auto& slot = kept[keptNext];
+        slot = {d, chopperAtDuty(circuit, supply, d)};
+        keptNext = (keptNext + 1) % kKept;
+        keptCount = std::min(keptCount + 1, kKept);
+        return slot.second;
+    };
+    auto f = [&](double d) { return solutionAt(d).waveform.motorAverage_A - current_A; };
+
+    double lo = 0.0, hi = dHigh;
+    const double fHigh = high.waveform.motorAverage_A - current_A;
+    if (fHigh > 0.0) {
+        kept[0] = {dHigh, high};
+        keptCount = 1;
+        keptNext = 1;
+        if (const auto avg = averagedDuty(circuit, supply, current_A)) {
+            double x = avg->duty, slope = avg->slope_AperUnit;
+            double xPrev = 0.0, fPrev = 0.0;
+            bool havePrev = false;
+            for (int k = 0; k < 6 && hi - lo > 1e-11; ++k) {
+                if (!(x > lo && x < hi))
+                    x = 0.5 * (lo + hi);
+                const double fx = f(x);
+                if (!std::isfinite(fx))
+                    break;
+                if (fx < 0.0)
+                    lo = x;
+                else if (fx > 0.0)
+                    hi = x;
+                else {
+                    lo = hi = x;
+                    break;
+                }
+                if (havePrev && fx != fPrev)
+                    slope = (fx - fPrev) / (x - xPrev);
+                xPrev = x;
+                fPrev = fx;
+                havePrev = true;
+                const double step = -fx / slope;
+                // A converged secant step lands within its own size of the crossing: step a
+                // little past it, so that the crossing is bracketed closely.
+                x += step + (std::abs(step) < 1e-11 ? std::copysign(2e-13, step) : 0.0);
+            }
+        }
+        if (lo == hi)
+            return solutionAt(lo);
+    }
+    const auto root = numerics::findRoot(f, lo, hi, 1e-13);
+    return root ? solutionAt(*root) : high;
+}
+
+} // namespace
 
 ChopperSolution chopperForCurrent(const ChopperCircuit& circuit, const ChopperSupply& supply, double current_A,
                                   double maxDuty) {
@@ -265,9 +381,7 @@ ChopperSolution chopperForCurrent(const ChopperCircuit& circuit, const ChopperSu
     // and the crossing on its rising side, if the peak reaches the current at all.
     auto currentAt = [&](double d) { return chopperAtDuty(circuit, supply, d).waveform.motorAverage_A; };
     auto crossing = [&](double dHigh, const ChopperSolution& high) {
-        auto f = [&](double dd) { return currentAt(dd) - current_A; };
-        const auto root = numerics::findRoot(f, 0.0, dHigh, 1e-13);
-        return root ? chopperAtDuty(circuit, supply, *root) : high;
+        return crossingBelow(circuit, supply, current_A, dHigh, high);
     };
     ChopperSolution top = chopperAtDuty(circuit, supply, dMax);
     if (!top.waveform.valid || top.waveform.motorAverage_A >= current_A)
