@@ -684,6 +684,7 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
     oi.repetitiveAvalanche_J = plan.mosfet ? std::max(0.0, part.mosfet.avalancheRepetitive_J) : 0.0;
     oi.derating = d.layout.overshootDerating;
     oi.avalancheRated = plan.mosfet;
+    oi.messages = in.withChecks; // the texts are read by the checks below only
     losses::OvershootResult atPoint;
     losses::OvershootResult atMax;
     if (offCurrentMax > 0.0 && fall_s > 0.0) {
@@ -744,6 +745,7 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
     ci.thermalResistance_KperW = d.layout.capacitorThermalResistance_KperW;
     ci.ambient_C = d.heatsink.ambient_C;
     ci.maxTemperature_C = d.layout.capacitorMaxTemperature_C;
+    ci.messages = in.withChecks;
     const auto caps = losses::busCapacitors(ci);
     if (caps.ok()) {
         lp.busCapacitorRipple_A = caps.capacitorRms_A;

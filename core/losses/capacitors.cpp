@@ -63,25 +63,25 @@ CapacitorResult busCapacitors(const CapacitorInput& in) {
     r.hotSpot_C = in.ambient_C + r.temperatureRise_K;
 
     r.ripple = {true, r.perCapacitorRms_A > in.rippleRating_A, r.perCapacitorRms_A, in.rippleRating_A, {}};
-    if (r.ripple.failed)
+    if (r.ripple.failed && in.messages)
         r.ripple.message = "each of the " + std::to_string(n) + " capacitors carries " + num(r.perCapacitorRms_A) +
                            " A RMS, above its " + num(in.rippleRating_A) + " A rating; " +
                            std::to_string(r.requiredForRipple) + " are needed";
     const double allowed = in.voltageDerating * in.ratedVoltage_V;
     r.voltage = {true, in.maxBusVoltage_V > allowed, in.maxBusVoltage_V, allowed, {}};
-    if (r.voltage.failed)
+    if (r.voltage.failed && in.messages)
         r.voltage.message = "the highest bus voltage " + num(in.maxBusVoltage_V) + " V exceeds " +
                             num(in.voltageDerating * 100.0) + " % of the " + num(in.ratedVoltage_V) +
                             " V capacitor rating (" + num(allowed) + " V)";
     r.temperature = {true, r.hotSpot_C > in.maxTemperature_C, r.hotSpot_C, in.maxTemperature_C, {}};
-    if (r.temperature.failed)
+    if (r.temperature.failed && in.messages)
         r.temperature.message = "the capacitors' hot spot reaches " + num(r.hotSpot_C) + " °C, above their " +
                                 num(in.maxTemperature_C) + " °C rating";
     r.decoupling.rated = cable;
     r.decoupling.value = in.rippleFrequency_Hz;
     r.decoupling.limit = 2.0 * r.resonance_Hz;
     r.decoupling.failed = cable && in.rippleFrequency_Hz <= 2.0 * r.resonance_Hz;
-    if (r.decoupling.failed)
+    if (r.decoupling.failed && in.messages)
         r.decoupling.message = "the ripple frequency " + num(in.rippleFrequency_Hz) + " Hz is not well above the " +
                                num(r.resonance_Hz) + " Hz resonance of the battery cable with the capacitors: "
                                "the cable carries ripple and the capacitors ring";

@@ -39,6 +39,7 @@ struct CapacitorInput {
     double thermalResistance_KperW = 20.0; ///< per capacitor, hot spot to ambient
     double ambient_C = 30.0;
     double maxTemperature_C = 105.0;    ///< rated hot-spot temperature
+    bool messages = true;               ///< false: verdicts without their text (callers in a loop)
 };
 
 struct CapacitorResult {

@@ -43,7 +43,7 @@ OvershootResult turnOffOvershoot(const OvershootInput& in) {
 
     const double allowed = in.derating * in.voltageRating_V;
     r.voltage = {true, r.peak_V > allowed, r.peak_V, allowed, {}};
-    if (r.voltage.failed)
+    if (r.voltage.failed && in.messages)
         r.voltage.message = "turning off " + num(i) + " A in " + num(in.currentFallTime_s * 1e9) + " ns through " +
                             num(l * 1e9) + " nH gives a " + num(r.peak_V) + " V peak, above " +
                             num(in.derating * 100.0) + " % of the " + num(in.voltageRating_V) + " V rating";
@@ -51,7 +51,7 @@ OvershootResult turnOffOvershoot(const OvershootInput& in) {
     r.avalanche.value = r.avalancheEnergy_J;
     r.avalanche.limit = in.repetitiveAvalanche_J;
     r.avalanche.failed = r.avalanches && (!r.avalanche.rated || r.avalancheEnergy_J > in.repetitiveAvalanche_J);
-    if (r.avalanche.failed)
+    if (r.avalanche.failed && in.messages)
         r.avalanche.message = "the device clamps at " + num(vbr) + " V and absorbs " + num(r.avalancheEnergy_J * 1e6) +
                               " µJ every turn-off (" + num(r.avalanche_W) + " W)" +
                               (r.avalanche.rated ? ", above its " + num(in.repetitiveAvalanche_J * 1e6) + " µJ repetitive rating"

@@ -37,6 +37,7 @@ struct OvershootInput {
     double repetitiveAvalanche_J = 0.0; ///< per device (0 = not rated)
     double derating = 0.8;              ///< highest fraction of the rating the peak may reach
     bool avalancheRated = true;         ///< false for parts that must never avalanche (bipolar)
+    bool messages = true;               ///< false: verdicts without their text (callers in a loop)
 };
 
 struct OvershootResult {

@@ -4,6 +4,9 @@
 #include "core/physics/numerics.h"
 
 #include <algorithm>
+#include <array>
+#include <optional>
+#include <utility>
 #include <cmath>
 #include <limits>
 
@@ -41,18 +44,66 @@ namespace {
 // (1 − e^(−x))/x, 1 at x = 0, without cancellation for small x.
 double oneMinusExpOverX(double x) { return x > 1e-12 ? -std::expm1(-x) / x : 1.0 - 0.5 * x; }
 
-// One conduction phase: L·di/dt = V − R·i from i0 for a time t.
+// Above this R·t/L a phase's integrals use the closed form, below it Taylor series.
+constexpr double kClosedFormFrom = 0.01;
+
+// What a conduction phase's response over its whole time t depends on besides its source and
+// start current: functions of x = R·t/L only. The bus-voltage search of one duty evaluates the
+// waveform at several bus voltages with the same phases; these are computed once for all of them.
+struct PhaseFactors {
+    double x = 0.0;
+    double decay = 1.0;     // e^(−x)
+    double phi = 1.0;       // (1 − e^(−x))/x
+    bool closed = false;    // x > kClosedFormFrom: closed-form integrals
+    double e1 = 0.0, e2 = 0.0;                                  // closed form: 1 − e^(−x), 1 − e^(−2x)
+    double phi1 = 0.0, phi2 = 0.0, a = 0.0, b = 0.0, cc = 0.0;  // series (see integrate)
+};
+
+PhaseFactors phaseFactors(double r_ohm, double l_H, double t_s) {
+    PhaseFactors f;
+    f.x = r_ohm * t_s / l_H;
+    f.decay = std::exp(-f.x);
+    f.phi = oneMinusExpOverX(f.x);
+    if (t_s <= 0.0)
+        return f;
+    const double x = f.x;
+    if (x > kClosedFormFrom) {
+        f.closed = true;
+        f.e1 = -std::expm1(-x);
+        f.e2 = -std::expm1(-2.0 * x);
+        return f;
+    }
+    // Small x (≤ 0.01): with i(s) = i0·e^(−ks) + (V/L)·s·φ(ks), k = R/L, φ(x) = (1 − e^(−x))/x,
+    //   ∫i  = i0·t·φ(x) + (V/L)·t²·A(x),
+    //   ∫i² = i0²·t·φ(2x) + 2·i0·(V/L)·t²·B(x) + (V/L)²·t³·C(x),
+    // A = (1 − φ(x))/x, B = (φ(x) − φ(2x))/x, C = (1 − 2φ(x) + φ(2x))/x², summed as their Taylor
+    // series to x^7 (the first term left out is below 1e-20 of its sum at x = 0.01).
+    double term = 1.0; // (−x)^m
+    double f1 = 1.0;   // (m+1)!
+    double two = 1.0;  // 2^m
+    for (int m = 0; m < 8; ++m, two *= 2.0) {
+        const double f2 = f1 * (m + 2), f3 = f2 * (m + 3);
+        f.phi1 += term / f1;
+        f.phi2 += two * term / f1;
+        f.a += term / f2;
+        f.b += (2.0 * two - 1.0) * term / f2;
+        f.cc += (4.0 * two - 2.0) * term / f3;
+        term *= -x;
+        f1 = f2;
+    }
+    return f;
+}
+
+// One conduction phase: L·di/dt = V − R·i from i0 for a time t, with its factors.
 struct Phase {
     double i0 = 0.0;
     double source_V = 0.0;
     double r_ohm = 0.0;
     double l_H = 1.0;
     double t_s = 0.0;
+    const PhaseFactors* f = nullptr;
 
-    double current(double s) const {
-        const double x = r_ohm * s / l_H;
-        return i0 * std::exp(-x) + source_V / l_H * s * oneMinusExpOverX(x);
-    }
+    double end() const { return i0 * f->decay + source_V / l_H * t_s * f->phi; }
 };
 
 struct PhaseIntegrals {
@@ -61,50 +112,26 @@ struct PhaseIntegrals {
     double square = 0.0;    // ∫ i² ds
 };
 
-// Above this R·t/L a phase's integrals use the closed form, below it Taylor series.
-constexpr double kClosedFormFrom = 0.01;
-
 PhaseIntegrals integrate(const Phase& p) {
     PhaseIntegrals r;
-    r.end = p.current(p.t_s);
+    r.end = p.end();
     if (p.t_s <= 0.0)
         return r;
-    const double x = p.r_ohm * p.t_s / p.l_H;
-    if (x > kClosedFormFrom) {
+    const PhaseFactors& f = *p.f;
+    if (f.closed) {
         // Closed form. Its terms cancel as x falls: the relative rounding error is about
         // ε/x for ∫i and ε/x² for ∫i² (ε = 2.2e-16), so 4e-12 at worst above x = 0.01.
         const double c = p.source_V / p.r_ohm;
         const double d = p.i0 - c;
         const double tau = p.l_H / p.r_ohm;
-        const double e1 = -std::expm1(-x);
-        const double e2 = -std::expm1(-2.0 * x);
-        r.integral = c * p.t_s + d * tau * e1;
-        r.square = c * c * p.t_s + 2.0 * c * d * tau * e1 + d * d * 0.5 * tau * e2;
+        r.integral = c * p.t_s + d * tau * f.e1;
+        r.square = c * c * p.t_s + 2.0 * c * d * tau * f.e1 + d * d * 0.5 * tau * f.e2;
         return r;
-    }
-    // Small x (≤ 0.01): with i(s) = i0·e^(−ks) + (V/L)·s·φ(ks), k = R/L, φ(x) = (1 − e^(−x))/x,
-    //   ∫i  = i0·t·φ(x) + (V/L)·t²·A(x),
-    //   ∫i² = i0²·t·φ(2x) + 2·i0·(V/L)·t²·B(x) + (V/L)²·t³·C(x),
-    // A = (1 − φ(x))/x, B = (φ(x) − φ(2x))/x, C = (1 − 2φ(x) + φ(2x))/x², summed as their Taylor
-    // series to x^7 (the first term left out is below 1e-20 of its sum at x = 0.01).
-    double phi1 = 0.0, phi2 = 0.0, a = 0.0, b = 0.0, cc = 0.0;
-    double term = 1.0; // (−x)^m
-    double f1 = 1.0;   // (m+1)!
-    double two = 1.0;  // 2^m
-    for (int m = 0; m < 8; ++m, two *= 2.0) {
-        const double f2 = f1 * (m + 2), f3 = f2 * (m + 3);
-        phi1 += term / f1;
-        phi2 += two * term / f1;
-        a += term / f2;
-        b += (2.0 * two - 1.0) * term / f2;
-        cc += (4.0 * two - 2.0) * term / f3;
-        term *= -x;
-        f1 = f2;
     }
     const double t = p.t_s;
     const double slope = p.source_V / p.l_H;
-    r.integral = p.i0 * t * phi1 + slope * t * t * a;
-    r.square = p.i0 * p.i0 * t * phi2 + 2.0 * p.i0 * slope * t * t * b + slope * slope * t * t * t * cc;
+    r.integral = p.i0 * t * f.phi1 + slope * t * t * f.a;
+    r.square = p.i0 * p.i0 * t * f.phi2 + 2.0 * p.i0 * slope * t * t * f.b + slope * slope * t * t * t * f.cc;
     return r;
 }
 
@@ -118,31 +145,54 @@ double extinctionTime(double i0, double source_V, double r_ohm, double l_H) {
     return y > 1e-12 ? linear * std::log1p(y) / y : linear;
 }
 
-} // namespace
+// Everything of chopperWaveform() that does not depend on the bus voltage.
+struct DutyFactors {
+    bool valid = true;
+    double duty = 0.0, period = 0.0, tOn = 0.0, tOff = 0.0;
+    double rOn = 0.0, rOff = 0.0, vOff = 0.0, oneMinusAB = 0.0;
+    PhaseFactors on, off;
+};
 
-ChopperWaveform chopperWaveform(const ChopperCircuit& c, double duty) {
-    ChopperWaveform w;
-    w.duty = std::clamp(std::isfinite(duty) ? duty : 0.0, 0.0, 1.0);
+DutyFactors dutyFactors(const ChopperCircuit& c, double duty) {
+    DutyFactors k;
+    k.duty = std::clamp(std::isfinite(duty) ? duty : 0.0, 0.0, 1.0);
     if (!(c.frequency_Hz > 0.0) || !(c.inductance_H > 0.0)) {
+        k.valid = false;
+        return k;
+    }
+    k.period = 1.0 / c.frequency_Hz;
+    k.tOn = k.duty * k.period;
+    k.tOff = k.period - k.tOn;
+    k.rOn = std::max(0.0, c.loadResistance_ohm) + std::max(0.0, c.switchResistance_ohm);
+    k.rOff = std::max(0.0, c.loadResistance_ohm) + std::max(0.0, c.diodeResistance_ohm);
+    k.vOff = -(std::max(0.0, c.diodeDrop_V) + c.backEmf_V);
+    k.on = phaseFactors(k.rOn, c.inductance_H, k.tOn);
+    k.off = phaseFactors(k.rOff, c.inductance_H, k.tOff);
+    k.oneMinusAB = -std::expm1(-(k.on.x + k.off.x));
+    return k;
+}
+
+ChopperWaveform waveformWith(const ChopperCircuit& c, const DutyFactors& k) {
+    ChopperWaveform w;
+    w.duty = k.duty;
+    if (!k.valid) {
         w.valid = false;
         w.problem = "the PWM frequency and the motor inductance must be positive";
         return w;
     }
-    const double period = 1.0 / c.frequency_Hz;
-    const double tOn = w.duty * period;
-    const double tOff = period - tOn;
-    const double rOn = std::max(0.0, c.loadResistance_ohm) + std::max(0.0, c.switchResistance_ohm);
-    const double rOff = std::max(0.0, c.loadResistance_ohm) + std::max(0.0, c.diodeResistance_ohm);
+    const double period = k.period;
+    const double tOn = k.tOn;
+    const double tOff = k.tOff;
+    const double rOn = k.rOn;
+    const double rOff = k.rOff;
     const double vOn = c.busVoltage_V - c.switchDrop_V - c.backEmf_V;
-    const double vOff = -(std::max(0.0, c.diodeDrop_V) + c.backEmf_V);
+    const double vOff = k.vOff;
 
-    Phase on{0.0, vOn, rOn, c.inductance_H, tOn};
-    Phase off{0.0, vOff, rOff, c.inductance_H, tOff};
-    const double xOn = rOn * tOn / c.inductance_H;
-    const double xOff = rOff * tOff / c.inductance_H;
-    const double a1 = on.current(tOn);   // on-phase response from zero current
-    const double b1 = off.current(tOff); // off-phase response from zero current
-    const double oneMinusAB = -std::expm1(-(xOn + xOff));
+    Phase on{0.0, vOn, rOn, c.inductance_H, tOn, &k.on};
+    Phase off{0.0, vOff, rOff, c.inductance_H, tOff, &k.off};
+    const double a1 = on.end();   // on-phase response from zero current
+    const double b1 = off.end();  // off-phase response from zero current
+    const double oneMinusAB = k.oneMinusAB;
 
     PhaseIntegrals onI, offI;
     if (tOn <= 0.0 || a1 <= 0.0) {
@@ -154,8 +204,8 @@ ChopperWaveform chopperWaveform(const ChopperCircuit& c, double duty) {
     bool continuous = false;
     double iMax = 0.0, iMin = 0.0;
     if (oneMinusAB > 1e-14) {
-        iMax = (a1 + std::exp(-xOn) * b1) / oneMinusAB;
-        iMin = std::exp(-xOff) * iMax + b1;
+        iMax = (a1 + k.on.decay * b1) / oneMinusAB;
+        iMin = k.off.decay * iMax + b1;
         continuous = iMin > 0.0;
     } else if (vOff >= 0.0) {
         // No resistance anywhere and nothing to bring the current down: it grows without bound.
@@ -164,6 +214,7 @@ ChopperWaveform chopperWaveform(const ChopperCircuit& c, double duty) {
         return w;
     }
 
+    PhaseFactors extinct;
     if (continuous) {
         w.mode = ConductionMode::Continuous;
         on.i0 = iMin;
@@ -187,6 +238,10 @@ ChopperWaveform chopperWaveform(const ChopperCircuit& c, double duty) {
             return w;
         }
         off.t_s = std::min(tOff, tx);
+        if (off.t_s != tOff) {
+            extinct = phaseFactors(rOff, c.inductance_H, off.t_s);
+            off.f = &extinct;
+        }
         offI = integrate(off);
         w.iMin_A = 0.0;
         w.iMax_A = peak;
@@ -206,6 +261,10 @@ ChopperWaveform chopperWaveform(const ChopperCircuit& c, double duty) {
     return w;
 }
 
+} // namespace
+
+ChopperWaveform chopperWaveform(const ChopperCircuit& c, double duty) { return waveformWith(c, dutyFactors(c, duty)); }
+
 ChopperSolution chopperAtDuty(const ChopperCircuit& circuit, const ChopperSupply& supply, double duty) {
     ChopperSolution s;
     ChopperCircuit c = circuit;
@@ -217,10 +276,17 @@ ChopperSolution chopperAtDuty(const ChopperCircuit& circuit, const ChopperSupply
         // and |g| bounds the distance to it. In continuous conduction the periodic currents are
         // affine in the bus voltage, so secant steps land on the root at once; discontinuous
         // conduction bends g, and a secant that does not settle hands over to the bracketed search.
+        // The waveform of the last evaluation is kept: where the search settles on it, it is the
+        // answer and need not be computed again.
+        ChopperWaveform last;
+        double lastBus = std::numeric_limits<double>::quiet_NaN();
+        const DutyFactors factors = dutyFactors(c, duty); // the bus voltage does not enter them
         auto g = [&](double vBus) {
             ChopperCircuit t = c;
             t.busVoltage_V = vBus;
-            return vBus - v + rBat * chopperWaveform(t, duty).switchAverage_A;
+            last = waveformWith(t, factors);
+            lastBus = vBus;
+            return vBus - v + rBat * last.switchAverage_A;
         };
         const double tolerance = 1e-12 * std::max(1.0, v);
         double x0 = v, g0 = g(v);
@@ -245,13 +311,120 @@ ChopperSolution chopperAtDuty(const ChopperCircuit& circuit, const ChopperSupply
         if (!settled)
             if (const auto root = numerics::findRoot(g, 0.0, v, tolerance))
                 c.busVoltage_V = *root;
+        if (c.busVoltage_V == lastBus)
+            s.waveform = std::move(last);
+        else
+            s.waveform = chopperWaveform(c, duty);
+    } else {
+        s.waveform = chopperWaveform(c, duty);
     }
-    s.waveform = chopperWaveform(c, duty);
     s.busVoltage_V = c.busVoltage_V;
     s.batteryCurrent_A = s.waveform.switchAverage_A;
     s.backEmf_V = c.backEmf_V;
     return s;
 }
+
+namespace {
+
+// The averaged circuit's duty for an average motor current I, with the switch and diode carrying
+// D·I and (1 − D)·I: over a period the inductor's volt-seconds balance,
+//   D·(V_bus − V_sw0 − E) − (1 − D)·(V_f0 + E) = R_m·I + R_sw·D·I + r_d·(1 − D)·I,
+// with V_bus = V − R_bat·D·I: R_bat·I·D² − b·D + c = 0, b = V − V_sw0 + V_f0 + (r_d − R_sw)·I,
+// c = V_f0 + E + (R_m + r_d)·I; the smaller root. Exact in continuous conduction but for the
+// ripple's share in the switch and diode averages; only a starting point for the exact search.
+// Also the slope dI/dD of the averaged circuit there. Empty when the averaged circuit cannot
+// carry the current.
+struct AveragedDuty {
+    double duty = 0.0;
+    double slope_AperUnit = 0.0;
+};
+std::optional<AveragedDuty> averagedDuty(const ChopperCircuit& c, const ChopperSupply& supply, double current_A) {
+    const double rm = std::max(0.0, c.loadResistance_ohm), rsw = std::max(0.0, c.switchResistance_ohm);
+    const double rd = std::max(0.0, c.diodeResistance_ohm), rb = std::max(0.0, supply.resistance_ohm);
+    const double vf = std::max(0.0, c.diodeDrop_V);
+    const double v = std::max(0.0, supply.voltage_V);
+    const double b0 = v - c.switchDrop_V + vf, c0 = vf + c.backEmf_V;
+    const double a = rb * current_A, b = b0 + (rd - rsw) * current_A, cc = c0 + (rm + rd) * current_A;
+    const double disc = b * b - 4.0 * a * cc;
+    if (!(disc >= 0.0) || !(b > 0.0))
+        return std::nullopt;
+    const double duty = 2.0 * cc / (b + std::sqrt(disc));
+    // I(D) = (D·b0 − c0)/M(D), M = R_m + r_d + D·(R_sw − r_d) + R_bat·D².
+    const double m = rm + rd + duty * (rsw - rd) + rb * duty * duty;
+    const double dm = rsw - rd + 2.0 * rb * duty;
+    if (!(m > 0.0) || !std::isfinite(duty))
+        return std::nullopt;
+    const double slope = (b0 * m - (duty * b0 - c0) * dm) / (m * m);
+    if (!(slope > 0.0) || !std::isfinite(slope))
+        return std::nullopt;
+    return AveragedDuty{duty, slope};
+}
+
+// The duty in (0, dHigh] where the average motor current crosses `current_A`, I(dHigh) ≥ current_A
+// and a single crossing below dHigh (see chopperForCurrent). Secant steps from the averaged
+// circuit's duty bring the bracket [lo, hi] (I(lo) < current_A ≤ I(hi)) close around the crossing;
+// Brent's method on that bracket then gives it to 1e-13 in duty, as a search over [0, dHigh] would.
+// Every solution computed is kept, so the bracket's ends and the root are not computed twice.
+ChopperSolution crossingBelow(const ChopperCircuit& circuit, const ChopperSupply& supply, double current_A,
+                              double dHigh, const ChopperSolution& high) {
+    constexpr std::size_t kKept = 8;
+    std::array<std::pair<double, ChopperSolution>, kKept> kept;
+    std::size_t keptCount = 0, keptNext = 0;
+    auto solutionAt = [&](double d) -> const ChopperSolution& {
+        for (std::size_t i = 0; i < keptCount; ++i)
+            if (kept[i].first == d)
+                return kept[i].second;
+        auto& slot = kept[keptNext];
+        slot = {d, chopperAtDuty(circuit, supply, d)};
+        keptNext = (keptNext + 1) % kKept;
+        keptCount = std::min(keptCount + 1, kKept);
+        return slot.second;
+    };
+    auto f = [&](double d) { return solutionAt(d).waveform.motorAverage_A - current_A; };
+
+    double lo = 0.0, hi = dHigh;
+    const double fHigh = high.waveform.motorAverage_A - current_A;
+    if (fHigh > 0.0) {
+        kept[0] = {dHigh, high};
+        keptCount = 1;
+        keptNext = 1;
+        if (const auto avg = averagedDuty(circuit, supply, current_A)) {
+            double x = avg->duty, slope = avg->slope_AperUnit;
+            double xPrev = 0.0, fPrev = 0.0;
+            bool havePrev = false;
+            for (int k = 0; k < 6 && hi - lo > 1e-11; ++k) {
+                if (!(x > lo && x < hi))
+                    x = 0.5 * (lo + hi);
+                const double fx = f(x);
+                if (!std::isfinite(fx))
+                    break;
+                if (fx < 0.0)
+                    lo = x;
+                else if (fx > 0.0)
+                    hi = x;
+                else {
+                    lo = hi = x;
+                    break;
+                }
+                if (havePrev && fx != fPrev)
+                    slope = (fx - fPrev) / (x - xPrev);
+                xPrev = x;
+                fPrev = fx;
+                havePrev = true;
+                const double step = -fx / slope;
+                // A converged secant step lands within its own size of the crossing: step a
+                // little past it, so that the crossing is bracketed closely.
+                x += step + (std::abs(step) < 1e-11 ? std::copysign(2e-13, step) : 0.0);
+            }
+        }
+        if (lo == hi)
+            return solutionAt(lo);
+    }
+    const auto root = numerics::findRoot(f, lo, hi, 1e-13);
+    return root ? solutionAt(*root) : high;
+}
+
+} // namespace
 
 ChopperSolution chopperForCurrent(const ChopperCircuit& circuit, const ChopperSupply& supply, double current_A,
                                   double maxDuty) {
@@ -265,9 +438,7 @@ ChopperSolution chopperForCurrent(const ChopperCircuit& circuit, const ChopperSu
     // and the crossing on its rising side, if the peak reaches the current at all.
     auto currentAt = [&](double d) { return chopperAtDuty(circuit, supply, d).waveform.motorAverage_A; };
     auto crossing = [&](double dHigh, const ChopperSolution& high) {
-        auto f = [&](double dd) { return currentAt(dd) - current_A; };
-        const auto root = numerics::findRoot(f, 0.0, dHigh, 1e-13);
-        return root ? chopperAtDuty(circuit, supply, *root) : high;
+        return crossingBelow(circuit, supply, current_A, dHigh, high);
     };
     ChopperSolution top = chopperAtDuty(circuit, supply, dMax);
     if (!top.waveform.valid || top.waveform.motorAverage_A >= current_A)

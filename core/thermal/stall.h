@@ -23,6 +23,9 @@
 // within e^(−10) of its steady value — without a crossing. A runaway of the losses (no steady
 // state) always ends at the limit.
 //
+// The stall's steady state is steadyState()'s fixed point to 0.01 K, its iteration sped up by
+// Anderson mixing of depth 1 with safeguards (stall.cpp).
+//
 // Units: s, °C, W. The loss callbacks are those of transient.h, called with segment index 0.
 
 #include "core/thermal/transient.h"

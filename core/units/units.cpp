@@ -217,15 +217,34 @@ std::optional<double> prefixValue(std::string_view text) {
 
 Parsed fail(std::string message) { return Parsed{std::nullopt, std::move(message)}; }
 
+// printf's %.*f, %.*e and %.*g of a double, through std::to_chars: the standard specifies its
+// output with a precision as that of printf in the "C" locale ([charconv.to.chars]), and it
+// skips printf's format parsing and stream machinery (the messages of the checks format numbers
+// inside the engine's iterations). printf stays as the fallback should the buffer not suffice.
+std::string printed(double v, std::chars_format style, int precision) {
+    char buf[400];
+    const auto [end, ec] = std::to_chars(buf, buf + sizeof buf, v, style, precision);
+    if (ec == std::errc())
+        return std::string(buf, end);
+    const char* spec = style == std::chars_format::fixed        ? "%.*f"
+                       : style == std::chars_format::scientific ? "%.*e"
+                                                                : "%.*g";
+    std::vector<char> big(static_cast<std::size_t>(std::snprintf(nullptr, 0, spec, precision, v)) + 1);
+    std::snprintf(big.data(), big.size(), spec, precision, v);
+    return big.data();
+}
+
 /// Round to `sig` significant digits and print without trailing zeros, in plain notation.
 std::string fixedDigits(double v, int sig) {
     if (v == 0.0)
         return "0";
     const int mag = static_cast<int>(std::floor(std::log10(std::abs(v))));
     const int decimals = std::max(0, sig - 1 - mag);
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.*f", decimals, v);
-    std::string s = buf;
+    std::string s = printed(v, std::chars_format::fixed, decimals);
+    // The text has always been cut at 63 characters (a 64-byte buffer): only absurd magnitudes
+    // reach it ("0 pg" for 1e-132 kg), and they keep printing as before.
+    if (s.size() > 63)
+        s.resize(63);
     if (s.find('.') != std::string::npos) {
         while (!s.empty() && s.back() == '0')
             s.pop_back();
@@ -241,9 +260,20 @@ std::string fixedDigits(double v, int sig) {
 double roundSignificant(double v, int sig) {
     if (v == 0.0 || !std::isfinite(v))
         return v;
+    // The decimal text of %.*e read back: from_chars rounds correctly, as strtod does; where the
+    // rounded text leaves the range of double ("2e+308") strtod's overflow to infinity is kept.
     char buf[64];
-    std::snprintf(buf, sizeof buf, "%.*e", sig - 1, v);
-    return std::strtod(buf, nullptr);
+    const auto [end, ec] = std::to_chars(buf, buf + sizeof buf - 1, v, std::chars_format::scientific, sig - 1);
+    if (ec != std::errc()) {
+        std::snprintf(buf, sizeof buf, "%.*e", sig - 1, v);
+        return std::strtod(buf, nullptr);
+    }
+    double r = v;
+    if (std::from_chars(buf, end, r).ec != std::errc()) {
+        *end = '\0';
+        return std::strtod(buf, nullptr);
+    }
+    return r;
 }
 
 /// Plain number: fixed notation for 1e-3 ≤ |v| < 1e6, otherwise "1.5e7".
@@ -277,13 +307,59 @@ std::string plain(double v, int significant) {
     if (std::isinf(v))
         return v > 0 ? "∞" : "−∞";
     significant = std::clamp(significant, 1, 15);
+    if (v != 0.0) {
+        // The common case without a second conversion: %.*e gives the digits d₀.d₁…d_p and the
+        // decade X; r is that decimal as a double. When floor(log10|r|) is X, the %.*f that
+        // fixedDigits would print at max(0, p − X) decimals shows exactly those digits (r lies
+        // within half an ulp of the decimal, far less than half a unit of its last digit, for
+        // p ≤ 14; for X > p, r is an integer below 1e7, exact in a double), so the text is put
+        // together from them. Any other case takes the general path below.
+        char buf[48];
+        const int p = significant - 1;
+        const auto [end, ec] = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::scientific, p);
+        double r = 0.0;
+        const char* ePos = ec == std::errc() ? std::find(buf, end, 'e') : end;
+        int x = 0;
+        if (ePos != end && std::from_chars(buf, end, r).ec == std::errc() &&
+            std::from_chars(ePos + (ePos[1] == '+' ? 2 : 1), end, x).ec == std::errc()) {
+            const double a = std::abs(r);
+            if (!(a >= 1e-3 && a < 1e7))
+                return printed(r, std::chars_format::general, significant);
+            if (static_cast<int>(std::floor(std::log10(a))) == x) {
+                const bool negative = buf[0] == '-';
+                // The digits without sign and point: d₀ then d₁…d_p.
+                char digits[20];
+                int nd = 0;
+                for (const char* c = buf + (negative ? 1 : 0); c != ePos; ++c)
+                    if (*c != '.')
+                        digits[nd++] = *c;
+                while (nd > 1 && digits[nd - 1] == '0' && nd - 1 > x)
+                    --nd; // trailing zeros after the decimal point
+                std::string out;
+                out.reserve(24);
+                if (negative)
+                    out += '-';
+                if (x >= 0) {
+                    for (int i = 0; i <= x; ++i)
+                        out += i < nd ? digits[i] : '0';
+                    if (nd > x + 1) {
+                        out += '.';
+                        out.append(digits + x + 1, digits + nd);
+                    }
+                } else {
+                    out += "0.";
+                    out.append(static_cast<std::size_t>(-x - 1), '0');
+                    out.append(digits, digits + nd);
+                }
+                return out;
+            }
+        }
+    }
     const double r = roundSignificant(v, significant);
     const double a = std::abs(r);
     if (a == 0.0 || (a >= 1e-3 && a < 1e7))
         return fixedDigits(r, significant);
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.*g", significant, r);
-    return buf;
+    return printed(r, std::chars_format::general, significant);
 }
 
 Parsed parse(std::string_view text, Unit expected) {

@@ -196,6 +196,47 @@ class TestLossesStress : public QObject {
         CHECK_REL(r.snubberLoss_W, r.snubberCapacitance_F * 48.0 * 48.0 * 16e3, 1e-12);
     }
 
+    void verdictsWithoutMessages() {
+        // messages = false (the engine's iterations) leaves the texts out and nothing else: the
+        // same failing verdicts and figures as the snubber case above (L·di/dt [calc]: 20 nH,
+        // 100 A in 10 ns → 200 V over a 48 V bus, above 80 V), and for a capacitor bank above its
+        // ripple, voltage and temperature ratings.
+        OvershootInput in;
+        in.busVoltage_V = 48.0;
+        in.current_A = 100.0;
+        in.currentFallTime_s = 10e-9;
+        in.loopInductance_H = 20e-9;
+        in.voltageRating_V = 100.0;
+        const OvershootResult with = turnOffOvershoot(in);
+        in.messages = false;
+        const OvershootResult without = turnOffOvershoot(in);
+        QVERIFY(with.voltage.failed && with.avalanche.failed);
+        QVERIFY(!with.voltage.message.empty() && !with.avalanche.message.empty());
+        QVERIFY(without.voltage.failed && without.avalanche.failed);
+        QVERIFY(without.voltage.message.empty() && without.avalanche.message.empty());
+        QCOMPARE(without.peak_V, with.peak_V);
+        QCOMPARE(without.avalancheEnergy_J, with.avalancheEnergy_J);
+        CHECK_REL(with.peak_V, 120.0, 1e-12); // clamped at V_BR = 1.2 × 100 V (the model's default)
+
+        CapacitorInput ci;
+        ci.rmsCurrent_A = 30.0;
+        ci.count = 2;
+        ci.rippleRating_A = 2.0;
+        ci.maxBusVoltage_V = 60.0;
+        ci.ratedVoltage_V = 63.0;
+        ci.esr_ohm = 0.05;
+        const CapacitorResult cWith = busCapacitors(ci);
+        ci.messages = false;
+        const CapacitorResult cWithout = busCapacitors(ci);
+        QVERIFY(cWith.ripple.failed && cWith.voltage.failed && cWith.temperature.failed);
+        QVERIFY(!cWith.ripple.message.empty() && !cWith.voltage.message.empty() && !cWith.temperature.message.empty());
+        QVERIFY(cWithout.ripple.failed && cWithout.voltage.failed && cWithout.temperature.failed);
+        QVERIFY(cWithout.ripple.message.empty() && cWithout.voltage.message.empty() && cWithout.temperature.message.empty());
+        QCOMPARE(cWithout.hotSpot_C, cWith.hotSpot_C);
+        // 15 A RMS per capacitor through 50 mΩ: 11.25 W [I²·R], 225 K over 20 K/W.
+        CHECK_REL(cWith.perCapacitorLoss_W, 11.25, 1e-12);
+    }
+
     void overshootBadInputs() {
         OvershootInput in;
         in.busVoltage_V = 130.0; // above 1.2 × 100 V

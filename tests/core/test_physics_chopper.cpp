@@ -270,6 +270,50 @@ class TestPhysicsChopper : public QObject {
         QVERIFY(!far.reached);
         QVERIFY(far.waveform.motorAverage_A < 2000.0 && far.waveform.motorAverage_A > 0.0);
     }
+
+    void currentSearchMatchesBisection() {
+        // chopperForCurrent starts from the averaged circuit's duty; whatever its path, the duty
+        // must be the lowest one giving the current. Reference: plain bisection of I(D) − I over
+        // [0, D_top] (intermediate value theorem; 60 halvings leave a bracket below 1e-18), with
+        // chopperAtDuty as the model. Continuous and discontinuous conduction, with and without a
+        // battery resistance, and a sagging battery whose I(D) has a maximum below full duty.
+        struct Case {
+            ChopperCircuit circuit;
+            ChopperSupply supply;
+            double current_A, maxDuty;
+        };
+        ChopperCircuit ccm = textbook(0.0, 0.05, 0.2e-3, 20.0, 16000.0);
+        ccm.diodeDrop_V = 0.6;
+        ccm.switchDrop_V = 0.3;
+        ccm.switchResistance_ohm = 0.004;
+        ccm.diodeResistance_ohm = 0.01;
+        ChopperCircuit dcm = textbook(0.0, 0.5, 20e-6, 30.0, 4000.0); // short L/R: the current stops
+        dcm.diodeDrop_V = 0.8;
+        const std::vector<Case> cases = {
+            {ccm, {48.0, 0.0}, 120.0, 0.98},  {ccm, {48.0, 0.025}, 120.0, 0.98},
+            {ccm, {48.0, 0.025}, 3.0, 0.98},  {dcm, {48.0, 0.0}, 1.5, 1.0},
+            {dcm, {48.0, 0.3}, 4.0, 1.0},     {ccm, {48.0, 0.5}, 40.0, 1.0},
+        };
+        for (const Case& k : cases) {
+            const auto s = chopperForCurrent(k.circuit, k.supply, k.current_A, k.maxDuty);
+            QVERIFY(s.reached);
+            double lo = 0.0, hi = s.waveform.duty + 1e-3;
+            // I(D) may fall past its maximum; bisect on the rising side up to the found duty + 1e-3,
+            // which must still carry at least the current.
+            QVERIFY(chopperAtDuty(k.circuit, k.supply, hi).waveform.motorAverage_A >= k.current_A);
+            for (int i = 0; i < 60; ++i) {
+                const double mid = 0.5 * (lo + hi);
+                (chopperAtDuty(k.circuit, k.supply, mid).waveform.motorAverage_A < k.current_A ? lo : hi) = mid;
+            }
+            // Duty to 1e-11 relative (the search's tolerance is 1e-13 on the duty, the bus solve's
+            // 1e-12 of the supply voltage); the current to 1e-9 relative.
+            CHECK_NEAR(s.waveform.duty, hi, 1e-11);
+            CHECK_NEAR(s.waveform.motorAverage_A, k.current_A, 1e-9 * k.current_A);
+        }
+        // Modes actually covered: the last discontinuous case and the first continuous one.
+        QVERIFY(chopperForCurrent(dcm, {48.0, 0.0}, 1.5, 1.0).waveform.mode == ConductionMode::Discontinuous);
+        QVERIFY(chopperForCurrent(ccm, {48.0, 0.0}, 120.0, 0.98).waveform.mode == ConductionMode::Continuous);
+    }
 };
 
 QTEST_APPLESS_MAIN(TestPhysicsChopper)

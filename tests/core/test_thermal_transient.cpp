@@ -357,6 +357,40 @@ class TestThermalTransient : public QObject {
                  qPrintable(QString("%1 vs %2").arg(*s.timeToLimit_s).arg(hi)));
     }
 
+    void stallSteadyStateIsTheFixedPoint() {
+        // A stall that never reaches its limit reports its steady junction: the fixed point of
+        // T = T_a + R·P(T). One source behind R = 2 K/W (sink at ambient), losses exponential in
+        // temperature, P(T) = P0·e^(β·(T − 25 °C)); reference: bisection of T − T_a − R·P(T) on
+        // [T_a, T_a + 100 K], where it rises and changes sign once (intermediate value theorem; 60
+        // halvings).
+        // The iteration stops when a step moves the junction by less than 0.01 K; for a map of
+        // slope ρ the distance left is below 0.01 K·|ρ|/(1 − |ρ|) (geometric series): under
+        // 0.02 K for the slopes here, ρ ≈ 0.56 (rising loss) and ρ ≈ −0.27 (falling loss).
+        const double ta = 25.0, r = 2.0, p0 = 20.0;
+        for (const double beta : {0.008, -0.015}) {
+            const auto loss = [&](double t) { return p0 * std::exp(beta * (t - 25.0)); };
+            double lo = ta, hi = ta + 100.0;
+            QVERIFY(lo - ta - r * loss(lo) < 0.0 && hi - ta - r * loss(hi) > 0.0);
+            for (int i = 0; i < 60; ++i) {
+                const double mid = 0.5 * (lo + hi);
+                (mid - ta - r * loss(mid) < 0.0 ? lo : hi) = mid;
+            }
+            const TransientNetwork net = singleSource({{r, 0.05}});
+            int calls = 0;
+            TransientLosses losses;
+            losses.resolve = [&](std::size_t, const std::vector<double>& tj, std::vector<double>& p) {
+                ++calls;
+                p.assign(tj.size(), loss(tj[0]));
+            };
+            const StallResult st = stallTimeToLimit(net, restState(net, ta), ta, losses, {400.0});
+            QVERIFY(st.ok);
+            QVERIFY(!st.timeToLimit_s);
+            QVERIFY(st.steadyTj_C);
+            QVERIFY2(std::abs(*st.steadyTj_C - lo) <= 0.02,
+                     qPrintable(QString("%1 vs %2 (%3 loss evaluations)").arg(*st.steadyTj_C, 0, 'g', 10).arg(lo, 0, 'g', 10).arg(calls)));
+        }
+    }
+
     void badInput() {
         TransientNetwork net = singleSource({{-1.0, 1.0}});
         const TransientResult r = runTransient(net, {{0.0, 30.0}}, {}, {}, restState(net, 30.0));

@@ -9,8 +9,15 @@
 
 #include <QTest>
 
+#include <algorithm>
 #include <cmath>
+#include <cstdint>
+#include <cstdio>
+#include <cstdlib>
+#include <cstring>
 #include <numbers>
+#include <string>
+#include <vector>
 
 using amp::units::Unit;
 
@@ -187,6 +194,80 @@ class TestUnits : public QObject {
         // Rounding that carries into the band's edge stays readable.
         QCOMPARE(QString::fromStdString(amp::units::plain(9996.0)), QString("10000"));
         QCOMPARE(QString::fromStdString(amp::units::plain(std::nan(""))), QString("not a number"));
+    }
+
+    void plainMatchesPrintf() {
+        // plain() is specified by C's printf conversions (ISO C 7.21.6.1): round to `sig`
+        // significant digits as "%.*e" prints them and read the text back (strtod), print that
+        // with "%.*f" at sig − 1 − floor(log10|r|) decimals and drop trailing zeros, or "%.*g"
+        // outside 1e-3 ≤ |r| < 1e7. The reference below is that recipe written with snprintf and
+        // strtod; plain() must give the same bytes on the tricky values (rounding that carries into
+        // the next decade, the band's edges, halfway cases, negatives, −0, subnormals) and on a
+        // sweep of pseudo-random values over the whole range of magnitudes.
+        const auto reference = [](double v, int sig) -> std::string {
+            if (std::isnan(v))
+                return "not a number";
+            if (std::isinf(v))
+                return v > 0 ? "∞" : "−∞";
+            sig = std::clamp(sig, 1, 15);
+            char buf[512];
+            double r = v;
+            if (v != 0.0) {
+                std::snprintf(buf, sizeof buf, "%.*e", sig - 1, v);
+                r = std::strtod(buf, nullptr);
+            }
+            const double a = std::abs(r);
+            if (!(a == 0.0 || (a >= 1e-3 && a < 1e7))) {
+                std::snprintf(buf, sizeof buf, "%.*g", sig, r);
+                return buf;
+            }
+            if (r == 0.0)
+                return "0";
+            const int mag = static_cast<int>(std::floor(std::log10(a)));
+            std::snprintf(buf, sizeof buf, "%.*f", std::max(0, sig - 1 - mag), r);
+            std::string s = buf;
+            if (s.find('.') != std::string::npos) {
+                while (s.back() == '0')
+                    s.pop_back();
+                if (s.back() == '.')
+                    s.pop_back();
+            }
+            return s == "-0" ? "0" : s;
+        };
+        const std::vector<double> tricky = {9.9995,     0.00099995, 0.0009995,  0.00099949, 9999999.4, 9999999.5,
+                                            9999995.0,  1e7,        1e7 - 1e-9, 0.001,      0.00099999, 1e-3 - 1e-19,
+                                            -9.9995,    -0.0,       0.0,        0.5,        2.5,        0.125,
+                                            1.0005,     1.0015,     99.95,      999.5,      0.015,      1e-320,
+                                            1.7e308,    -1.7e308,   123456.5,   3721.6,     89.9713,    -14.06,
+                                            1e-7,       1e15,       5e-324,     0.1 + 0.2,  1.0 / 3.0,  2.0 / 3.0};
+        for (const double v : tricky)
+            for (int sig = 0; sig <= 16; ++sig)
+                QCOMPARE(QString::fromStdString(amp::units::plain(v, sig)),
+                         QString::fromStdString(reference(v, sig)));
+        // xorshift64 (G. Marsaglia, J. Stat. Softw. 8(14), 2003): random bit patterns of finite
+        // doubles, and random mantissas at decade-spread magnitudes.
+        std::uint64_t x = 0x9E3779B97F4A7C15ULL;
+        const auto next = [&x]() {
+            x ^= x << 13;
+            x ^= x >> 7;
+            x ^= x << 17;
+            return x;
+        };
+        for (int i = 0; i < 40000; ++i) {
+            double bits = 0.0;
+            const std::uint64_t raw = next();
+            std::memcpy(&bits, &raw, sizeof bits);
+            const double scaled = (static_cast<double>(next() >> 11) / 9007199254740992.0 - 0.5) *
+                                  std::pow(10.0, static_cast<int>(next() % 40) - 20);
+            const int sig = 1 + static_cast<int>(next() % 15);
+            for (const double v : {bits, scaled})
+                if (std::isfinite(v) && amp::units::plain(v, sig) != reference(v, sig))
+                    QFAIL(qPrintable(QString("plain(%1, %2) = %3, printf gives %4")
+                                         .arg(v, 0, 'g', 17)
+                                         .arg(sig)
+                                         .arg(QString::fromStdString(amp::units::plain(v, sig)))
+                                         .arg(QString::fromStdString(reference(v, sig)))));
+        }
     }
 
     void roundTrip() {
