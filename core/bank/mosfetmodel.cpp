@@ -160,5 +160,6 @@ template <class S> S MosfetModel::channelCurrent(const S& vgs, const S& vds, con
 
 AMP_MOSFET_INSTANTIATE(double)
 AMP_MOSFET_INSTANTIATE(ad::Dual<4>)
+AMP_MOSFET_INSTANTIATE(ad::Dual<1>) // the temperature state alone (bank network cache)
 
 } // namespace amp
