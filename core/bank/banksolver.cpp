@@ -112,6 +112,36 @@ std::string heldText(BankFeed f) {
     return "";
 }
 
+// Eigenvector of m for its eigenvalue lambda by inverse iteration: solve (m − σ·I)·v = v twice
+// from a start vector without symmetry (a symmetric bank's modes are (anti)symmetric, so a start
+// of ones would miss a differential mode), σ a hair off lambda so the matrix is not singular to
+// the last bit. Each solve multiplies the wanted component by 1/|λ − σ| and every other by at
+// most 1/gap, so two solves leave the others below (|λ − σ|/gap)² of it. Cheaper than every
+// eigenvector of the full eigen-decomposition, and the same vector to rounding wherever the
+// eigenvalue is simple.
+template <class Matrix, class Scalar>
+Eigen::Matrix<Scalar, Eigen::Dynamic, 1> inverseIteration(const Matrix& m, Scalar lambda) {
+    using CMatrix = Eigen::Matrix<Scalar, Eigen::Dynamic, Eigen::Dynamic>;
+    using CVector = Eigen::Matrix<Scalar, Eigen::Dynamic, 1>;
+    const Eigen::Index n = m.rows();
+    const double size = std::max(m.cwiseAbs().maxCoeff(), std::abs(lambda));
+    const Scalar sigma = lambda + Scalar(1e-10 * std::max(size, 1e-300));
+    CMatrix a = m.template cast<Scalar>();
+    a.diagonal().array() -= sigma;
+    const Eigen::PartialPivLU<CMatrix> lu(a);
+    CVector v(n);
+    for (Eigen::Index i = 0; i < n; ++i)
+        v(i) = Scalar(1.0 + 0.5 * std::sin(1.0 + 2.0 * static_cast<double>(i))); // no symmetry
+    for (int pass = 0; pass < 2; ++pass) {
+        v = lu.solve(v);
+        const double norm = v.cwiseAbs().maxCoeff();
+        if (!(norm > 0.0) || !std::isfinite(norm))
+            return CVector();
+        v /= Scalar(norm);
+    }
+    return v;
+}
+
 // Loop gain of Z·S; S is the N×N average-power sensitivity.
 BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& s, BankFeed feed) {
     const int n = th.count;
@@ -127,7 +157,9 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
     const Eigen::MatrixXd m = z * sm;
     if (!m.allFinite())
         return st;
-    Eigen::EigenSolver<Eigen::MatrixXd> es(m, true);
+    // Eigenvalues only (the real Schur form, without accumulating its vectors); the one
+    // eigenvector needed comes from inverse iteration below.
+    Eigen::EigenSolver<Eigen::MatrixXd> es(m, false);
     if (es.info() != Eigen::Success)
         return st;
     // Spectral radius, and the eigenvalue with the largest real part: the mode that grows.
@@ -139,7 +171,18 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
             grow = i;
     }
     const std::complex<double> lambda = es.eigenvalues()(grow);
-    Eigen::VectorXcd v = es.eigenvectors().col(grow);
+    Eigen::VectorXcd v;
+    if (lambda.imag() == 0.0)
+        v = inverseIteration(m, lambda.real()).cast<std::complex<double>>();
+    else
+        v = inverseIteration(m, lambda);
+    if (v.size() != n) {
+        // Not expected (the shifted matrix is regular): take the full decomposition's vector.
+        const Eigen::EigenSolver<Eigen::MatrixXd> full(m, true);
+        if (full.info() != Eigen::Success)
+            return st;
+        v = full.eigenvectors().col(grow);
+    }
     int big = 0;
     for (int i = 1; i < n; ++i)
         if (std::abs(v(i)) > std::abs(v(big)))
