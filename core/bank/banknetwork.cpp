@@ -121,8 +121,9 @@ struct MosfetLeg {
         LegOut<double> o;
         eval(vg, vc, u, t, o);
         const double vov = model.overdrive(o.vControl, t);
-        const double vch = o.vDev - u[0] * model.driftResistance(t);
-        if (model.channelCurrent(o.vControl, vch, t) <= 1e-9 * std::max(1.0, std::abs(u[0])) && vov < 0.05)
+        const MosfetModel::AtTemperature<double> at = temperatureState(t);
+        const double vch = o.vDev - u[0] * at.drift;
+        if (model.channelCurrent(at, o.vControl, vch) <= 1e-9 * std::max(1.0, std::abs(u[0])) && vov < 0.05)
             return "off";
         return vch >= vov ? "saturation" : "ohmic";
     }

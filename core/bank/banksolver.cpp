@@ -11,7 +11,6 @@
 #include <algorithm>
 #include <cmath>
 #include <complex>
-#include <sstream>
 
 namespace amp {
 
@@ -39,23 +38,29 @@ namespace {
 
 std::string num(double v, int precision = 4) { return units::plain(v, precision); }
 
+// A field path given as text, or as a function that builds it: the checks run on every solve, so
+// a path is only put together when its check fails.
+inline std::string pathText(const std::string& path) { return path; }
+inline std::string pathText(const char* path) { return path; }
+template <class F> std::string pathText(const F& path) { return path(); }
+
 class Checker {
   public:
     explicit Checker(std::vector<Problem>& out) : m_out(out) {}
-    void range(double v, double lo, double hi, const std::string& path, const char* unit = "") {
+    template <class Path> void range(double v, double lo, double hi, const Path& path, const char* unit = "") {
         if (!std::isfinite(v)) {
-            m_out.push_back({path, "is not a finite number"});
+            m_out.push_back({pathText(path), "is not a finite number"});
         } else if (v < lo || v > hi) {
-            m_out.push_back({path, "is " + num(v) + unit + "; it must lie between " + num(lo) + unit +
-                                       " and " + num(hi) + unit});
+            m_out.push_back({pathText(path), "is " + num(v) + unit + "; it must lie between " + num(lo) + unit +
+                                                 " and " + num(hi) + unit});
         }
     }
-    void above(double v, double lo, double hi, const std::string& path, const char* unit = "") {
+    template <class Path> void above(double v, double lo, double hi, const Path& path, const char* unit = "") {
         if (!std::isfinite(v)) {
-            m_out.push_back({path, "is not a finite number"});
+            m_out.push_back({pathText(path), "is not a finite number"});
         } else if (v <= lo || v > hi) {
-            m_out.push_back({path, "is " + num(v) + unit + "; it must be above " + num(lo) + unit +
-                                       " and at most " + num(hi) + unit});
+            m_out.push_back({pathText(path), "is " + num(v) + unit + "; it must be above " + num(lo) + unit +
+                                                 " and at most " + num(hi) + unit});
         }
     }
     void fail(const std::string& path, const std::string& message) { m_out.push_back({path, message}); }
@@ -308,31 +313,31 @@ void fillDevices(const Context& c, const detail::ElectricalPoint& pt, const std:
 }
 
 void fillVerdict(const BankProblem& p, BankSolution& sol) {
-    std::ostringstream s;
-    const int h = sol.hottest;
+    std::string s;
+    const std::string device = std::to_string(sol.hottest + 1);
     if (sol.failure == BankFailure::InvalidInput) {
-        s << "Not solved: " << sol.reason;
+        s = "Not solved: " + sol.reason;
     } else if (sol.failure == BankFailure::ThermalRunaway) {
-        s << "Thermal runaway: no steady state below " << num(p.part.tjMax_C + 125.0, 4) << " °C; device "
-          << h + 1 << " heats first.";
+        s = "Thermal runaway: no steady state below " + num(p.part.tjMax_C + 125.0, 4) + " °C; device " + device +
+            " heats first.";
     } else if (!sol.converged) {
-        s << "Not solved: " << sol.reason;
+        s = "Not solved: " + sol.reason;
     } else if (sol.stability.valid && sol.stability.dominantEigenvalue >= 1.0) {
-        s << "Unstable: loop gain " << num(sol.stability.dominantEigenvalue, 3) << " ≥ 1 ("
-          << (sol.stability.mode == BankMode::Differential ? "one device takes over from the others"
-                                                           : "the whole bank heats up together")
-          << "); device " << h + 1 << " goes first.";
+        s = "Unstable: loop gain " + num(sol.stability.dominantEigenvalue, 3) + " ≥ 1 (" +
+            (sol.stability.mode == BankMode::Differential ? "one device takes over from the others"
+                                                          : "the whole bank heats up together") +
+            "); device " + device + " goes first.";
     } else if (sol.overTemperature) {
-        s << "Over temperature: device " << h + 1 << " reaches "
-          << num(sol.devices[static_cast<std::size_t>(h)].tj_C, 4) << " °C, above T_j,max "
-          << num(p.part.tjMax_C, 4) << " °C.";
+        s = "Over temperature: device " + device + " reaches " +
+            num(sol.devices[static_cast<std::size_t>(sol.hottest)].tj_C, 4) + " °C, above T_j,max " +
+            num(p.part.tjMax_C, 4) + " °C.";
     } else {
-        s << "Stable: loop gain " << num(sol.stability.dominantEigenvalue, 3);
+        s = "Stable: loop gain " + num(sol.stability.dominantEigenvalue, 3);
         if (sol.stability.loopGain > std::max(sol.stability.dominantEigenvalue, 0.0) * 1.001)
-            s << " (spectral radius " << num(sol.stability.loopGain, 3) << " from negative feedback)";
-        s << ", max/min current " << num(sol.maxMinCurrentRatio, 4) << ".";
+            s += " (spectral radius " + num(sol.stability.loopGain, 3) + " from negative feedback)";
+        s += ", max/min current " + num(sol.maxMinCurrentRatio, 4) + ".";
     }
-    sol.verdict = s.str();
+    sol.verdict = std::move(s);
 }
 
 // The drive cannot hold the bank on when the solution needs more than the bus across it. Judged
@@ -383,9 +388,11 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
         c.range(m.vthTempCoeff_VperK, -0.05, 0.02, "bank.device.mosfet.vthTempCoeff_VperK", " V/K");
         c.above(m.transconductance_AperV2, 0.0, 1e6, "bank.device.mosfet.transconductance_AperV2", " A/V²");
         for (std::size_t i = 0; i < m.rdsOnTable.size(); ++i) {
-            const std::string path = "bank.device.mosfet.rdsOnTable[" + std::to_string(i) + "]";
-            c.range(m.rdsOnTable[i].tj_C, -100.0, 500.0, path + ".tj_C", " °C");
-            c.above(m.rdsOnTable[i].factor, 0.0, 100.0, path + ".factor");
+            auto path = [i](const char* field) {
+                return [i, field] { return "bank.device.mosfet.rdsOnTable[" + std::to_string(i) + "]" + field; };
+            };
+            c.range(m.rdsOnTable[i].tj_C, -100.0, 500.0, path(".tj_C"), " °C");
+            c.above(m.rdsOnTable[i].factor, 0.0, 100.0, path(".factor"));
         }
     } else if (s.kind == "bipolar" || s.kind == "darlington") {
         checkBjt(c, s.bjt, "bank.device.bjt");
@@ -401,14 +408,16 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
     c.range(p.driveResistance_ohm, 0.0, 1e9, "drive.driverResistance_ohm", " Ω");
     for (int k = 0; k < n && k <= 256; ++k) {
         const BankDevice& d = p.devices[static_cast<std::size_t>(k)];
-        const std::string path = "bank.devices[" + std::to_string(k) + "]";
-        c.above(d.rdsOnDeviation, -0.95, 100.0, path + ".rdsOnDeviation");
-        c.range(d.vthDeviation_V, -20.0, 20.0, path + ".vthDeviation_V", " V");
-        c.range(d.vbeDeviation_V, -1.0, 1.0, path + ".vbeDeviation_V", " V");
-        c.above(d.betaDeviation, -0.95, 100.0, path + ".betaDeviation");
-        c.range(d.gateResistorDeviation_ohm, -1e6, 1e6, path + ".gateResistorDeviation_ohm", " Ω");
-        c.range(d.ballastDeviation_ohm, -1e6, 1e6, path + ".ballastDeviation_ohm", " Ω");
-        c.range(d.legResistanceDeviation_ohm, -1e3, 1e3, path + ".legResistanceDeviation_ohm", " Ω");
+        auto path = [k](const char* field) {
+            return [k, field] { return "bank.devices[" + std::to_string(k) + "]" + field; };
+        };
+        c.above(d.rdsOnDeviation, -0.95, 100.0, path(".rdsOnDeviation"));
+        c.range(d.vthDeviation_V, -20.0, 20.0, path(".vthDeviation_V"), " V");
+        c.range(d.vbeDeviation_V, -1.0, 1.0, path(".vbeDeviation_V"), " V");
+        c.above(d.betaDeviation, -0.95, 100.0, path(".betaDeviation"));
+        c.range(d.gateResistorDeviation_ohm, -1e6, 1e6, path(".gateResistorDeviation_ohm"), " Ω");
+        c.range(d.ballastDeviation_ohm, -1e6, 1e6, path(".ballastDeviation_ohm"), " Ω");
+        c.range(d.legResistanceDeviation_ohm, -1e3, 1e3, path(".legResistanceDeviation_ohm"), " Ω");
     }
     c.range(p.load_A, 0.0, 1e6, "load_A", " A");
     if (p.feed != BankFeed::Current)

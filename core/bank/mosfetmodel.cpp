@@ -72,7 +72,9 @@ double MosfetModel::consistencyRaise(const MosfetParams& p, double tMax_K) {
     const MosfetModel m = make(p, 0.0, 0.0, tMax_K, 1.0);
     double worst = 0.0;
     for (double t = 233.15; t <= tMax_K + 1e-9; t += 10.0) {
-        const double rch = 1.0 / (2.0 * m.channelK(t) * (m.overdrive(m.specGate_V, t) + kEnhancementWidth_V));
+        // With no deviation, at.k is channelK(t) and at.vovSpec is overdrive(specGate_V, t).
+        const AtTemperature<double> at = m.atTemperature(t);
+        const double rch = 1.0 / (2.0 * at.k * (at.vovSpec + kEnhancementWidth_V));
         worst = std::max(worst, rch / m.nominalOnResistance(t));
     }
     return worst > 0.9 ? worst / 0.9 : 1.0;
