@@ -147,35 +147,48 @@ Eigen::Matrix<Scalar, Eigen::Dynamic, 1> inverseIteration(const Matrix& m, Scala
     return v;
 }
 
-// Loop gain of Z·S; S is the N×N average-power sensitivity.
-BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& s, BankFeed feed) {
+// Z·S; S is the N×N average-power sensitivity.
+Eigen::MatrixXd loopMatrix(const ThermalMatrices& th, const std::vector<double>& s) {
     const int n = th.count;
-    BankStability st;
-    st.held = heldText(feed);
-    st.sensitivity_WperK = s;
     Eigen::MatrixXd z(n, n), sm(n, n);
     for (int k = 0; k < n; ++k)
         for (int j = 0; j < n; ++j) {
             z(k, j) = th.at(k, j);
             sm(k, j) = s[static_cast<std::size_t>(k * n + j)];
         }
-    const Eigen::MatrixXd m = z * sm;
+    return z * sm;
+}
+
+// Eigenvalues only (the real Schur form, without accumulating its vectors); the one eigenvector
+// needed comes from inverse iteration. Empty when they cannot be had.
+Eigen::VectorXcd eigenvaluesOf(const Eigen::MatrixXd& m) {
     if (!m.allFinite())
-        return st;
-    // Eigenvalues only (the real Schur form, without accumulating its vectors); the one
-    // eigenvector needed comes from inverse iteration below.
-    Eigen::EigenSolver<Eigen::MatrixXd> es(m, false);
+        return {};
+    const Eigen::EigenSolver<Eigen::MatrixXd> es(m, false);
     if (es.info() != Eigen::Success)
+        return {};
+    return es.eigenvalues();
+}
+
+// Loop gain of Z·S; S is the N×N average-power sensitivity.
+BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& s, BankFeed feed) {
+    const int n = th.count;
+    BankStability st;
+    st.held = heldText(feed);
+    st.sensitivity_WperK = s;
+    const Eigen::MatrixXd m = loopMatrix(th, s);
+    const Eigen::VectorXcd ev = eigenvaluesOf(m);
+    if (ev.size() != n)
         return st;
     // Spectral radius, and the eigenvalue with the largest real part: the mode that grows.
     int grow = 0;
     double radius = 0.0;
     for (int i = 0; i < n; ++i) {
-        radius = std::max(radius, std::abs(es.eigenvalues()(i)));
-        if (es.eigenvalues()(i).real() > es.eigenvalues()(grow).real())
+        radius = std::max(radius, std::abs(ev(i)));
+        if (ev(i).real() > ev(grow).real())
             grow = i;
     }
-    const std::complex<double> lambda = es.eigenvalues()(grow);
+    const std::complex<double> lambda = ev(grow);
     Eigen::VectorXcd v;
     if (lambda.imag() == 0.0)
         v = inverseIteration(m, lambda.real()).cast<std::complex<double>>();
@@ -363,7 +376,62 @@ void finishStability(const BankProblem& p, BankSolution& sol) {
                  sol.stability.dominantEigenvalue < 1.0;
 }
 
+void verdictIfAsked(const BankProblem& p, BankSolution& sol) {
+    if (p.stabilityAnalysis)
+        fillVerdict(p, sol);
+}
+
+// Stability, `stable` and verdict of a converged solution (or only its sensitivity when the
+// caller skips the analysis).
+void judge(const Context& c, const detail::ElectricalPoint& pt, BankSolution& sol) {
+    const BankProblem& p = c.p;
+    std::vector<double> s(pt.sOn);
+    for (double& v : s)
+        v *= powerScale(p, pt);
+    if (p.stabilityAnalysis) {
+        sol.stability = stabilityOf(c.th, s, p.feed);
+    } else {
+        sol.stability = BankStability{};
+        sol.stability.held = heldText(p.feed);
+        sol.stability.sensitivity_WperK = std::move(s);
+    }
+    finishStability(p, sol);
+    verdictIfAsked(p, sol);
+}
+
+ThermalMatrices thermalMatricesOf(const BankProblem& p) {
+    return buildThermalMatrices({static_cast<int>(p.devices.size()), p.part.rthJc_KperW, p.rthCs_KperW,
+                                 p.rthSa_KperW, p.neighbourCoupling_KperW});
+}
+
+// The solution carries a sensitivity for this problem's bank but no stability yet.
+bool stabilityPending(const BankProblem& p, const BankSolution& sol) {
+    const std::size_t n = p.devices.size();
+    return sol.converged && sol.fixedPoint && !sol.stability.valid && n > 0 && sol.devices.size() == n &&
+           sol.stability.sensitivity_WperK.size() == n * n;
+}
+
 } // namespace
+
+void completeStability(const BankProblem& p, BankSolution& sol) {
+    if (!stabilityPending(p, sol))
+        return;
+    sol.stability = stabilityOf(thermalMatricesOf(p), sol.stability.sensitivity_WperK, p.feed);
+    finishStability(p, sol);
+    fillVerdict(p, sol);
+}
+
+double spectralRadius(const BankProblem& p, const BankSolution& sol) {
+    if (sol.stability.valid)
+        return sol.stability.loopGain;
+    if (!stabilityPending(p, sol))
+        return 0.0;
+    const Eigen::VectorXcd ev = eigenvaluesOf(loopMatrix(thermalMatricesOf(p), sol.stability.sensitivity_WperK));
+    double radius = 0.0;
+    for (Eigen::Index i = 0; i < ev.size(); ++i)
+        radius = std::max(radius, std::abs(ev(i)));
+    return radius;
+}
 
 std::vector<Problem> validateBankProblem(const BankProblem& p) {
     std::vector<Problem> out;
@@ -455,7 +523,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         for (const Problem& pr : problems)
             msg += (msg.empty() ? "" : "; ") + pr.path + " " + pr.message;
         sol.reason = msg;
-        fillVerdict(p, sol);
+        verdictIfAsked(p, sol);
         return sol;
     }
     const int n = static_cast<int>(p.devices.size());
@@ -492,22 +560,17 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
             sol.failure = pt.failure;
             sol.reason = pt.reason;
             fillDevices(c, pt, t, sol);
-            fillVerdict(p, sol);
+            verdictIfAsked(p, sol);
             return sol;
         }
         sol.converged = true;
         sol.fixedPoint = true;
         finish(pt, t);
         if (overBus(p, pt, sol)) {
-            fillVerdict(p, sol);
+            verdictIfAsked(p, sol);
             return sol;
         }
-        std::vector<double> s(pt.sOn);
-        for (double& v : s)
-            v *= powerScale(p, pt);
-        sol.stability = stabilityOf(c.th, s, p.feed);
-        finishStability(p, sol);
-        fillVerdict(p, sol);
+        judge(c, pt, sol);
         return sol;
     }
 
@@ -542,7 +605,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
     if (!solveAt(t, pt, g)) {
         electricalFailure(pt, t);
         fillDevices(c, pt, t, sol);
-        fillVerdict(p, sol);
+        verdictIfAsked(p, sol);
         return sol;
     }
     x = pt.x;
@@ -564,15 +627,10 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
                 t[k] -= g[k];
             finish(pt, t);
             if (overBus(p, pt, sol)) {
-                fillVerdict(p, sol);
+                verdictIfAsked(p, sol);
                 return sol;
             }
-            std::vector<double> s(pt.sOn);
-            for (double& v : s)
-                v *= powerScale(p, pt);
-            sol.stability = stabilityOf(c.th, s, p.feed);
-            finishStability(p, sol);
-            fillVerdict(p, sol);
+            judge(c, pt, sol);
             return sol;
         }
         // A junction held at the cap whose heat still exceeds what the sink removes there.
@@ -586,7 +644,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
             sol.reason = "no electrothermal fixed point below " + num(toCelsius(c.cap_K), 4) +
                          " °C: the devices' heat grows faster with temperature than the heatsink removes it";
             finish(pt, t);
-            fillVerdict(p, sol);
+            verdictIfAsked(p, sol);
             return sol;
         }
         // Newton step on G(T) = T − T_amb − Z·P(T): (I − Z·S)·ΔT = −G. (The ripple scale's own
@@ -639,7 +697,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
                 electricalFailure(trial, tTrial);
                 finish(pt, t);
                 sol.converged = false;
-                fillVerdict(p, sol);
+                verdictIfAsked(p, sol);
                 return sol;
             }
             alpha *= 0.5;
@@ -661,7 +719,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
                      num(lastCorrection, 3) + " K)";
     }
     finish(pt, t);
-    fillVerdict(p, sol);
+    verdictIfAsked(p, sol);
     return sol;
 }
 
