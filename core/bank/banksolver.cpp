@@ -161,13 +161,20 @@ Eigen::MatrixXd loopMatrix(const ThermalMatrices& th, const std::vector<double>&
 
 // Eigenvalues only (the real Schur form, without accumulating its vectors); the one eigenvector
 // needed comes from inverse iteration. Empty when they cannot be had.
-Eigen::VectorXcd eigenvaluesOf(const Eigen::MatrixXd& m) {
-    if (!m.allFinite())
-        return {};
-    const Eigen::EigenSolver<Eigen::MatrixXd> es(m, false);
+template <class Matrix> Eigen::VectorXcd eigenvaluesIn(const Eigen::MatrixXd& m) {
+    const Eigen::EigenSolver<Matrix> es(Matrix(m), false);
     if (es.info() != Eigen::Success)
         return {};
     return es.eigenvalues();
+}
+
+Eigen::VectorXcd eigenvaluesOf(const Eigen::MatrixXd& m) {
+    if (!m.allFinite())
+        return {};
+    // Up to 16 devices the solver's work arrays live on the stack (no allocations).
+    if (m.rows() <= 16)
+        return eigenvaluesIn<Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic, 0, 16, 16>>(m);
+    return eigenvaluesIn<Eigen::MatrixXd>(m);
 }
 
 // Loop gain of Z·S; S is the N×N average-power sensitivity.
