@@ -92,10 +92,12 @@ struct MosfetLeg {
         o.ig = ig;
         o.ic = i;
         o.pDev = i * vch + i * i * rd;
-        o.pBallast = is * is * ballast_ohm;
-        o.pLeg = is * is * leg_ohm;
-        o.pDrive = ig * ig * gate_ohm;
-        o.vDev = vch + i * rd;
+        // Reported values only (no derivative of these is read): the same numbers in plain arithmetic.
+        const double isv = ad::val(is), igv = ad::val(ig);
+        o.pBallast = S(isv * isv * ballast_ohm);
+        o.pLeg = S(isv * isv * leg_ohm);
+        o.pDrive = S(igv * igv * gate_ohm);
+        o.vDev = S(ad::val(vch) + ad::val(i) * ad::val(rd));
         o.vControl = vgs;
     }
 
