@@ -193,5 +193,8 @@ void completeStability(const BankProblem& problem, BankSolution& solution);
 /// Only the spectral radius of Z·S (BankStability::loopGain) of such a solution, from its stored
 /// sensitivity: what a loss iteration needs to damp itself. 0 when there is no sensitivity.
 double spectralRadius(const BankProblem& problem, const BankSolution& solution);
+/// The same when it exceeds `limit` (> 0), else 0: a matrix norm of Z·S rules out most cases without
+/// the eigenvalues (a loss iteration only damps itself above 1).
+double spectralRadiusAbove(const BankProblem& problem, const BankSolution& solution, double limit);
 
 } // namespace amp

@@ -937,7 +937,7 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
         // by 1/(1 + ρ) makes it contract; the fixed point (the steady state) is unchanged, and the
         // losses lag the junctions by about ρ steps. (Below ρ = 1 nothing is relaxed: the stall
         // search's 1 K slope probe must see the losses as they are.)
-        const double rho = spectralRadius(bp, b);
+        const double rho = spectralRadiusAbove(bp, b, 1.0);
         if (rho > 1.0 && memory.size() == n) {
             const double alpha = 1.0 / (1.0 + rho);
             for (std::size_t k = 0; k < n; ++k)
