@@ -47,15 +47,17 @@ template <class F> std::string pathText(const F& path) { return path(); }
 class Checker {
   public:
     explicit Checker(std::vector<Problem>& out) : m_out(out) {}
-    template <class Path> void range(double v, double lo, double hi, const Path& path, const char* unit = "") {
+    template <class Path>
+    void range(double v, double lo, double hi, const Path& path, const char* unit = "") {
         if (!std::isfinite(v)) {
             m_out.push_back({pathText(path), "is not a finite number"});
         } else if (v < lo || v > hi) {
-            m_out.push_back({pathText(path), "is " + num(v) + unit + "; it must lie between " + num(lo) + unit +
-                                                 " and " + num(hi) + unit});
+            m_out.push_back({pathText(path), "is " + num(v) + unit + "; it must lie between " + num(lo) +
+                                                 unit + " and " + num(hi) + unit});
         }
     }
-    template <class Path> void above(double v, double lo, double hi, const Path& path, const char* unit = "") {
+    template <class Path>
+    void above(double v, double lo, double hi, const Path& path, const char* unit = "") {
         if (!std::isfinite(v)) {
             m_out.push_back({pathText(path), "is not a finite number"});
         } else if (v <= lo || v > hi) {
@@ -338,8 +340,8 @@ void fillVerdict(const BankProblem& p, BankSolution& sol) {
     if (sol.failure == BankFailure::InvalidInput) {
         s = "Not solved: " + sol.reason;
     } else if (sol.failure == BankFailure::ThermalRunaway) {
-        s = "Thermal runaway: no steady state below " + num(p.part.tjMax_C + 125.0, 4) + " °C; device " + device +
-            " heats first.";
+        s = "Thermal runaway: no steady state below " + num(p.part.tjMax_C + 125.0, 4) + " °C; device " +
+            device + " heats first.";
     } else if (!sol.converged) {
         s = "Not solved: " + sol.reason;
     } else if (sol.stability.valid && sol.stability.dominantEigenvalue >= 1.0) {
@@ -442,7 +444,9 @@ double spectralRadiusAbove(const BankProblem& p, const BankSolution& sol, double
     // when the smaller of ‖M‖_1 and ‖M‖_∞ is clearly below the limit, so is the radius (the 0.1 %
     // margin covers the rounding of M), and the eigenvalues are not needed.
     if (limit > 0.0 && m.allFinite()) {
-        const double norm = std::min(m.cwiseAbs().colwise().sum().maxCoeff(), m.cwiseAbs().rowwise().sum().maxCoeff());
+        const double norm1 = m.cwiseAbs().colwise().sum().maxCoeff();
+        const double normInf = m.cwiseAbs().rowwise().sum().maxCoeff();
+        const double norm = std::min(norm1, normInf);
         if (norm < 0.999 * limit)
             return 0.0;
     }
@@ -477,7 +481,9 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
         c.above(m.transconductance_AperV2, 0.0, 1e6, "bank.device.mosfet.transconductance_AperV2", " A/V²");
         for (std::size_t i = 0; i < m.rdsOnTable.size(); ++i) {
             auto path = [i](const char* field) {
-                return [i, field] { return "bank.device.mosfet.rdsOnTable[" + std::to_string(i) + "]" + field; };
+                return [i, field] {
+                    return "bank.device.mosfet.rdsOnTable[" + std::to_string(i) + "]" + field;
+                };
             };
             c.range(m.rdsOnTable[i].tj_C, -100.0, 500.0, path(".tj_C"), " °C");
             c.above(m.rdsOnTable[i].factor, 0.0, 100.0, path(".factor"));
