@@ -132,7 +132,9 @@ Eigen::Matrix<Scalar, Eigen::Dynamic, 1> inverseIteration(const Matrix& m, Scala
     using CVector = Eigen::Matrix<Scalar, Eigen::Dynamic, 1>;
     const Eigen::Index n = m.rows();
     const double size = std::max(m.cwiseAbs().maxCoeff(), std::abs(lambda));
-    const Scalar sigma = lambda + Scalar(1e-10 * std::max(size, 1e-300));
+    if (!(size > 0.0))
+        return CVector(); // no heat feedback at all: every vector is an eigenvector
+    const Scalar sigma = lambda + Scalar(1e-10 * size);
     CMatrix a = m.template cast<Scalar>();
     a.diagonal().array() -= sigma;
     const Eigen::PartialPivLU<CMatrix> lu(a);
@@ -204,7 +206,7 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
     else
         v = inverseIteration(m, lambda);
     if (v.size() != n) {
-        // Not expected (the shifted matrix is regular): take the full decomposition's vector.
+        // Z·S = 0, or (not expected) a solve that overflows: the full decomposition's vector.
         const Eigen::EigenSolver<Eigen::MatrixXd> full(m, true);
         if (full.info() != Eigen::Success)
             return st;
