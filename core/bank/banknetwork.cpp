@@ -12,6 +12,7 @@
 #include <algorithm>
 #include <array>
 #include <cmath>
+#include <limits>
 #include <sstream>
 
 namespace amp::detail {
@@ -48,6 +49,27 @@ struct MosfetLeg {
     double leg_ohm = 0.0;
     double pulldown_ohm = 0.0;
 
+    // The temperature-dependent parameters with their derivative wrt T, for the last junction
+    // temperature seen: T is fixed through one network solve, so the Newton iterations reuse them.
+    // Lifted to the caller's scalar by the chain rule (d/dx_i = dX/dT · dT/dx_i), which gives the
+    // same numbers as evaluating atTemperature with that scalar.
+    mutable double m_cacheT_K = std::numeric_limits<double>::quiet_NaN();
+    mutable MosfetModel::AtTemperature<ad::Dual<1>> m_cache{};
+
+    template <class S> MosfetModel::AtTemperature<S> temperatureState(const S& t) const {
+        const double tv = ad::val(t);
+        if (!(tv == m_cacheT_K)) {
+            m_cache = model.atTemperature(ad::Dual<1>::variable(tv, 0));
+            m_cacheT_K = tv;
+        }
+        return {lift(m_cache.k, t), lift(m_cache.vth, t), lift(m_cache.drift, t), lift(m_cache.smooth, t),
+                lift(m_cache.vovSpec, t)};
+    }
+    static double lift(const ad::Dual<1>& x, double /*t*/) { return x.v; }
+    template <int M> static ad::Dual<M> lift(const ad::Dual<1>& x, const ad::Dual<M>& t) {
+        return ad::chain(t, x.v, x.d[0]);
+    }
+
     template <class S> void eval(const S& vg, const S& vc, const S* u, const S& t, LegOut<S>& o) const {
         const S& i = u[0];
         const double rs = ballast_ohm + leg_ohm;
@@ -62,7 +84,7 @@ struct MosfetLeg {
         }
         const S is = i + ig;
         const S vs = is * rs;
-        const MosfetModel::AtTemperature<S> at = model.atTemperature(t);
+        const MosfetModel::AtTemperature<S> at = temperatureState(t);
         const S& rd = at.drift;
         const S vch = vc - i * rd - vs;
         const S ich = model.channelCurrent(at, vgs, vch) + model.gmin_S * vch;
@@ -70,10 +92,12 @@ struct MosfetLeg {
         o.ig = ig;
         o.ic = i;
         o.pDev = i * vch + i * i * rd;
-        o.pBallast = is * is * ballast_ohm;
-        o.pLeg = is * is * leg_ohm;
-        o.pDrive = ig * ig * gate_ohm;
-        o.vDev = vch + i * rd;
+        // Reported values only (no derivative of these is read): the same numbers in plain arithmetic.
+        const double isv = ad::val(is), igv = ad::val(ig);
+        o.pBallast = S(isv * isv * ballast_ohm);
+        o.pLeg = S(isv * isv * leg_ohm);
+        o.pDrive = S(igv * igv * gate_ohm);
+        o.vDev = S(ad::val(vch) + ad::val(i) * ad::val(rd));
         o.vControl = vgs;
     }
 
@@ -99,8 +123,9 @@ struct MosfetLeg {
         LegOut<double> o;
         eval(vg, vc, u, t, o);
         const double vov = model.overdrive(o.vControl, t);
-        const double vch = o.vDev - u[0] * model.driftResistance(t);
-        if (model.channelCurrent(o.vControl, vch, t) <= 1e-9 * std::max(1.0, std::abs(u[0])) && vov < 0.05)
+        const MosfetModel::AtTemperature<double> at = temperatureState(t);
+        const double vch = o.vDev - u[0] * at.drift;
+        if (model.channelCurrent(at, o.vControl, vch) <= 1e-9 * std::max(1.0, std::abs(u[0])) && vov < 0.05)
             return "off";
         return vch >= vov ? "saturation" : "ohmic";
     }

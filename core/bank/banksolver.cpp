@@ -11,7 +11,6 @@
 #include <algorithm>
 #include <cmath>
 #include <complex>
-#include <sstream>
 
 namespace amp {
 
@@ -39,23 +38,31 @@ namespace {
 
 std::string num(double v, int precision = 4) { return units::plain(v, precision); }
 
+// A field path given as text, or as a function that builds it: the checks run on every solve, so
+// a path is only put together when its check fails.
+inline std::string pathText(const std::string& path) { return path; }
+inline std::string pathText(const char* path) { return path; }
+template <class F> std::string pathText(const F& path) { return path(); }
+
 class Checker {
   public:
     explicit Checker(std::vector<Problem>& out) : m_out(out) {}
-    void range(double v, double lo, double hi, const std::string& path, const char* unit = "") {
+    template <class Path>
+    void range(double v, double lo, double hi, const Path& path, const char* unit = "") {
         if (!std::isfinite(v)) {
-            m_out.push_back({path, "is not a finite number"});
+            m_out.push_back({pathText(path), "is not a finite number"});
         } else if (v < lo || v > hi) {
-            m_out.push_back({path, "is " + num(v) + unit + "; it must lie between " + num(lo) + unit +
-                                       " and " + num(hi) + unit});
+            m_out.push_back({pathText(path), "is " + num(v) + unit + "; it must lie between " + num(lo) +
+                                                 unit + " and " + num(hi) + unit});
         }
     }
-    void above(double v, double lo, double hi, const std::string& path, const char* unit = "") {
+    template <class Path>
+    void above(double v, double lo, double hi, const Path& path, const char* unit = "") {
         if (!std::isfinite(v)) {
-            m_out.push_back({path, "is not a finite number"});
+            m_out.push_back({pathText(path), "is not a finite number"});
         } else if (v <= lo || v > hi) {
-            m_out.push_back({path, "is " + num(v) + unit + "; it must be above " + num(lo) + unit +
-                                       " and at most " + num(hi) + unit});
+            m_out.push_back({pathText(path), "is " + num(v) + unit + "; it must be above " + num(lo) + unit +
+                                                 " and at most " + num(hi) + unit});
         }
     }
     void fail(const std::string& path, const std::string& message) { m_out.push_back({path, message}); }
@@ -112,34 +119,99 @@ std::string heldText(BankFeed f) {
     return "";
 }
 
-// Loop gain of Z·S; S is the N×N average-power sensitivity.
-BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& s, BankFeed feed) {
+// Eigenvector of m for its eigenvalue lambda by inverse iteration: solve (m − σ·I)·v = v twice
+// from a start vector without symmetry (a symmetric bank's modes are (anti)symmetric, so a start
+// of ones would miss a differential mode), σ a hair off lambda so the matrix is not singular to
+// the last bit. Each solve multiplies the wanted component by 1/|λ − σ| and every other by at
+// most 1/gap, so two solves leave the others below (|λ − σ|/gap)² of it. Cheaper than every
+// eigenvector of the full eigen-decomposition, and the same vector to rounding wherever the
+// eigenvalue is simple.
+template <class Matrix, class Scalar>
+Eigen::Matrix<Scalar, Eigen::Dynamic, 1> inverseIteration(const Matrix& m, Scalar lambda) {
+    using CMatrix = Eigen::Matrix<Scalar, Eigen::Dynamic, Eigen::Dynamic>;
+    using CVector = Eigen::Matrix<Scalar, Eigen::Dynamic, 1>;
+    const Eigen::Index n = m.rows();
+    const double size = std::max(m.cwiseAbs().maxCoeff(), std::abs(lambda));
+    if (!(size > 0.0))
+        return CVector(); // no heat feedback at all: every vector is an eigenvector
+    const Scalar sigma = lambda + Scalar(1e-10 * size);
+    CMatrix a = m.template cast<Scalar>();
+    a.diagonal().array() -= sigma;
+    const Eigen::PartialPivLU<CMatrix> lu(a);
+    CVector v(n);
+    for (Eigen::Index i = 0; i < n; ++i)
+        v(i) = Scalar(1.0 + 0.5 * std::sin(1.0 + 2.0 * static_cast<double>(i))); // no symmetry
+    for (int pass = 0; pass < 2; ++pass) {
+        v = lu.solve(v);
+        const double norm = v.cwiseAbs().maxCoeff();
+        if (!(norm > 0.0) || !std::isfinite(norm))
+            return CVector();
+        v /= Scalar(norm);
+    }
+    return v;
+}
+
+// Z·S; S is the N×N average-power sensitivity.
+Eigen::MatrixXd loopMatrix(const ThermalMatrices& th, const std::vector<double>& s) {
     const int n = th.count;
-    BankStability st;
-    st.held = heldText(feed);
-    st.sensitivity_WperK = s;
     Eigen::MatrixXd z(n, n), sm(n, n);
     for (int k = 0; k < n; ++k)
         for (int j = 0; j < n; ++j) {
             z(k, j) = th.at(k, j);
             sm(k, j) = s[static_cast<std::size_t>(k * n + j)];
         }
-    const Eigen::MatrixXd m = z * sm;
-    if (!m.allFinite())
-        return st;
-    Eigen::EigenSolver<Eigen::MatrixXd> es(m, true);
+    return z * sm;
+}
+
+// Eigenvalues only (the real Schur form, without accumulating its vectors); the one eigenvector
+// needed comes from inverse iteration. Empty when they cannot be had.
+template <class Matrix> Eigen::VectorXcd eigenvaluesIn(const Eigen::MatrixXd& m) {
+    const Eigen::EigenSolver<Matrix> es(Matrix(m), false);
     if (es.info() != Eigen::Success)
+        return {};
+    return es.eigenvalues();
+}
+
+Eigen::VectorXcd eigenvaluesOf(const Eigen::MatrixXd& m) {
+    if (!m.allFinite())
+        return {};
+    // Up to 16 devices the solver's work arrays live on the stack (no allocations).
+    if (m.rows() <= 16)
+        return eigenvaluesIn<Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic, 0, 16, 16>>(m);
+    return eigenvaluesIn<Eigen::MatrixXd>(m);
+}
+
+// Loop gain of Z·S; S is the N×N average-power sensitivity.
+BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& s, BankFeed feed) {
+    const int n = th.count;
+    BankStability st;
+    st.held = heldText(feed);
+    st.sensitivity_WperK = s;
+    const Eigen::MatrixXd m = loopMatrix(th, s);
+    const Eigen::VectorXcd ev = eigenvaluesOf(m);
+    if (ev.size() != n)
         return st;
     // Spectral radius, and the eigenvalue with the largest real part: the mode that grows.
     int grow = 0;
     double radius = 0.0;
     for (int i = 0; i < n; ++i) {
-        radius = std::max(radius, std::abs(es.eigenvalues()(i)));
-        if (es.eigenvalues()(i).real() > es.eigenvalues()(grow).real())
+        radius = std::max(radius, std::abs(ev(i)));
+        if (ev(i).real() > ev(grow).real())
             grow = i;
     }
-    const std::complex<double> lambda = es.eigenvalues()(grow);
-    Eigen::VectorXcd v = es.eigenvectors().col(grow);
+    const std::complex<double> lambda = ev(grow);
+    Eigen::VectorXcd v;
+    if (lambda.imag() == 0.0)
+        v = inverseIteration(m, lambda.real()).cast<std::complex<double>>();
+    else
+        v = inverseIteration(m, lambda);
+    if (v.size() != n) {
+        // Z·S = 0, or (not expected) a solve that overflows: the full decomposition's vector.
+        const Eigen::EigenSolver<Eigen::MatrixXd> full(m, true);
+        if (full.info() != Eigen::Success)
+            return st;
+        v = full.eigenvectors().col(grow);
+    }
     int big = 0;
     for (int i = 1; i < n; ++i)
         if (std::abs(v(i)) > std::abs(v(big)))
@@ -265,31 +337,31 @@ void fillDevices(const Context& c, const detail::ElectricalPoint& pt, const std:
 }
 
 void fillVerdict(const BankProblem& p, BankSolution& sol) {
-    std::ostringstream s;
-    const int h = sol.hottest;
+    std::string s;
+    const std::string device = std::to_string(sol.hottest + 1);
     if (sol.failure == BankFailure::InvalidInput) {
-        s << "Not solved: " << sol.reason;
+        s = "Not solved: " + sol.reason;
     } else if (sol.failure == BankFailure::ThermalRunaway) {
-        s << "Thermal runaway: no steady state below " << num(p.part.tjMax_C + 125.0, 4) << " °C; device "
-          << h + 1 << " heats first.";
+        s = "Thermal runaway: no steady state below " + num(p.part.tjMax_C + 125.0, 4) + " °C; device " +
+            device + " heats first.";
     } else if (!sol.converged) {
-        s << "Not solved: " << sol.reason;
+        s = "Not solved: " + sol.reason;
     } else if (sol.stability.valid && sol.stability.dominantEigenvalue >= 1.0) {
-        s << "Unstable: loop gain " << num(sol.stability.dominantEigenvalue, 3) << " ≥ 1 ("
-          << (sol.stability.mode == BankMode::Differential ? "one device takes over from the others"
-                                                           : "the whole bank heats up together")
-          << "); device " << h + 1 << " goes first.";
+        s = "Unstable: loop gain " + num(sol.stability.dominantEigenvalue, 3) + " ≥ 1 (" +
+            (sol.stability.mode == BankMode::Differential ? "one device takes over from the others"
+                                                          : "the whole bank heats up together") +
+            "); device " + device + " goes first.";
     } else if (sol.overTemperature) {
-        s << "Over temperature: device " << h + 1 << " reaches "
-          << num(sol.devices[static_cast<std::size_t>(h)].tj_C, 4) << " °C, above T_j,max "
-          << num(p.part.tjMax_C, 4) << " °C.";
+        s = "Over temperature: device " + device + " reaches " +
+            num(sol.devices[static_cast<std::size_t>(sol.hottest)].tj_C, 4) + " °C, above T_j,max " +
+            num(p.part.tjMax_C, 4) + " °C.";
     } else {
-        s << "Stable: loop gain " << num(sol.stability.dominantEigenvalue, 3);
+        s = "Stable: loop gain " + num(sol.stability.dominantEigenvalue, 3);
         if (sol.stability.loopGain > std::max(sol.stability.dominantEigenvalue, 0.0) * 1.001)
-            s << " (spectral radius " << num(sol.stability.loopGain, 3) << " from negative feedback)";
-        s << ", max/min current " << num(sol.maxMinCurrentRatio, 4) << ".";
+            s += " (spectral radius " + num(sol.stability.loopGain, 3) + " from negative feedback)";
+        s += ", max/min current " + num(sol.maxMinCurrentRatio, 4) + ".";
     }
-    sol.verdict = s.str();
+    sol.verdict = std::move(s);
 }
 
 // The drive cannot hold the bank on when the solution needs more than the bus across it. Judged
@@ -315,7 +387,77 @@ void finishStability(const BankProblem& p, BankSolution& sol) {
                  sol.stability.dominantEigenvalue < 1.0;
 }
 
+void verdictIfAsked(const BankProblem& p, BankSolution& sol) {
+    if (p.stabilityAnalysis)
+        fillVerdict(p, sol);
+}
+
+// Stability, `stable` and verdict of a converged solution (or only its sensitivity when the
+// caller skips the analysis).
+void judge(const Context& c, const detail::ElectricalPoint& pt, BankSolution& sol) {
+    const BankProblem& p = c.p;
+    std::vector<double> s(pt.sOn);
+    for (double& v : s)
+        v *= powerScale(p, pt);
+    if (p.stabilityAnalysis) {
+        sol.stability = stabilityOf(c.th, s, p.feed);
+    } else {
+        sol.stability = BankStability{};
+        sol.stability.held = heldText(p.feed);
+        sol.stability.sensitivity_WperK = std::move(s);
+    }
+    finishStability(p, sol);
+    verdictIfAsked(p, sol);
+}
+
+ThermalMatrices thermalMatricesOf(const BankProblem& p) {
+    return buildThermalMatrices({static_cast<int>(p.devices.size()), p.part.rthJc_KperW, p.rthCs_KperW,
+                                 p.rthSa_KperW, p.neighbourCoupling_KperW});
+}
+
+// The solution carries a sensitivity for this problem's bank but no stability yet.
+bool stabilityPending(const BankProblem& p, const BankSolution& sol) {
+    const std::size_t n = p.devices.size();
+    return sol.converged && sol.fixedPoint && !sol.stability.valid && n > 0 && sol.devices.size() == n &&
+           sol.stability.sensitivity_WperK.size() == n * n;
+}
+
 } // namespace
+
+void completeStability(const BankProblem& p, BankSolution& sol) {
+    if (!stabilityPending(p, sol))
+        return;
+    sol.stability = stabilityOf(thermalMatricesOf(p), sol.stability.sensitivity_WperK, p.feed);
+    finishStability(p, sol);
+    fillVerdict(p, sol);
+}
+
+double spectralRadius(const BankProblem& p, const BankSolution& sol) {
+    return spectralRadiusAbove(p, sol, -1.0);
+}
+
+double spectralRadiusAbove(const BankProblem& p, const BankSolution& sol, double limit) {
+    if (sol.stability.valid)
+        return sol.stability.loopGain > limit ? sol.stability.loopGain : 0.0;
+    if (!stabilityPending(p, sol))
+        return 0.0;
+    const Eigen::MatrixXd m = loopMatrix(thermalMatricesOf(p), sol.stability.sensitivity_WperK);
+    // Every induced norm bounds the spectral radius (Horn & Johnson, Matrix Analysis, Thm 5.6.9):
+    // when the smaller of ‖M‖_1 and ‖M‖_∞ is clearly below the limit, so is the radius (the 0.1 %
+    // margin covers the rounding of M), and the eigenvalues are not needed.
+    if (limit > 0.0 && m.allFinite()) {
+        const double norm1 = m.cwiseAbs().colwise().sum().maxCoeff();
+        const double normInf = m.cwiseAbs().rowwise().sum().maxCoeff();
+        const double norm = std::min(norm1, normInf);
+        if (norm < 0.999 * limit)
+            return 0.0;
+    }
+    const Eigen::VectorXcd ev = eigenvaluesOf(m);
+    double radius = 0.0;
+    for (Eigen::Index i = 0; i < ev.size(); ++i)
+        radius = std::max(radius, std::abs(ev(i)));
+    return radius > limit ? radius : 0.0;
+}
 
 std::vector<Problem> validateBankProblem(const BankProblem& p) {
     std::vector<Problem> out;
@@ -340,9 +482,13 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
         c.range(m.vthTempCoeff_VperK, -0.05, 0.02, "bank.device.mosfet.vthTempCoeff_VperK", " V/K");
         c.above(m.transconductance_AperV2, 0.0, 1e6, "bank.device.mosfet.transconductance_AperV2", " A/V²");
         for (std::size_t i = 0; i < m.rdsOnTable.size(); ++i) {
-            const std::string path = "bank.device.mosfet.rdsOnTable[" + std::to_string(i) + "]";
-            c.range(m.rdsOnTable[i].tj_C, -100.0, 500.0, path + ".tj_C", " °C");
-            c.above(m.rdsOnTable[i].factor, 0.0, 100.0, path + ".factor");
+            auto path = [i](const char* field) {
+                return [i, field] {
+                    return "bank.device.mosfet.rdsOnTable[" + std::to_string(i) + "]" + field;
+                };
+            };
+            c.range(m.rdsOnTable[i].tj_C, -100.0, 500.0, path(".tj_C"), " °C");
+            c.above(m.rdsOnTable[i].factor, 0.0, 100.0, path(".factor"));
         }
     } else if (s.kind == "bipolar" || s.kind == "darlington") {
         checkBjt(c, s.bjt, "bank.device.bjt");
@@ -358,14 +504,16 @@ std::vector<Problem> validateBankProblem(const BankProblem& p) {
     c.range(p.driveResistance_ohm, 0.0, 1e9, "drive.driverResistance_ohm", " Ω");
     for (int k = 0; k < n && k <= 256; ++k) {
         const BankDevice& d = p.devices[static_cast<std::size_t>(k)];
-        const std::string path = "bank.devices[" + std::to_string(k) + "]";
-        c.above(d.rdsOnDeviation, -0.95, 100.0, path + ".rdsOnDeviation");
-        c.range(d.vthDeviation_V, -20.0, 20.0, path + ".vthDeviation_V", " V");
-        c.range(d.vbeDeviation_V, -1.0, 1.0, path + ".vbeDeviation_V", " V");
-        c.above(d.betaDeviation, -0.95, 100.0, path + ".betaDeviation");
-        c.range(d.gateResistorDeviation_ohm, -1e6, 1e6, path + ".gateResistorDeviation_ohm", " Ω");
-        c.range(d.ballastDeviation_ohm, -1e6, 1e6, path + ".ballastDeviation_ohm", " Ω");
-        c.range(d.legResistanceDeviation_ohm, -1e3, 1e3, path + ".legResistanceDeviation_ohm", " Ω");
+        auto path = [k](const char* field) {
+            return [k, field] { return "bank.devices[" + std::to_string(k) + "]" + field; };
+        };
+        c.above(d.rdsOnDeviation, -0.95, 100.0, path(".rdsOnDeviation"));
+        c.range(d.vthDeviation_V, -20.0, 20.0, path(".vthDeviation_V"), " V");
+        c.range(d.vbeDeviation_V, -1.0, 1.0, path(".vbeDeviation_V"), " V");
+        c.above(d.betaDeviation, -0.95, 100.0, path(".betaDeviation"));
+        c.range(d.gateResistorDeviation_ohm, -1e6, 1e6, path(".gateResistorDeviation_ohm"), " Ω");
+        c.range(d.ballastDeviation_ohm, -1e6, 1e6, path(".ballastDeviation_ohm"), " Ω");
+        c.range(d.legResistanceDeviation_ohm, -1e3, 1e3, path(".legResistanceDeviation_ohm"), " Ω");
     }
     c.range(p.load_A, 0.0, 1e6, "load_A", " A");
     if (p.feed != BankFeed::Current)
@@ -403,7 +551,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         for (const Problem& pr : problems)
             msg += (msg.empty() ? "" : "; ") + pr.path + " " + pr.message;
         sol.reason = msg;
-        fillVerdict(p, sol);
+        verdictIfAsked(p, sol);
         return sol;
     }
     const int n = static_cast<int>(p.devices.size());
@@ -440,22 +588,17 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
             sol.failure = pt.failure;
             sol.reason = pt.reason;
             fillDevices(c, pt, t, sol);
-            fillVerdict(p, sol);
+            verdictIfAsked(p, sol);
             return sol;
         }
         sol.converged = true;
         sol.fixedPoint = true;
         finish(pt, t);
         if (overBus(p, pt, sol)) {
-            fillVerdict(p, sol);
+            verdictIfAsked(p, sol);
             return sol;
         }
-        std::vector<double> s(pt.sOn);
-        for (double& v : s)
-            v *= powerScale(p, pt);
-        sol.stability = stabilityOf(c.th, s, p.feed);
-        finishStability(p, sol);
-        fillVerdict(p, sol);
+        judge(c, pt, sol);
         return sol;
     }
 
@@ -490,7 +633,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
     if (!solveAt(t, pt, g)) {
         electricalFailure(pt, t);
         fillDevices(c, pt, t, sol);
-        fillVerdict(p, sol);
+        verdictIfAsked(p, sol);
         return sol;
     }
     x = pt.x;
@@ -512,15 +655,10 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
                 t[k] -= g[k];
             finish(pt, t);
             if (overBus(p, pt, sol)) {
-                fillVerdict(p, sol);
+                verdictIfAsked(p, sol);
                 return sol;
             }
-            std::vector<double> s(pt.sOn);
-            for (double& v : s)
-                v *= powerScale(p, pt);
-            sol.stability = stabilityOf(c.th, s, p.feed);
-            finishStability(p, sol);
-            fillVerdict(p, sol);
+            judge(c, pt, sol);
             return sol;
         }
         // A junction held at the cap whose heat still exceeds what the sink removes there.
@@ -534,20 +672,25 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
             sol.reason = "no electrothermal fixed point below " + num(toCelsius(c.cap_K), 4) +
                          " °C: the devices' heat grows faster with temperature than the heatsink removes it";
             finish(pt, t);
-            fillVerdict(p, sol);
+            verdictIfAsked(p, sol);
             return sol;
         }
         // Newton step on G(T) = T − T_amb − Z·P(T): (I − Z·S)·ΔT = −G. (The ripple scale's own
         // temperature dependence, of order (r − 1)·d(R_b·I/V_C)/dT, is left out of S.)
+        // (Row by row, each sum Σ_l Z_kl·scale·S_lj accumulated in the order of l.)
         const double scale = powerScale(p, pt);
+        std::vector<double> zs(nn);
         for (int k = 0; k < n; ++k) {
             gv(k) = -g[static_cast<std::size_t>(k)];
-            for (int j = 0; j < n; ++j) {
-                double zs = 0.0;
-                for (int l = 0; l < n; ++l)
-                    zs += c.th.at(k, l) * scale * pt.sOn[static_cast<std::size_t>(l * n + j)];
-                a(k, j) = (k == j ? 1.0 : 0.0) - zs;
+            std::fill(zs.begin(), zs.end(), 0.0);
+            for (int l = 0; l < n; ++l) {
+                const double zl = c.th.at(k, l) * scale;
+                const double* sRow = &pt.sOn[static_cast<std::size_t>(l * n)];
+                for (std::size_t j = 0; j < nn; ++j)
+                    zs[j] += zl * sRow[j];
             }
+            for (int j = 0; j < n; ++j)
+                a(k, j) = (k == j ? 1.0 : 0.0) - zs[static_cast<std::size_t>(j)];
         }
         const Eigen::PartialPivLU<Eigen::MatrixXd> lu(a);
         Eigen::VectorXd dt = lu.solve(gv);
@@ -587,7 +730,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
                 electricalFailure(trial, tTrial);
                 finish(pt, t);
                 sol.converged = false;
-                fillVerdict(p, sol);
+                verdictIfAsked(p, sol);
                 return sol;
             }
             alpha *= 0.5;
@@ -609,7 +752,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
                      num(lastCorrection, 3) + " K)";
     }
     finish(pt, t);
-    fillVerdict(p, sol);
+    verdictIfAsked(p, sol);
     return sol;
 }
 

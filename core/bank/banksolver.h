@@ -102,6 +102,11 @@ struct BankProblem {
     double sharingTarget = 1.10;                 ///< accepted max/min device current ratio
     int maxNewtonIterations = 100;
     int maxThermalIterations = 60;
+    /// false skips the loop gain / dominant mode and the verdict text when the caller only wants
+    /// currents, powers and temperatures (e.g. a loss iteration): the solution's stability is left
+    /// invalid (its sensitivity_WperK is still filled), `stable` false and `verdict` empty;
+    /// completeStability() adds them afterwards, the same as a full solve.
+    bool stabilityAnalysis = true;
 };
 
 enum class BankFailure { None, InvalidInput, ThermalRunaway, CannotCarryLoad, NoConvergence };
@@ -179,5 +184,17 @@ BankSolution solveBank(const BankProblem& problem, const BankSolution* warmStart
 
 /// The loop gain at the junction temperatures of `at` (re-solves the network there).
 BankStability analyseStability(const BankProblem& problem, const BankSolution& at);
+
+/// For a solution of `problem` solved with stabilityAnalysis = false: the loop gain, dominant mode,
+/// `stable` and verdict from its stored sensitivity, without re-solving (identical to what the
+/// full solve gives). Does nothing to a solution that has its stability already.
+void completeStability(const BankProblem& problem, BankSolution& solution);
+
+/// Only the spectral radius of Z·S (BankStability::loopGain) of such a solution, from its stored
+/// sensitivity: what a loss iteration needs to damp itself. 0 when there is no sensitivity.
+double spectralRadius(const BankProblem& problem, const BankSolution& solution);
+/// The same when it exceeds `limit` (> 0), else 0: a matrix norm of Z·S rules out most cases without
+/// the eigenvalues (a loss iteration only damps itself above 1).
+double spectralRadiusAbove(const BankProblem& problem, const BankSolution& solution, double limit);
 
 } // namespace amp

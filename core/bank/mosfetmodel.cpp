@@ -72,7 +72,13 @@ double MosfetModel::consistencyRaise(const MosfetParams& p, double tMax_K) {
     const MosfetModel m = make(p, 0.0, 0.0, tMax_K, 1.0);
     double worst = 0.0;
     for (double t = 233.15; t <= tMax_K + 1e-9; t += 10.0) {
-        const double rch = 1.0 / (2.0 * m.channelK(t) * (m.overdrive(m.specGate_V, t) + kEnhancementWidth_V));
+        // channelK(t) and overdrive(specGate_V, t) of the nominal die, written out as in
+        // atTemperature (a bank solve runs this loop every time: no drift term needed here).
+        const double r = t / kPartReference_K;
+        const double k = m.k25_AperV2 / (r * std::sqrt(r)) / m.scale;
+        const double vth = (m.vth25_V + m.vthTempCoeff_VperK * (t - kPartReference_K)) + m.vthShift_V;
+        const double vovSpec = softplus(m.specGate_V - vth, 3.0 * thermalVoltage(t));
+        const double rch = 1.0 / (2.0 * k * (vovSpec + kEnhancementWidth_V));
         worst = std::max(worst, rch / m.nominalOnResistance(t));
     }
     return worst > 0.9 ? worst / 0.9 : 1.0;
@@ -160,5 +166,6 @@ template <class S> S MosfetModel::channelCurrent(const S& vgs, const S& vds, con
 
 AMP_MOSFET_INSTANTIATE(double)
 AMP_MOSFET_INSTANTIATE(ad::Dual<4>)
+AMP_MOSFET_INSTANTIATE(ad::Dual<1>) // the temperature state alone (bank network cache)
 
 } // namespace amp

@@ -718,6 +718,7 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     BankSolve s;
     s.problem = c.bankProblem;
     BankProblem& p = s.problem;
+    p.stabilityAnalysis = false; // the rounds want losses; the reported solution is judged below
     BankSolution b;
     bool have = false;
     bool settled = false;
@@ -779,6 +780,7 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             // No state to report: the simple model's numbers, with the network's verdict.
             BankSolve simple = solveBankSimple(c, demand);
             simple.problem = p;
+            simple.problem.stabilityAnalysis = true;
             simple.bank.converged = false;
             simple.bank.stable = false;
             simple.bank.failure = next.reason;
@@ -859,6 +861,8 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
         }
         e = chopperWithBank(c, demand, y[0], std::max(y[1], 0.0), y[2], y[4], share, resistance, tj);
     }
+    p.stabilityAnalysis = true;
+    completeStability(p, b);
     s.network = true;
     s.electrical = std::move(e);
     s.solution = std::move(b);
@@ -921,6 +925,7 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
     bp.load_A = w.duty > 0.0 ? w.switchAverage_A / w.duty : 0.0;
     bp.rmsFactor = w.duty > 0.0 && bp.load_A > 0.0 ? w.switchRms_A * w.switchRms_A / (w.duty * bp.load_A * bp.load_A) : 0.0;
     bp.extraPowerPerDevice_W = stageExtraHeat(c, e);
+    bp.stabilityAnalysis = false; // losses, and the spectral radius below
     const BankSolution b = solveBank(bp);
     if (b.converged && b.devices.size() == n) {
         for (const auto& dv : b.devices)
@@ -932,7 +937,7 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
         // by 1/(1 + ρ) makes it contract; the fixed point (the steady state) is unchanged, and the
         // losses lag the junctions by about ρ steps. (Below ρ = 1 nothing is relaxed: the stall
         // search's 1 K slope probe must see the losses as they are.)
-        const double rho = b.stability.valid ? b.stability.loopGain : 0.0;
+        const double rho = spectralRadiusAbove(bp, b, 1.0);
         if (rho > 1.0 && memory.size() == n) {
             const double alpha = 1.0 / (1.0 + rho);
             for (std::size_t k = 0; k < n; ++k)
