@@ -477,6 +477,7 @@ struct BankSolve {
     BankResult bank;
     int iterations = 0;
     bool network = false;               // the network solution below is the one reported
+    bool unsettled = false;             // the bank and the chopper found no common point (network)
     BankSolution solution;              // core/bank/ network at the point
     BankProblem problem;                // the point's bank problem (for the bank studies)
     double tjDiode_C = 0.0;
@@ -889,6 +890,7 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     }
     bankResultFrom(s.solution, s.bank);
     if (s.solution.converged && !settled) {
+        s.unsettled = true;
         s.bank.converged = false;
         s.bank.stable = false;
         s.bank.failure = fmt::format("the bank and the chopper did not settle together in {} rounds",
@@ -1191,6 +1193,15 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
                                        num(c.supply.resistance_ohm > 0.0
                                                ? c.supply.voltage_V * c.supply.voltage_V / (4.0 * c.supply.resistance_ohm)
                                                : 0.0)));
+        return op;
+    }
+    if (s.unsettled) {
+        // The reported state is the last round's, not a steady point: its losses and the battery's
+        // current do not belong together, so no figure of it holds.
+        op.valid = false;
+        op.notes.push_back(fmt::format("no steady point: {} (the bank's network, the chopper and the stage's "
+                                       "losses; the last round's bus {} V)",
+                                       s.bank.failure, num(ch.busVoltage_V)));
         return op;
     }
     if (!ch.reached) {
