@@ -923,7 +923,13 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
     bp.load_A = w.duty > 0.0 ? w.switchAverage_A / w.duty : 0.0;
     bp.rmsFactor = w.duty > 0.0 && bp.load_A > 0.0 ? w.switchRms_A * w.switchRms_A / (w.duty * bp.load_A * bp.load_A) : 0.0;
     bp.extraPowerPerDevice_W = stageExtraHeat(c, e);
-    const BankSolution b = solveBank(bp);
+    // memory: the last call's losses (n), then its network state (the warm start of this solve:
+    // a transient's steps move the junctions a little each, and a cold start costs a bipolar bank
+    // tens of Newton steps).
+    BankSolution warm;
+    if (memory.size() > n)
+        warm.state.assign(memory.begin() + static_cast<std::ptrdiff_t>(n), memory.end());
+    const BankSolution b = solveBank(bp, warm.state.empty() ? nullptr : &warm);
     if (b.converged && b.devices.size() == n) {
         for (const auto& dv : b.devices)
             p.push_back(dv.loss_W);
@@ -935,12 +941,13 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
         // losses lag the junctions by about ρ steps. (Below ρ = 1 nothing is relaxed: the stall
         // search's 1 K slope probe must see the losses as they are.)
         const double rho = b.stability.valid ? b.stability.loopGain : 0.0;
-        if (rho > 1.0 && memory.size() == n) {
+        if (rho > 1.0 && memory.size() >= n) {
             const double alpha = 1.0 / (1.0 + rho);
             for (std::size_t k = 0; k < n; ++k)
                 p[k] = memory[k] + alpha * (p[k] - memory[k]);
         }
         memory.assign(p.begin(), p.end());
+        memory.insert(memory.end(), b.state.begin(), b.state.end());
     } else {
         p = junctionHeat(e);
     }
