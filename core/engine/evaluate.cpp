@@ -477,7 +477,7 @@ struct BankSolve {
     BankResult bank;
     int iterations = 0;
     bool network = false;               // the network solution below is the one reported
-    bool unsettled = false;             // the bank and the chopper found no common point (network)
+    std::string unsettled;              // why the bank and the chopper found no common point ("" if they did)
     BankSolution solution;              // core/bank/ network at the point
     BankProblem problem;                // the point's bank problem (for the bank studies)
     double tjDiode_C = 0.0;
@@ -885,16 +885,21 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     }
     if (runaway) {
         bankResultFrom(runawayState, s.bank);
+        // Held at the runaway's junctions the rounds must still settle, or the state is no point.
+        if (!settled)
+            s.unsettled = fmt::format("{}; held at the junctions it reached, the bank and the chopper did not settle "
+                                      "together in {} rounds",
+                                      s.bank.failure, kMaxCouplingRounds);
         s.bank.maxMinCurrentRatio = s.solution.maxMinCurrentRatio;
         return s;
     }
     bankResultFrom(s.solution, s.bank);
     if (s.solution.converged && !settled) {
-        s.unsettled = true;
         s.bank.converged = false;
         s.bank.stable = false;
         s.bank.failure = fmt::format("the bank and the chopper did not settle together in {} rounds",
                                      kMaxCouplingRounds);
+        s.unsettled = s.bank.failure;
     }
     return s;
 }
@@ -1202,13 +1207,13 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
                                                : 0.0)));
         return op;
     }
-    if (s.unsettled) {
+    if (!s.unsettled.empty()) {
         // The reported state is the last round's, not a steady point: its losses and the battery's
         // current do not belong together, so no figure of it holds.
         op.valid = false;
         op.notes.push_back(fmt::format("no steady point: {} (the bank's network, the chopper and the stage's "
                                        "losses; the last round's bus {} V)",
-                                       s.bank.failure, num(ch.busVoltage_V)));
+                                       s.unsettled, num(ch.busVoltage_V)));
         return op;
     }
     if (!ch.reached) {
