@@ -415,6 +415,13 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
         bool converged = false;
         int it = 0;
         Eigen::VectorXd dx(m_nx);
+        // Stagnation: Newton with an exact Jacobian converges quadratically once close, and the
+        // damped steps far away lower the merit steadily; a merit that has not halved over the last
+        // kStall steps (after kStall steps) is a crawl that the remaining steps would not end (a
+        // bipolar or Darlington bank near the edge of carrying its load at a hot junction). Giving
+        // up then leaves the caller's retries (cold start, load steps) their turn sooner.
+        constexpr int kStall = 20;
+        std::array<double, kStall> meritAgo{};
         for (; it <= m_maxIt; ++it) {
             if (!std::isfinite(merit)) {
                 fail(pt, BankFailure::NoConvergence, "the network equations gave a non-finite value",
@@ -427,6 +434,9 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
             }
             if (it == m_maxIt)
                 break;
+            if (it >= 2 * kStall && !(merit < 0.5 * meritAgo[static_cast<std::size_t>(it % kStall)]))
+                break;
+            meritAgo[static_cast<std::size_t>(it % kStall)] = merit;
             if (!arrowSolve(-m_r, dx)) {
                 m_lu.compute(m_J);
                 dx = m_lu.solve(-m_r);
@@ -473,7 +483,7 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
         total += it;
         if (!converged) {
             std::ostringstream s;
-            s << "the network solve did not converge in " << m_maxIt << " Newton steps";
+            s << "the network solve did not converge in " << it << " Newton steps";
             fail(pt, BankFailure::NoConvergence, s.str(), total);
             return false;
         }
