@@ -12,6 +12,7 @@
 #include <algorithm>
 #include <array>
 #include <cmath>
+#include <limits>
 #include <sstream>
 
 namespace amp::detail {
@@ -696,6 +697,9 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
             const auto kk = static_cast<std::size_t>(k);
             const int base = 2 + k * m;
             const Block a = m_J.template block<m, m>(base, base);
+            // Any non-zero pivot will do: the accuracy test below judges the result (a bipolar leg
+            // whose junctions are off has pivots far below its largest; the solve stays accurate).
+            m_legLu[kk].setThreshold(std::numeric_limits<double>::min());
             m_legLu[kk].compute(a);
             if (!m_legLu[kk].isInvertible())
                 return false;
