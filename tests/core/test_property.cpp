@@ -127,11 +127,11 @@ class TestProperty : public QObject {
         // others counted several times the bank's current, so the coupling never settled
         // (engine/stage_losses.cpp; a point whose coupling does not settle is now invalid with
         // the reason); case 1462, a MOSFET gate path with no resistance at all, which the table let
-        // through and evaluate() refused (now a cross-field rule). The first 3,000 cases of this
-        // seed pass, with every balance within 1e-6, discontinuous points included (worst 4.5e-8).
+        // through and evaluate() refused (now a cross-field rule). The first 5,500 cases of this
+        // seed pass, with every balance within 1e-6, discontinuous points included (worst 7.6e-8).
         // Open: time. 1,600 cases took 4.5 minutes on a busy 2-core machine, most of it in a few
         // designs: full-bridge and half-bridge stall searches of the thermal transient (cases 488,
-        // 722: a minute or two each, thermal/stall.cpp), a MOSFET full bridge whose gate-drive
+        // 722, 3794, 4275: one to six minutes each), a MOSFET full bridge whose gate-drive
         // model formats its messages on every call (case 838), and large bipolar or Darlington
         // banks whose network solves fail near runaway temperatures (cases 579, 892, 1938: 10–20 s).
         if (qEnvironmentVariableIsEmpty("AMPWRIGHT_PROPERTY_EVALUATE"))
