@@ -440,6 +440,13 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
         bool converged = false;
         int it = 0;
         Eigen::VectorXd dx(m_nx);
+        // Stagnation: Newton with an exact Jacobian converges quadratically once close, and the
+        // damped steps far away lower the merit steadily; a merit that has not halved over the last
+        // kStall steps (after kStall steps) is a crawl that the remaining steps would not end (a
+        // bipolar or Darlington bank near the edge of carrying its load at a hot junction). Giving
+        // up then leaves the caller's retries (cold start, load steps) their turn sooner.
+        constexpr int kStall = 20;
+        std::array<double, kStall> meritAgo{};
         for (; it <= m_maxIt; ++it) {
             if (!std::isfinite(merit)) {
                 fail(pt, BankFailure::NoConvergence, "the network equations gave a non-finite value",
@@ -452,8 +459,13 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
             }
             if (it == m_maxIt)
                 break;
-            m_lu.compute(m_J);
-            dx = m_lu.solve(-m_r);
+            if (it >= 2 * kStall && !(merit < 0.5 * meritAgo[static_cast<std::size_t>(it % kStall)]))
+                break;
+            meritAgo[static_cast<std::size_t>(it % kStall)] = merit;
+            if (!arrowSolve(-m_r, dx)) {
+                m_lu.compute(m_J);
+                dx = m_lu.solve(-m_r);
+            }
             if (!dx.allFinite()) {
                 fail(pt, BankFailure::NoConvergence, "singular network Jacobian", total += it);
                 return false;
@@ -496,7 +508,7 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
         total += it;
         if (!converged) {
             std::ostringstream s;
-            s << "the network solve did not converge in " << m_maxIt << " Newton steps";
+            s << "the network solve did not converge in " << it << " Newton steps";
             fail(pt, BankFailure::NoConvergence, s.str(), total);
             return false;
         }
@@ -688,9 +700,77 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
         }
     }
 
+    // J·X = B by the arrow structure of J: each leg's rows touch only its own m unknowns and the
+    // two shared nodes (V_G, V_C), and only the two border rows touch every leg. Eliminating the
+    // legs leaves the 2×2 Schur complement S = J_gg − Σ_k J_gk·J_kk⁻¹·J_kg for the shared nodes,
+    // then each leg's unknowns follow from its own block: O(N·m³) instead of the dense LU's
+    // O((2 + m·N)³) (Golub & Van Loan, "Matrix Computations", block elimination; from memory).
+    // false when a leg block or S is singular or the solution does not satisfy J·X = B to working
+    // accuracy (no pivoting across legs): the caller then takes the dense LU.
+    template <class Rhs, class Out> bool arrowSolve(const Rhs& bIn, Out& out) {
+        using Block = Eigen::Matrix<double, m, m>;
+        using Border = Eigen::Matrix<double, m, 2>;
+        const Eigen::MatrixXd b = bIn;
+        const Eigen::Index cols = b.cols();
+        Eigen::Matrix2d schur = m_J.template topLeftCorner<2, 2>();
+        Eigen::MatrixXd rhsG = b.topRows(2);
+        m_legLu.resize(static_cast<std::size_t>(n));
+        m_legInvB.resize(static_cast<std::size_t>(n));
+        m_legInvR.resize(static_cast<std::size_t>(n));
+        for (int k = 0; k < n; ++k) {
+            const auto kk = static_cast<std::size_t>(k);
+            const int base = 2 + k * m;
+            const Block a = m_J.template block<m, m>(base, base);
+            // Any non-zero pivot will do: the accuracy test below judges the result (a bipolar leg
+            // whose junctions are off has pivots far below its largest; the solve stays accurate).
+            m_legLu[kk].setThreshold(std::numeric_limits<double>::min());
+            m_legLu[kk].compute(a);
+            if (!m_legLu[kk].isInvertible())
+                return false;
+            const Border bk = m_J.template block<m, 2>(base, 0);
+            m_legInvB[kk] = m_legLu[kk].solve(bk);
+            m_legInvR[kk] = m_legLu[kk].solve(b.middleRows(base, m));
+            const Eigen::Matrix<double, 2, m> ck = m_J.template block<2, m>(0, base);
+            schur.noalias() -= ck * m_legInvB[kk];
+            rhsG.noalias() -= ck * m_legInvR[kk];
+        }
+        const Eigen::FullPivLU<Eigen::Matrix2d> slu(schur);
+        if (!slu.isInvertible())
+            return false;
+        const Eigen::MatrixXd xg = slu.solve(rhsG);
+        Eigen::MatrixXd x(m_nx, cols);
+        x.topRows(2) = xg;
+        for (int k = 0; k < n; ++k) {
+            const auto kk = static_cast<std::size_t>(k);
+            x.middleRows(2 + k * m, m) = m_legInvR[kk] - m_legInvB[kk] * xg;
+        }
+        if (!x.allFinite())
+            return false;
+        // Accuracy: the residual of J·X = B, row by row against the size of the row's terms.
+        Eigen::MatrixXd resG = m_J.template topLeftCorner<2, 2>() * xg - b.topRows(2);
+        Eigen::MatrixXd sizeG = m_J.template topLeftCorner<2, 2>().cwiseAbs() * xg.cwiseAbs() + b.topRows(2).cwiseAbs();
+        for (int k = 0; k < n; ++k) {
+            const int base = 2 + k * m;
+            const auto xk = x.middleRows(base, m);
+            const Eigen::Matrix<double, 2, m> ck = m_J.template block<2, m>(0, base);
+            resG.noalias() += ck * xk;
+            sizeG.noalias() += ck.cwiseAbs() * xk.cwiseAbs();
+            const Eigen::MatrixXd rk = m_J.template block<m, m>(base, base) * xk +
+                                       m_J.template block<m, 2>(base, 0) * xg - b.middleRows(base, m);
+            const Eigen::MatrixXd sk = m_J.template block<m, m>(base, base).cwiseAbs() * xk.cwiseAbs() +
+                                       m_J.template block<m, 2>(base, 0).cwiseAbs() * xg.cwiseAbs() +
+                                       b.middleRows(base, m).cwiseAbs();
+            if (!(rk.cwiseAbs().array() <= 1e-10 * sk.array() + 1e-300).all())
+                return false;
+        }
+        if (!(resG.cwiseAbs().array() <= 1e-10 * sizeG.array() + 1e-300).all())
+            return false;
+        out = std::move(x);
+        return true;
+    }
+
     void computeSensitivity(ElectricalPoint& pt) {
         // dX/dT_j = −J⁻¹·∂F/∂T_j at the converged point (m_J, m_out are at pt.x).
-        m_lu.compute(m_J);
         // One more right-hand side: the load current (the incremental resistance dV_C/dI).
         Eigen::MatrixXd b = Eigen::MatrixXd::Zero(m_nx, n + 1);
         if (m_feed == BankFeed::Current)
@@ -707,7 +787,11 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
             b(0, j) = -(m_feed == BankFeed::Linear ? dIc : -m_rDrv * dIg);
             b(1, j) = m_feed == BankFeed::Current ? -dIc : 0.0;
         }
-        const Eigen::MatrixXd dx = m_lu.solve(b);
+        Eigen::MatrixXd dx;
+        if (!arrowSolve(b, dx)) {
+            m_lu.compute(m_J);
+            dx = m_lu.solve(b);
+        }
         pt.dVcdLoad = std::isfinite(dx(1, n)) ? dx(1, n) : 0.0;
         pt.dxdT.resize(static_cast<std::size_t>(m_nx * n));
         for (int i = 0; i < m_nx; ++i)
@@ -738,6 +822,9 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
     Eigen::MatrixXd m_J;
     Eigen::VectorXd m_r;
     Eigen::PartialPivLU<Eigen::MatrixXd> m_lu;
+    std::vector<Eigen::FullPivLU<Eigen::Matrix<double, m, m>>> m_legLu;     ///< arrowSolve's leg blocks
+    std::vector<Eigen::Matrix<double, m, 2>> m_legInvB;                      ///< J_kk⁻¹·J_kg
+    std::vector<Eigen::Matrix<double, m, Eigen::Dynamic>> m_legInvR;        ///< J_kk⁻¹·B_k
     std::vector<LegOut<D>> m_out;
     std::vector<double> m_trial;
     std::vector<std::array<double, m>> m_dT; ///< ∂r/∂T of each leg row

@@ -477,6 +477,7 @@ struct BankSolve {
     BankResult bank;
     int iterations = 0;
     bool network = false;               // the network solution below is the one reported
+    std::string unsettled;              // why the bank and the chopper found no common point ("" if they did)
     BankSolution solution;              // core/bank/ network at the point
     BankProblem problem;                // the point's bank problem (for the bank studies)
     double tjDiode_C = 0.0;
@@ -888,6 +889,11 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     }
     if (runaway) {
         bankResultFrom(runawayState, s.bank);
+        // Held at the runaway's junctions the rounds must still settle, or the state is no point.
+        if (!settled)
+            s.unsettled = fmt::format("{}; held at the junctions it reached, the bank and the chopper did not settle "
+                                      "together in {} rounds",
+                                      s.bank.failure, kMaxCouplingRounds);
         s.bank.maxMinCurrentRatio = s.solution.maxMinCurrentRatio;
         return s;
     }
@@ -897,6 +903,7 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
         s.bank.stable = false;
         s.bank.failure = fmt::format("the bank and the chopper did not settle together in {} rounds",
                                      kMaxCouplingRounds);
+        s.unsettled = s.bank.failure;
     }
     return s;
 }
@@ -926,7 +933,13 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
     bp.rmsFactor = w.duty > 0.0 && bp.load_A > 0.0 ? w.switchRms_A * w.switchRms_A / (w.duty * bp.load_A * bp.load_A) : 0.0;
     bp.extraPowerPerDevice_W = stageExtraHeat(c, e);
     bp.stabilityAnalysis = false; // losses, and the spectral radius below
-    const BankSolution b = solveBank(bp);
+    // memory: the last call's losses (n), then its network state (the warm start of this solve:
+    // a transient's steps move the junctions a little each, and a cold start costs a bipolar bank
+    // tens of Newton steps).
+    BankSolution warm;
+    if (memory.size() > n)
+        warm.state.assign(memory.begin() + static_cast<std::ptrdiff_t>(n), memory.end());
+    const BankSolution b = solveBank(bp, warm.state.empty() ? nullptr : &warm);
     if (b.converged && b.devices.size() == n) {
         for (const auto& dv : b.devices)
             p.push_back(dv.loss_W);
@@ -938,12 +951,13 @@ void networkLosses(const Context& c, const Demand& demand, const std::vector<dou
         // losses lag the junctions by about ρ steps. (Below ρ = 1 nothing is relaxed: the stall
         // search's 1 K slope probe must see the losses as they are.)
         const double rho = spectralRadiusAbove(bp, b, 1.0);
-        if (rho > 1.0 && memory.size() == n) {
+        if (rho > 1.0 && memory.size() >= n) {
             const double alpha = 1.0 / (1.0 + rho);
             for (std::size_t k = 0; k < n; ++k)
                 p[k] = memory[k] + alpha * (p[k] - memory[k]);
         }
         memory.assign(p.begin(), p.end());
+        memory.insert(memory.end(), b.state.begin(), b.state.end());
     } else {
         p = junctionHeat(e);
     }
@@ -1196,6 +1210,15 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
                                        num(c.supply.resistance_ohm > 0.0
                                                ? c.supply.voltage_V * c.supply.voltage_V / (4.0 * c.supply.resistance_ohm)
                                                : 0.0)));
+        return op;
+    }
+    if (!s.unsettled.empty()) {
+        // The reported state is the last round's, not a steady point: its losses and the battery's
+        // current do not belong together, so no figure of it holds.
+        op.valid = false;
+        op.notes.push_back(fmt::format("no steady point: {} (the bank's network, the chopper and the stage's "
+                                       "losses; the last round's bus {} V)",
+                                       s.unsettled, num(ch.busVoltage_V)));
         return op;
     }
     if (!ch.reached) {

@@ -560,6 +560,21 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
             const double ic = share[0][k] * std::max(0.0, in.motorCurrent_A);
             base[k] = baseDrive(d, static_cast<int>(k), ic, k < in.tj_C.size() ? in.tj_C[k] : bankTj[0], channelFraction[0]);
         }
+    // The current each device switches: its share of the bank's, among the devices that carry the
+    // load current forward. A deeply overdriven bipolar bank at a small load has devices whose base
+    // current leaves through the collector (a negative on-state share, V_BC forward): they switch
+    // none of the load current, and the bank's edges still switch all of it, ½·V·I·t in all (the
+    // parallel devices swing the same voltage). Taken as the signed shares, the negative devices'
+    // edges were refused and the others counted several times the bank's current.
+    std::vector<std::vector<double>> switched(share.size());
+    for (std::size_t b = 0; b < share.size(); ++b) {
+        double forward = 0.0;
+        for (const double s : share[b])
+            forward += std::max(0.0, s);
+        switched[b].resize(share[b].size(), 0.0);
+        for (std::size_t k = 0; k < share[b].size(); ++k)
+            switched[b][k] = forward > 0.0 ? std::max(0.0, share[b][k]) / forward : 0.0;
+    }
     std::string edgeProblem;
     for (const auto& e : events) {
         const auto b = static_cast<std::size_t>(e.bank);
@@ -574,7 +589,7 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
         if (!e.turnOn && e.current_A > offCurrentMax)
             offCurrentMax = e.current_A;
         for (std::size_t k = 0; k < nz; ++k) {
-            const double s = share[b][k];
+            const double s = switched[b][k];
             const double i = e.current_A * s;
             EdgeResult edge;
             if (plan.mosfet) {

@@ -1237,6 +1237,18 @@ std::vector<Problem> validateDesign(const Design& d) {
         if (m.plateau_V <= m.vth_V)
             out.push_back({"bank.device.mosfet.plateau_V", "the plateau " + V(m.plateau_V) +
                                                                " must lie above the threshold " + V(m.vth_V)});
+        // Every gate charges through some resistance (the driver's output stage, the die's gate
+        // mesh): with none at all the edges would take no time and an unbounded current.
+        bool resisted = d.drive.driverResistance_ohm > 0.0 || m.rgInternal_ohm > 0.0;
+        if (!resisted) {
+            resisted = d.bank.gateResistor_ohm > 0.0;
+            for (const BankDevice& dev : d.bank.devices)
+                resisted = resisted && d.bank.gateResistor_ohm + dev.gateResistorDeviation_ohm > 0.0;
+        }
+        if (!resisted)
+            out.push_back({"drive.driverResistance_ohm",
+                           "the gate path of a device has no resistance at all: the driver's output resistance, the "
+                           "internal gate resistance and its gate resistor (with its deviation) are all zero"});
         for (std::size_t i = 1; i < m.rdsOnTable.size(); ++i)
             if (!(m.rdsOnTable[i].tj_C > m.rdsOnTable[i - 1].tj_C))
                 out.push_back({"bank.device.mosfet.rdsOnTable[" + std::to_string(i) + "].tj_C",

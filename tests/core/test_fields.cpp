@@ -362,6 +362,25 @@ class TestFields : public QObject {
         d = ok;
         d.bank.diodeCount = 0;
         QVERIFY(hasProblem(amp::validateDesign(d), "bank.diodeCount", "freewheel"));
+        // A MOSFET gate charged through no resistance at all would draw an unbounded current (the
+        // RC charging of the gate, i = V/R at the edge; any circuits text): refused, and any one of
+        // the three resistances lifts it.
+        d = ok;
+        d.bank.device.kind = "mosfet";
+        d.drive.driverResistance_ohm = 0.0;
+        d.bank.device.mosfet.rgInternal_ohm = 0.0;
+        d.bank.gateResistor_ohm = 0.0;
+        for (auto& dev : d.bank.devices)
+            dev.gateResistorDeviation_ohm = 0.0;
+        QVERIFY(hasProblem(amp::validateDesign(d), "drive.driverResistance_ohm", "no resistance at all"));
+        d.bank.gateResistor_ohm = 2.2;
+        QVERIFY2(amp::validateDesign(d).empty(), qPrintable(dump(amp::validateDesign(d))));
+        if (!d.bank.devices.empty()) {
+            d.bank.devices.front().gateResistorDeviation_ohm = -2.2; // that device's resistor gone
+            QVERIFY(hasProblem(amp::validateDesign(d), "drive.driverResistance_ohm", "no resistance at all"));
+        }
+        d.bank.device.mosfet.rgInternal_ohm = 0.5;
+        QVERIFY(amp::validateDesign(d).empty());
     }
 
     void patterns() {

@@ -114,7 +114,7 @@ class TestProperty : public QObject {
     }
 
     void evaluateRandomDesigns() {
-        // Runs on request only (AMPWRIGHT_PROPERTY_EVALUATE=1) until the open findings are fixed.
+        // Runs on request only (AMPWRIGHT_PROPERTY_EVALUATE=1) until it is fast enough for every build.
         // Found and fixed (2 December 2026): a crash on a synchronous-topology point with no bus
         // voltage left (evaluate.cpp); case 53, a bank's conduction time counted per Simpson sample
         // so a sample on the zero crossing flipped the base drive (losses/topology.cpp); case 125,
@@ -122,12 +122,18 @@ class TestProperty : public QObject {
         // case 207, a MOSFET gate current's I_G·V_S in the source paths not drawn from the battery;
         // case 330, the avalanche heat hopping between devices; case 424, the stage's bus current
         // ringing unsettled; case 473, losses above what the battery can give (now an invalid
-        // point). The first 1,234 cases of this seed pass. Open: case 1235, a bipolar bank whose
-        // base drive collapses a 3.2 Ω battery on the network path (the coupling does not settle;
-        // it should be reported invalid like case 473); and large bipolar/Darlington banks whose
-        // network solve takes seconds to a minute per design (cases 119, 838, 892: Newton on the
-        // dense (2 + 4N)-unknown network, retried cold and by load stepping when it fails), which
-        // keeps 10,000 cases far beyond a few minutes.
+        // point); case 1235, an overdriven bipolar bank at a small load whose devices with a
+        // negative share (base current out by the collector) had their edges refused while the
+        // others counted several times the bank's current, so the coupling never settled
+        // (engine/stage_losses.cpp; a point whose coupling does not settle is now invalid with
+        // the reason); case 1462, a MOSFET gate path with no resistance at all, which the table let
+        // through and evaluate() refused (now a cross-field rule). The first 5,500 cases of this
+        // seed pass, with every balance within 1e-6, discontinuous points included (worst 7.6e-8).
+        // Open: time. 1,600 cases took 4.5 minutes on a busy 2-core machine, most of it in a few
+        // designs: full-bridge and half-bridge stall searches of the thermal transient (cases 488,
+        // 722, 3794, 4275: one to six minutes each), a MOSFET full bridge whose gate-drive
+        // model formats its messages on every call (case 838), and large bipolar or Darlington
+        // banks whose network solves fail near runaway temperatures (cases 579, 892, 1938: 10–20 s).
         if (qEnvironmentVariableIsEmpty("AMPWRIGHT_PROPERTY_EVALUATE"))
             QSKIP("evaluate() over random designs runs with AMPWRIGHT_PROPERTY_EVALUATE=1 until its open findings "
                   "are fixed (see the comment)");
@@ -137,8 +143,13 @@ class TestProperty : public QObject {
         int points = 0, solved = 0, discontinuous = 0, limited = 0;
         double worstBalance = 0.0;
         double slowest = 0.0;
+        // AMPWRIGHT_PROPERTY_FIRST=k draws (without evaluating) the designs before case k: for
+        // going straight to a reported case.
+        const int first = qEnvironmentVariableIntValue("AMPWRIGHT_PROPERTY_FIRST");
         for (int i = 0; i < m_cases; ++i) {
             const test::RandomDesign r = test::randomDesign(rng, m_parts);
+            if (i < first)
+                continue;
             const std::string which = "case " + std::to_string(i) + (r.wide ? " (wide)" : "");
             QVERIFY2(r.problems.empty(), (which + ": " + describe(r.problems)).c_str());
             Results res;

@@ -196,6 +196,9 @@ void repair(Design& d) {
     m.qg_As = std::max(m.qg_As, m.qgs_As + m.qgd_As);
     if (m.plateau_V <= m.vth_V)
         m.plateau_V = std::min(spec("bank.device.mosfet.plateau_V").max, 1.5 * m.vth_V + 0.5);
+    // Some resistance in every gate path (validateDesign): the die's own, 1 Ω (common practice).
+    if (d.bank.device.kind == "mosfet" && d.drive.driverResistance_ohm <= 0.0 && m.rgInternal_ohm <= 0.0)
+        m.rgInternal_ohm = 1.0;
 
     // Conductor pairs do not overlap: centre spacing at least the diameter (2r); the layout
     // fields reach 1 m, and a 1000 mm² conductor is 35.7 mm across.

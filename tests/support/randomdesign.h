@@ -3,8 +3,8 @@
 // Random valid designs for property tests and benchmarks. Every number lies within the field
 // table's range (core/model/fields.h) and the cross-field rules hold (min ≤ nominal ≤ max voltage,
 // drive at sag ≤ drive, duty ≤ maximum duty, dead times shorter than half a period, gate charges
-// that add up, plateau above threshold, ascending tables, T_j,max above ambient). Parts start from
-// the shipped library. About a third of the designs are "wide": each number anywhere in its
+// that add up, plateau above threshold, some resistance in every gate path, ascending tables,
+// T_j,max above ambient). Parts start from the shipped library. About a third of the designs are "wide": each number anywhere in its
 // allowed range (log-uniform across decades); the rest are "typical": the library part and the
 // defaults scaled by up to ×3 either way, temperatures moved by up to ±30 K.
 // Two corners the table allows are left out because evaluate() refuses them as bad input for now
