@@ -156,8 +156,9 @@ struct BaseDrive {
     double reverseRatio = 0.0;
 };
 
-BaseDrive baseDrive(const Design& d, int device, double ic_A, double tj_C, double duty) {
+BaseDrive baseDrive(const Design& d, int device, double ic_A, double tj_C, double duty, bool messages) {
     losses::BipolarBaseDriveInput in;
+    in.messages = messages;
     in.devices = std::max(1, d.bank.count);
     in.collectorCurrent_A = std::max(0.0, ic_A);
     in.dcBeta = bipolarGain(d, ic_A, tj_C);
@@ -558,7 +559,8 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
     if (!plan.mosfet)
         for (std::size_t k = 0; k < nz; ++k) {
             const double ic = share[0][k] * std::max(0.0, in.motorCurrent_A);
-            base[k] = baseDrive(d, static_cast<int>(k), ic, k < in.tj_C.size() ? in.tj_C[k] : bankTj[0], channelFraction[0]);
+            base[k] = baseDrive(d, static_cast<int>(k), ic, k < in.tj_C.size() ? in.tj_C[k] : bankTj[0], channelFraction[0],
+                                in.withChecks);
         }
     // The current each device switches: its share of the bank's, among the devices that carry the
     // load current forward. A deeply overdriven bipolar bank at a small load has devices whose base
@@ -673,12 +675,14 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
                 g.gateResistorInternal_ohm = part.mosfet.rgInternal_ohm;
                 g.pulldown_ohm = d.drive.pulldown_ohm;
                 g.specGate_V = part.mosfet.rdsOnSpecGate_V;
+                g.messages = false; // only the power inside the die is read here
                 const auto r = losses::mosfetGateDrive(g);
                 if (r.ok())
                     inDie = r.internal_W; // the gate resistance inside the die
             } else {
                 // The other banks' base drive runs over their own conduction time at their own current.
-                const BaseDrive bd = b == 0 ? base[k] : baseDrive(d, static_cast<int>(k), dl.current_A, bankTj[b], duty);
+                const BaseDrive bd =
+                    b == 0 ? base[k] : baseDrive(d, static_cast<int>(k), dl.current_A, bankTj[b], duty, in.withChecks);
                 if (bd.result.ok())
                     inDie = bd.result.baseEmitter_W;
             }

@@ -51,7 +51,7 @@ MosfetGateDriveResult mosfetGateDrive(const MosfetGateDriveInput& in) {
     r.driverPeak.value = r.driverPeak_A;
     r.driverPeak.limit = in.driverPeakRating_A;
     r.driverPeak.failed = r.driverPeak.rated && r.driverPeak_A > in.driverPeakRating_A;
-    if (r.driverPeak.failed)
+    if (r.driverPeak.failed && in.messages)
         r.driverPeak.message = "the driver must source " + num(r.driverPeak_A) + " A peak into " +
                                std::to_string(in.devices) + " gates, above its " + num(in.driverPeakRating_A) +
                                " A rating";
@@ -59,7 +59,7 @@ MosfetGateDriveResult mosfetGateDrive(const MosfetGateDriveInput& in) {
     r.pulldownPresent = in.pulldown_ohm > 0.0;
     r.pulldown.value = in.pulldown_ohm;
     r.pulldown.failed = !r.pulldownPresent;
-    if (r.pulldown.failed)
+    if (r.pulldown.failed && in.messages)
         r.pulldown.message = "no gate pull-down: if the drive is lost (connector, driver supply) the gates "
                              "float and the bank can turn on or run linear";
 
@@ -78,7 +78,7 @@ MosfetGateDriveResult mosfetGateDrive(const MosfetGateDriveInput& in) {
     r.enhancement.value = r.gateVoltageAtMinSupply_V;
     r.enhancement.limit = in.specGate_V;
     r.enhancement.failed = r.gateVoltageAtMinSupply_V < in.specGate_V;
-    if (r.enhancement.failed)
+    if (r.enhancement.failed && in.messages)
         r.enhancement.message = "at the lowest supply the gates reach " + num(r.gateVoltageAtMinSupply_V) +
                                 " V, below the " + num(in.specGate_V) +
                                 " V at which R_ds(on) is stated: the bank is not fully enhanced";
@@ -129,7 +129,7 @@ BipolarBaseDriveResult bipolarBaseDrive(const BipolarBaseDriveInput& in) {
     r.saturation.value = r.baseCurrentAtMinSupply_A;
     r.saturation.limit = r.requiredBaseCurrent_A;
     r.saturation.failed = r.baseCurrentAtMinSupply_A < r.requiredBaseCurrent_A;
-    if (r.saturation.failed)
+    if (r.saturation.failed && in.messages)
         r.saturation.message = "at the lowest supply the base current is " + num(r.baseCurrentAtMinSupply_A) +
                                " A per device, below the " + num(r.requiredBaseCurrent_A) + " A that " +
                                num(in.collectorCurrent_A) +

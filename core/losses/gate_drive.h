@@ -43,6 +43,7 @@ struct MosfetGateDriveInput {
     double gateResistorInternal_ohm = 1.5;
     double pulldown_ohm = 10e3;     ///< per device (0 = none)
     double specGate_V = 10.0;       ///< gate voltage at which R_ds(on) is stated
+    bool messages = true;           ///< false: verdicts without their text (callers in a loop)
 };
 
 struct MosfetGateDriveResult {
@@ -79,6 +80,7 @@ struct BipolarBaseDriveInput {
     double driveMin_V = 11.0;
     double driverResistance_ohm = 0.0;   ///< driver output resistance (shared)
     double duty = 0.5;
+    bool messages = true;                ///< false: verdicts without their text (callers in a loop)
 };
 
 struct BipolarBaseDriveResult {

@@ -90,6 +90,39 @@ class TestLossesDrive : public QObject {
         QVERIFY(r.enhancement.failed);
     }
 
+    void driveVerdictsWithoutTheirTexts() {
+        // messages = false (the engine's loss iterations) leaves the texts out and nothing else:
+        // the same verdicts and figures as with them (cases of the two tests above).
+        MosfetGateDriveInput g;
+        g.devices = 3;
+        g.driverPeakRating_A = 2.0;
+        g.driveMin_V = 9.0;
+        g.pulldown_ohm = 0.0;
+        const MosfetGateDriveResult full = mosfetGateDrive(g);
+        g.messages = false;
+        const MosfetGateDriveResult bare = mosfetGateDrive(g);
+        QVERIFY(full.driverPeak.failed && full.enhancement.failed && full.pulldown.failed);
+        QVERIFY(!full.driverPeak.message.empty() && !full.enhancement.message.empty() && !full.pulldown.message.empty());
+        QCOMPARE(bare.driverPeak.failed, full.driverPeak.failed);
+        QCOMPARE(bare.enhancement.failed, full.enhancement.failed);
+        QCOMPARE(bare.pulldown.failed, full.pulldown.failed);
+        QVERIFY(bare.driverPeak.message.empty() && bare.enhancement.message.empty() && bare.pulldown.message.empty());
+        QCOMPARE(bare.internal_W, full.internal_W);
+        QCOMPARE(bare.gateVoltageAtMinSupply_V, full.gateVoltageAtMinSupply_V);
+
+        BipolarBaseDriveInput b;
+        b.collectorCurrent_A = 20.0;
+        b.dcBeta = 20.0;
+        b.baseResistor_ohm = 5.0;
+        b.driveMin_V = 5.0; // 0.82 A against the 1 A that 20 A needs at β 20: out of saturation
+        const BipolarBaseDriveResult withText = losses::bipolarBaseDrive(b);
+        b.messages = false;
+        const BipolarBaseDriveResult without = losses::bipolarBaseDrive(b);
+        QVERIFY(withText.saturation.failed && !withText.saturation.message.empty());
+        QVERIFY(without.saturation.failed && without.saturation.message.empty());
+        QCOMPARE(without.baseCurrentAtMinSupply_A, withText.baseCurrentAtMinSupply_A);
+    }
+
     void missingPulldownFails() {
         // Common practice: a gate pull-down turns the bank off when the drive is lost.
         MosfetGateDriveInput in;
