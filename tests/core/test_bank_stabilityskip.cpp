@@ -43,6 +43,22 @@ BankProblem withSpread(BankProblem p) {
     return p;
 }
 
+// The rows of the _data functions: current feed with spread, voltage feed, isothermal, runaway.
+BankProblem caseProblem(int which) {
+    BankProblem p = withSpread(mosfetBank(6, 240.0));
+    if (which == 1) {
+        p.feed = BankFeed::Voltage;
+        p.commonNode_V = 0.3;
+    } else if (which == 2) {
+        p.isothermal = true;
+        p.isothermalTj_C = 90.0;
+    } else if (which == 3) {
+        p = mosfetBank(2, 300.0);
+        p.rthSa_KperW = 3.0; // I²R(T) outgrows the sink (as in test_bank_network)
+    }
+    return p;
+}
+
 BankProblem skipping(BankProblem p) {
     p.stabilityAnalysis = false;
     return p;
@@ -67,17 +83,7 @@ class TestBankStabilitySkip : public QObject {
         // Newton iterations and the network solves do not look at it), so every number of the
         // state is the same arithmetic in both modes: tolerance 0.
         QFETCH(int, which);
-        BankProblem p = withSpread(mosfetBank(6, 240.0));
-        if (which == 1) {
-            p.feed = BankFeed::Voltage;
-            p.commonNode_V = 0.3;
-        } else if (which == 2) {
-            p.isothermal = true;
-            p.isothermalTj_C = 90.0;
-        } else if (which == 3) {
-            p = mosfetBank(2, 300.0);
-            p.rthSa_KperW = 3.0; // I²R(T) outgrows the sink (as in test_bank_network)
-        }
+        const BankProblem p = caseProblem(which);
         const BankSolution full = solveBank(p);
         const BankSolution fast = solveBank(skipping(p));
         QCOMPARE(fast.converged, full.converged);
@@ -119,17 +125,7 @@ class TestBankStabilitySkip : public QObject {
         // Identity: completeStability runs the full solve's own analysis on the same stored
         // sensitivity and thermal matrices: tolerance 0.
         QFETCH(int, which);
-        BankProblem p = withSpread(mosfetBank(6, 240.0));
-        if (which == 1) {
-            p.feed = BankFeed::Voltage;
-            p.commonNode_V = 0.3;
-        } else if (which == 2) {
-            p.isothermal = true;
-            p.isothermalTj_C = 90.0;
-        } else if (which == 3) {
-            p = mosfetBank(2, 300.0);
-            p.rthSa_KperW = 3.0;
-        }
+        const BankProblem p = caseProblem(which);
         const BankSolution full = solveBank(p);
         BankSolution fast = solveBank(skipping(p));
         const double radius = spectralRadius(p, fast);

@@ -24,6 +24,18 @@ Design loadDemo() {
     return *r.design;
 }
 
+// Three frequency steps at the demo's second segment.
+CountFrequencyGrid grid(int countMin, int countMax, double fMin_Hz, double fMax_Hz) {
+    CountFrequencyGrid g;
+    g.countMin = countMin;
+    g.countMax = countMax;
+    g.frequencyMin_Hz = fMin_Hz;
+    g.frequencyMax_Hz = fMax_Hz;
+    g.frequencies = 3;
+    g.point = 1;
+    return g;
+}
+
 bool hasProblemAt(const SweepResult& r, const std::string& path) {
     for (const Problem& p : r.problems)
         if (p.path == path && !p.message.empty())
@@ -82,13 +94,7 @@ private slots:
 
     void everyCellIsItsOwnEvaluationWhateverTheThreads() {
         const Design d = loadDemo();
-        CountFrequencyGrid g;
-        g.countMin = 3;
-        g.countMax = 6;
-        g.frequencyMin_Hz = 4000.0;
-        g.frequencyMax_Hz = 20000.0;
-        g.frequencies = 3;
-        g.point = 1; // the demo's second segment
+        CountFrequencyGrid g = grid(3, 6, 4000.0, 20000.0); // the demo's second segment, 3 frequencies
         g.threads = 1;
         const SweepResult one = sweepCountAndFrequency(d, g);
         g.threads = 3;
@@ -129,13 +135,7 @@ private slots:
         // (each carries 1/N of the current, its conduction loss falls as 1/N²); at a fixed count a
         // higher PWM frequency costs switching loss (energy per transition × f).
         const Design d = loadDemo();
-        CountFrequencyGrid g;
-        g.countMin = 2;
-        g.countMax = 8;
-        g.frequencyMin_Hz = 4000.0;
-        g.frequencyMax_Hz = 32000.0;
-        g.frequencies = 3;
-        g.point = 1;
+        const CountFrequencyGrid g = grid(2, 8, 4000.0, 32000.0);
         const SweepResult r = sweepCountAndFrequency(d, g);
         QVERIFY(r.ok());
         for (int n = g.countMin + 1; n <= g.countMax; ++n)
