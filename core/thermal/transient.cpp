@@ -147,6 +147,7 @@ TransientStepper::TransientStepper(const TransientNetwork& net, TransientState s
     }
     for (std::size_t i = 0; i + 1 < m_lnRise.size(); ++i)
         m_slope.push_back((m_lnR[i + 1] - m_lnR[i]) / (m_lnRise[i + 1] - m_lnRise[i]));
+    m_before = m_state;
 }
 
 // The same law as RsaCurve::at (log-log interpolation, constant beyond the ends), with the
@@ -192,20 +193,27 @@ void TransientStepper::advanceRamp(double dt, const std::vector<double>& p0, con
         m_cachedDt = dt;
     }
     const bool ramp = &p0 != &p1;
+    // The new state is written into m_before (reading m_state), then the two swap: m_before keeps
+    // the state this step started from, for undo(). setState() may have changed m_state's shape.
+    if (m_before.stageRise_K.size() != n || m_before.power_W.size() != n)
+        m_before = m_state;
+    for (std::size_t k = 0; k < n; ++k)
+        m_before.stageRise_K[k].resize(m_state.stageRise_K[k].size());
     double total0 = 0.0, total1 = 0.0;
     for (std::size_t k = 0; k < n; ++k) {
         const auto& z = m_net.sources[k].zthJc;
-        auto& th = m_state.stageRise_K[k];
+        const auto& th = m_state.stageRise_K[k];
+        auto& out = m_before.stageRise_K[k];
         const auto& a = m_decay[k];
         if (ramp) {
             const double dp = p1[k] - p0[k];
             for (std::size_t i = 0; i < z.size(); ++i)
-                th[i] = th[i] * a[i] + z[i].r_KperW * (p1[k] - a[i] * p0[k] - dp * m_lag[k][i]);
+                out[i] = th[i] * a[i] + z[i].r_KperW * (p1[k] - a[i] * p0[k] - dp * m_lag[k][i]);
         } else {
             for (std::size_t i = 0; i < z.size(); ++i)
-                th[i] = th[i] * a[i] + z[i].r_KperW * p0[k] * (1.0 - a[i]);
+                out[i] = th[i] * a[i] + z[i].r_KperW * p0[k] * (1.0 - a[i]);
         }
-        m_state.power_W[k] = p1[k];
+        m_before.power_W[k] = p1[k];
         total0 += m_net.sources[k].count * p0[k];
         total1 += m_net.sources[k].count * p1[k];
     }
@@ -220,7 +228,8 @@ void TransientStepper::advanceRamp(double dt, const std::vector<double>& p0, con
     } else {
         rise = sinkRise(m_net.rsa, total1);
     }
-    m_state.heatsink_C = ambient_C + rise;
+    m_before.heatsink_C = ambient_C + rise;
+    std::swap(m_state, m_before);
 }
 
 double TransientStepper::junction_C(std::size_t k) const {
@@ -288,7 +297,7 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
 
     const std::size_t n = net.sources.size();
     TransientStepper stepper(net, initial);
-    std::vector<double> tj(n), tjRef(n), powerRef(n, 0.0), power(n, 0.0);
+    std::vector<double> tj(n), tjRef(n), tjEnd(n), powerRef(n, 0.0), power(n, 0.0);
     out.tjMax_C.assign(n, -std::numeric_limits<double>::infinity());
     out.tjMaxTime_s.assign(n, 0.0);
     out.heatsinkMax_C = stepper.state().heatsink_C;
@@ -357,11 +366,12 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
                             std::to_string(si + 1) + " at " + std::to_string(time) + " s");
                         return out;
                     }
-                const TransientState before = stepper.state();
                 stepper.advance(dt, power, seg.ambient_C);
                 double jump = 0.0;
-                for (std::size_t k = 0; k < n; ++k)
-                    jump = std::max(jump, std::abs(stepper.junction_C(k) - tj[k]));
+                for (std::size_t k = 0; k < n; ++k) {
+                    tjEnd[k] = stepper.junction_C(k);
+                    jump = std::max(jump, std::abs(tjEnd[k] - tj[k]));
+                }
                 const double allowed = std::max(kMaxStepRise_K, 4.0 * opt.resolveStep_K);
                 bool redo = false;
                 if (jump > allowed) {
@@ -372,9 +382,7 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
                     // budget of extra solves per run (a bank that runs away would otherwise ask for
                     // parts at every step). Losses that hardly move keep the one step: the next step
                     // starts from the losses at its end.
-                    std::vector<double> tjEnd(n), endPower;
-                    for (std::size_t k = 0; k < n; ++k)
-                        tjEnd[k] = stepper.junction_C(k);
+                    std::vector<double> endPower;
                     losses.resolve(si, tjEnd, endPower);
                     ++out.resolves;
                     for (std::size_t k = 0; k < n && k < endPower.size(); ++k)
@@ -386,7 +394,7 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
                     }
                 }
                 if (redo) {
-                    stepper.setState(before);
+                    stepper.undo();
                     const int parts = static_cast<int>(std::min(kMaxSubSteps, 2.0 * std::ceil(jump / allowed)));
                     subStepBudget -= parts;
                     const double h = dt / parts;
@@ -406,12 +414,13 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
                         for (std::size_t k = 0; k < n; ++k)
                             now[k] = stepper.junction_C(k);
                     }
+                    tjEnd = now;
                 }
                 time += dt;
                 repTime += dt;
                 ++out.steps;
                 for (std::size_t k = 0; k < n; ++k) {
-                    const double t = stepper.junction_C(k);
+                    const double t = tjEnd[k];
                     tj[k] = t;
                     if (t > out.tjMax_C[k]) {
                         out.tjMax_C[k] = t;

@@ -148,12 +148,16 @@ class TransientStepper {
     void setHeatsink(double heatsink_C) { m_state.heatsink_C = heatsink_C; }
     void setState(const TransientState& state) { m_state = state; }
     const TransientState& state() const { return m_state; }
+    /// Back to the state before the last advance (once per advance: the stepper keeps one
+    /// earlier state, so that a step can be redone without copying the state every step).
+    void undo() { std::swap(m_state, m_before); }
 
   private:
     double sinkResistance(double rise_K);
 
     const TransientNetwork& m_net;
     TransientState m_state;
+    TransientState m_before; ///< the state before the last advance (same shape as m_state)
     double m_cachedDt = -1.0;
     std::vector<std::vector<double>> m_decay;     ///< e^(−dt/τ) per stage for m_cachedDt
     std::vector<std::vector<double>> m_lag;       ///< τ·(1 − e^(−dt/τ))/dt per stage
