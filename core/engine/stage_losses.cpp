@@ -864,9 +864,9 @@ LossPoint computeLossPoint(const LossPlan& plan, const Design& d, const LossPoin
                 if (ratio > worstRatio || (pt.check.failed && !failed)) {
                     worstRatio = ratio;
                     worstMessage = fmt::format("device {} {}: {} A at {} V for {} against the SOA limit of {} A ({})", k,
-                                               pt.name, num(pt.check.value), num(von), num(onTime) + " s",
+                                               pt.name, num(pt.check.value), num(von), units::format(onTime, units::Unit::Second, 3),
                                                num(pt.check.limit),
-                                               pt.curvePulse_s > 0.0 ? "curve of " + num(pt.curvePulse_s) + " s pulses"
+                                               pt.curvePulse_s > 0.0 ? "curve of " + units::format(pt.curvePulse_s, units::Unit::Second, 3) + " pulses"
                                                                      : std::string("DC curve"));
                 }
                 failed = failed || pt.check.failed;
