@@ -462,7 +462,12 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
             if (it >= 2 * kStall && !(merit < 0.5 * meritAgo[static_cast<std::size_t>(it % kStall)]))
                 break;
             meritAgo[static_cast<std::size_t>(it % kStall)] = merit;
-            if (!useArrow() || !arrowSolve(-m_r, dx)) {
+            bool solved = false;
+            if constexpr (m == 1)
+                solved = scalarFactor() && scalarStep(dx);
+            else
+                solved = useArrow() && arrowSolve(-m_r, dx);
+            if (!solved) {
                 m_lu.compute(m_J);
                 dx = m_lu.solve(-m_r);
             }
@@ -775,7 +780,156 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
         return true;
     }
 
+    // One-unknown legs (MOSFET): the arrow elimination above in scalar arithmetic, without
+    // allocations. Leg row k reads a_k·x_k + J_k0·x_0 + J_k1·x_1 = b_k (a_k = ∂r_k/∂I_k, the only
+    // entry of the leg block), so x_k = b_k/a_k − w_k0·x_0 − w_k1·x_1 with w_k = J_kg/a_k, and the
+    // border rows reduce to the 2×2 Schur complement S = J_gg − Σ_k J_gk·w_kᵀ (Golub & Van Loan,
+    // "Matrix Computations", block elimination of a bordered block-diagonal matrix; from memory).
+    // O(N) per right-hand side instead of the dense LU's O(N³).
+    // There is no pivoting across legs, so the factorisation is accepted only when it is safe,
+    // judged by pivot sizes (Gaussian elimination's error is bounded by eps times the growth of the
+    // eliminated entries; Golub & Van Loan, ibid., from memory): every leg pivot a_k non-zero and
+    // its multipliers finite (for a MOSFET a_k = 1 + channel conductances × series resistances
+    // ≥ 1), each row of S not cancelled below 1e-8 of the sum of magnitudes it was formed from
+    // (S then keeps about eight significant digits), and S's own second pivot not cancelled
+    // below 1e-12 (S, and so J, numerically singular). Otherwise the caller takes the dense LU.
+    bool scalarFactor() {
+        static_assert(m == 1);
+        const auto nn = static_cast<std::size_t>(n);
+        m_inv.resize(nn);
+        m_w0.resize(nn);
+        m_w1.resize(nn);
+        double s00 = m_J(0, 0), s01 = m_J(0, 1), s10 = m_J(1, 0), s11 = m_J(1, 1);
+        double g00 = std::abs(s00), g01 = std::abs(s01), g10 = std::abs(s10), g11 = std::abs(s11);
+        for (int k = 0; k < n; ++k) {
+            const auto kk = static_cast<std::size_t>(k);
+            const int b = 2 + k;
+            const double a = m_J(b, b);
+            if (!(a != 0.0))
+                return false;
+            const double inv = 1.0 / a;
+            const double w0 = m_J(b, 0) * inv, w1 = m_J(b, 1) * inv;
+            m_inv[kk] = inv;
+            m_w0[kk] = w0;
+            m_w1[kk] = w1;
+            const double c0 = m_J(0, b), c1 = m_J(1, b);
+            s00 -= c0 * w0;
+            s01 -= c0 * w1;
+            s10 -= c1 * w0;
+            s11 -= c1 * w1;
+            g00 += std::abs(c0 * w0);
+            g01 += std::abs(c0 * w1);
+            g10 += std::abs(c1 * w0);
+            g11 += std::abs(c1 * w1);
+        }
+        if (!std::isfinite(g00 + g01 + g10 + g11))
+            return false;
+        if (!(std::max(std::abs(s00), std::abs(s01)) >= 1e-8 * std::max(g00, g01)) ||
+            !(std::max(std::abs(s10), std::abs(s11)) >= 1e-8 * std::max(g10, g11)))
+            return false;
+        // 2×2 LU of S with row pivoting.
+        m_schurSwap = std::abs(s10) > std::abs(s00);
+        if (m_schurSwap) {
+            std::swap(s00, s10);
+            std::swap(s01, s11);
+        }
+        if (!(s00 != 0.0))
+            return false;
+        m_schurL = s10 / s00;
+        m_schurU00 = s00;
+        m_schurU01 = s01;
+        m_schurU11 = s11 - m_schurL * s01;
+        return std::abs(m_schurU11) > 1e-12 * std::max(std::abs(s11), std::abs(m_schurL * s01));
+    }
+
+    // The shared-node unknowns from the reduced border right-hand side (r0, r1) = b_g − Σ J_gk·b_k/a_k.
+    void schurSolve(double r0, double r1, double& x0, double& x1) const {
+        if (m_schurSwap)
+            std::swap(r0, r1);
+        r1 -= m_schurL * r0;
+        x1 = r1 / m_schurU11;
+        x0 = (r0 - m_schurU01 * x1) / m_schurU00;
+    }
+
+    // Newton step J·dx = −r after scalarFactor().
+    bool scalarStep(Eigen::VectorXd& dx) const {
+        double r0 = -m_r(0), r1 = -m_r(1);
+        for (int k = 0; k < n; ++k) {
+            const int b = 2 + k;
+            const double y = -m_r(b) * m_inv[static_cast<std::size_t>(k)];
+            dx(b) = y;
+            r0 -= m_J(0, b) * y;
+            r1 -= m_J(1, b) * y;
+        }
+        double x0, x1;
+        schurSolve(r0, r1, x0, x1);
+        dx(0) = x0;
+        dx(1) = x1;
+        for (int k = 0; k < n; ++k) {
+            const auto kk = static_cast<std::size_t>(k);
+            dx(2 + k) -= m_w0[kk] * x0 + m_w1[kk] * x1;
+        }
+        return dx.allFinite();
+    }
+
+    // The sensitivity of one-unknown legs by the scalar elimination. Right-hand side j < N is
+    // −∂F/∂T_j: non-zero only in the border rows and leg j's row, so its reduced border
+    // right-hand side costs O(1); only the shared nodes' d(V_G, V_C)/dT_j = xg_j are kept per
+    // column, and the rest comes out factored (see ElectricalPoint::sFactored), O(N) in all:
+    //   dI_k/dT_j = δ_kj·y_k − w_k·xg_j  with y_k = −(∂r_k/∂T)/a_k,
+    //   S_kj = dP_k/dT_j = δ_kj·(∂P_k/∂T + ∂P_k/∂I_k·y_k) + (∂P_k/∂V_g − ∂P_k/∂I_k·w_k)·xg_j.
+    bool scalarSensitivity(ElectricalPoint& pt) {
+        static_assert(m == 1);
+        if (!scalarFactor())
+            return false;
+        const auto nn = static_cast<std::size_t>(n);
+        pt.sRight.resize(2 * nn);
+        pt.sDiag.resize(nn);
+        pt.sLeft.resize(2 * nn);
+        pt.xDiag.resize(nn);
+        pt.xLeft.resize(2 * nn);
+        for (std::size_t j = 0; j < nn; ++j) {
+            const LegOut<D>& o = m_out[j];
+            const double dIg = o.ig.d[3];
+            const double dIc = o.ic.d[3];
+            const double b0 = -(m_feed == BankFeed::Linear ? dIc : -m_rDrv * dIg);
+            const double b1 = m_feed == BankFeed::Current ? -dIc : 0.0;
+            const double y = -m_dT[j][0] * m_inv[j];
+            const int col = 2 + static_cast<int>(j);
+            double x0, x1;
+            schurSolve(b0 - m_J(0, col) * y, b1 - m_J(1, col) * y, x0, x1);
+            pt.sRight[j] = x0;
+            pt.sRight[nn + j] = x1;
+            const D& p = o.pDev;
+            pt.xDiag[j] = y;
+            pt.xLeft[2 * j] = -m_w0[j];
+            pt.xLeft[2 * j + 1] = -m_w1[j];
+            pt.sDiag[j] = p.d[3] + p.d[2] * y;
+            pt.sLeft[2 * j] = p.d[0] - p.d[2] * m_w0[j];
+            pt.sLeft[2 * j + 1] = p.d[1] - p.d[2] * m_w1[j];
+        }
+        // The load current's right-hand side: only the border rows.
+        double x0, x1;
+        schurSolve(m_feed == BankFeed::Linear ? 1.0 : 0.0, m_feed == BankFeed::Current ? 1.0 : 0.0, x0, x1);
+        const auto finite = [](const std::vector<double>& v) {
+            return std::all_of(v.begin(), v.end(), [](double a) { return std::isfinite(a); });
+        };
+        if (!std::isfinite(x1) || !finite(pt.sRight) || !finite(pt.sDiag) || !finite(pt.sLeft) ||
+            !finite(pt.xDiag) || !finite(pt.xLeft))
+            return false;
+        pt.dVcdLoad = x1;
+        pt.sFactored = true;
+        pt.sOn.clear();
+        pt.dxdT.clear();
+        return true;
+    }
+
     void computeSensitivity(ElectricalPoint& pt) {
+        if constexpr (m == 1) {
+            if (scalarSensitivity(pt))
+                return;
+        }
+        pt.sFactored = false;
         // dX/dT_j = −J⁻¹·∂F/∂T_j at the converged point (m_J, m_out are at pt.x).
         // One more right-hand side: the load current (the incremental resistance dV_C/dI).
         Eigen::MatrixXd b = Eigen::MatrixXd::Zero(m_nx, n + 1);
@@ -831,6 +985,9 @@ template <class Leg> class TypedNetwork final : public BankNetwork::Impl {
     std::vector<Eigen::FullPivLU<Eigen::Matrix<double, m, m>>> m_legLu;     ///< arrowSolve's leg blocks
     std::vector<Eigen::Matrix<double, m, 2>> m_legInvB;                      ///< J_kk⁻¹·J_kg
     std::vector<Eigen::Matrix<double, m, Eigen::Dynamic>> m_legInvR;        ///< J_kk⁻¹·B_k
+    std::vector<double> m_inv, m_w0, m_w1; ///< scalarFactor: 1/a_k, J_k0/a_k, J_k1/a_k
+    bool m_schurSwap = false;                ///< scalarFactor: the 2×2 Schur complement's LU
+    double m_schurL = 0.0, m_schurU00 = 1.0, m_schurU01 = 0.0, m_schurU11 = 1.0;
     std::vector<LegOut<D>> m_out;
     std::vector<double> m_trial;
     std::vector<std::array<double, m>> m_dT; ///< ∂r/∂T of each leg row
@@ -897,6 +1054,21 @@ BankNetwork::BankNetwork(const BankProblem& p) {
         }
         m_impl = std::make_unique<TypedNetwork<BipolarLeg>>(p, std::move(legs));
     }
+}
+
+std::vector<double> denseSensitivity(const ElectricalPoint& pt) {
+    if (!pt.sFactored)
+        return pt.sOn;
+    const std::size_t nn = pt.sDiag.size();
+    std::vector<double> s(nn * nn);
+    for (std::size_t k = 0; k < nn; ++k) {
+        const double l0 = pt.sLeft[2 * k], l1 = pt.sLeft[2 * k + 1];
+        for (std::size_t j = 0; j < nn; ++j) {
+            const double v = l0 * pt.sRight[j] + l1 * pt.sRight[nn + j] + (k == j ? pt.sDiag[k] : 0.0);
+            s[k * nn + j] = std::isfinite(v) ? v : 0.0;
+        }
+    }
+    return s;
 }
 
 BankNetwork::~BankNetwork() = default;

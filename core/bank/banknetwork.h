@@ -30,10 +30,27 @@ struct ElectricalPoint {
     std::vector<double> pLeg_W;
     std::vector<double> pDrive_W;
     std::vector<std::string> region; ///< filled by fillRegions()
-    std::vector<double> sOn;         ///< N×N row-major dP_on,k/dT_j (when requested)
-    std::vector<double> dxdT;        ///< n×N row-major dX/dT_j of the unknowns (when requested)
+    std::vector<double> sOn;         ///< N×N row-major dP_on,k/dT_j (when requested and not sFactored)
+    std::vector<double> dxdT;        ///< n×N row-major dX/dT_j of the unknowns (the same)
+    /// The same two derivatives factored (when requested, for the legs that allow it). A leg's
+    /// unknowns depend on another leg's temperature only through the two shared nodes, so with
+    /// xg_j = d(V_G, V_C)/dT_j (sRight, 2×N row-major):
+    ///   dP_on,k/dT_j = δ_kj·sDiag_k + sLeft_k·xg_j       (sLeft N×2 row-major)
+    ///   dX_u/dT_j    = δ_k(u)j·xDiag_u + xLeft_u·xg_j     (each leg unknown u of leg k(u); xLeft (n−2)×2)
+    /// and dX/dT of V_G, V_C are xg itself: S is a diagonal plus a rank-2 term, which lets the
+    /// thermal Newton form Z·S and its first-order predictions in O(N²) and O(N).
+    bool sFactored = false;
+    std::vector<double> sDiag;
+    std::vector<double> sLeft;
+    std::vector<double> sRight;
+    std::vector<double> xDiag;
+    std::vector<double> xLeft;
     double dVcdLoad = 0.0;           ///< dV_C/dI_load at fixed temperatures (current and linear feeds)
 };
+
+/// dP_on/dT as the N×N row-major matrix, from whichever form the point carries (sOn, or the
+/// factored form); empty when the point has no sensitivity.
+std::vector<double> denseSensitivity(const ElectricalPoint& pt);
 
 class BankNetwork {
   public:

@@ -396,7 +396,7 @@ void verdictIfAsked(const BankProblem& p, BankSolution& sol) {
 // caller skips the analysis).
 void judge(const Context& c, const detail::ElectricalPoint& pt, BankSolution& sol) {
     const BankProblem& p = c.p;
-    std::vector<double> s(pt.sOn);
+    std::vector<double> s = detail::denseSensitivity(pt);
     for (double& v : s)
         v *= powerScale(p, pt);
     if (p.stabilityAnalysis) {
@@ -677,20 +677,42 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         }
         // Newton step on G(T) = T − T_amb − Z·P(T): (I − Z·S)·ΔT = −G. (The ripple scale's own
         // temperature dependence, of order (r − 1)·d(R_b·I/V_C)/dT, is left out of S.)
-        // (Row by row, each sum Σ_l Z_kl·scale·S_lj accumulated in the order of l.)
         const double scale = powerScale(p, pt);
-        std::vector<double> zs(nn);
-        for (int k = 0; k < n; ++k) {
+        for (int k = 0; k < n; ++k)
             gv(k) = -g[static_cast<std::size_t>(k)];
-            std::fill(zs.begin(), zs.end(), 0.0);
-            for (int l = 0; l < n; ++l) {
-                const double zl = c.th.at(k, l) * scale;
-                const double* sRow = &pt.sOn[static_cast<std::size_t>(l * n)];
-                for (std::size_t j = 0; j < nn; ++j)
-                    zs[j] += zl * sRow[j];
+        if (pt.sFactored) {
+            // S = diag(d) + L·R (L: N×2, R: 2×N; see detail::ElectricalPoint), so
+            // Z·S = Z·diag(d) + (Z·L)·R: O(N²) instead of the O(N³) product.
+            for (int k = 0; k < n; ++k) {
+                double zl0 = 0.0, zl1 = 0.0;
+                for (int l = 0; l < n; ++l) {
+                    const double z = c.th.at(k, l);
+                    zl0 += z * pt.sLeft[static_cast<std::size_t>(2 * l)];
+                    zl1 += z * pt.sLeft[static_cast<std::size_t>(2 * l + 1)];
+                }
+                zl0 *= scale;
+                zl1 *= scale;
+                for (int j = 0; j < n; ++j) {
+                    const auto jj = static_cast<std::size_t>(j);
+                    const double zs = scale * c.th.at(k, j) * pt.sDiag[jj] + zl0 * pt.sRight[jj] +
+                                      zl1 * pt.sRight[nn + jj];
+                    a(k, j) = (k == j ? 1.0 : 0.0) - zs;
+                }
             }
-            for (int j = 0; j < n; ++j)
-                a(k, j) = (k == j ? 1.0 : 0.0) - zs[static_cast<std::size_t>(j)];
+        } else {
+            // (Row by row, each sum Σ_l Z_kl·scale·S_lj accumulated in the order of l.)
+            std::vector<double> zs(nn);
+            for (int k = 0; k < n; ++k) {
+                std::fill(zs.begin(), zs.end(), 0.0);
+                for (int l = 0; l < n; ++l) {
+                    const double zl = c.th.at(k, l) * scale;
+                    const double* sRow = &pt.sOn[static_cast<std::size_t>(l * n)];
+                    for (std::size_t j = 0; j < nn; ++j)
+                        zs[j] += zl * sRow[j];
+                }
+                for (int j = 0; j < n; ++j)
+                    a(k, j) = (k == j ? 1.0 : 0.0) - zs[static_cast<std::size_t>(j)];
+            }
         }
         const Eigen::PartialPivLU<Eigen::MatrixXd> lu(a);
         Eigen::VectorXd dt = lu.solve(gv);
@@ -715,10 +737,25 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
                 tTrial[k] = std::clamp(t[k] + alpha * dt(static_cast<long>(k)), c.ta_K - 50.0, c.cap_K);
             // Start the network from its first-order prediction x + dX/dT·ΔT.
             x = xHere;
-            if (pt.dxdT.size() == xHere.size() * nn)
+            if (pt.sFactored && xHere.size() > 2 && pt.xDiag.size() == xHere.size() - 2 &&
+                pt.xLeft.size() == 2 * pt.xDiag.size() && pt.sRight.size() == 2 * nn) {
+                // The factored form (see detail::ElectricalPoint): O(n).
+                double dg0 = 0.0, dg1 = 0.0;
+                for (std::size_t k = 0; k < nn; ++k) {
+                    dg0 += pt.sRight[k] * (tTrial[k] - t[k]);
+                    dg1 += pt.sRight[nn + k] * (tTrial[k] - t[k]);
+                }
+                x[0] += dg0;
+                x[1] += dg1;
+                const std::size_t perLeg = pt.xDiag.size() / nn;
+                for (std::size_t u = 0; u < pt.xDiag.size(); ++u)
+                    x[2 + u] += pt.xDiag[u] * (tTrial[u / perLeg] - t[u / perLeg]) + pt.xLeft[2 * u] * dg0 +
+                                pt.xLeft[2 * u + 1] * dg1;
+            } else if (pt.dxdT.size() == xHere.size() * nn) {
                 for (std::size_t i = 0; i < x.size(); ++i)
                     for (std::size_t k = 0; k < nn; ++k)
                         x[i] += pt.dxdT[i * nn + k] * (tTrial[k] - t[k]);
+            }
             const bool ok = solveAt(tTrial, trial, gTrial);
             if (ok) {
                 double trialMax = 0.0;
@@ -771,7 +808,7 @@ BankStability analyseStability(const BankProblem& p, const BankSolution& at) {
         return {};
     const ThermalMatrices th = buildThermalMatrices(
         {static_cast<int>(nn), p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW, p.neighbourCoupling_KperW});
-    std::vector<double> s(pt.sOn);
+    std::vector<double> s = detail::denseSensitivity(pt);
     for (double& v : s)
         v *= powerScale(p, pt);
     return stabilityOf(th, s, p.feed);
