@@ -69,14 +69,24 @@ class ProblemList {
         if (!ok)
             m_problems.push_back({std::move(field), std::move(message)});
     }
-    void positive(double v, const std::string& field, const std::string& what) {
-        need(finite(v) && v > 0.0, field, fmt::format("{} is {}: {} must be a positive number", field, num(v), what));
+    /// need() with the message made only when !ok.
+    template <class Message> void needOr(bool ok, const char* field, Message message) {
+        if (!ok)
+            m_problems.push_back({field, message()});
     }
-    void nonNegative(double v, const std::string& field, const std::string& what) {
-        need(finite(v) && v >= 0.0, field, fmt::format("{} is {}: {} must be zero or positive", field, num(v), what));
+    // The messages are formatted only for a field that fails (evaluate() checks every field of
+    // every design it is given, and most pass).
+    void positive(double v, const std::string& field, const char* what) {
+        if (!(finite(v) && v > 0.0))
+            need(false, field, fmt::format("{} is {}: {} must be a positive number", field, num(v), what));
     }
-    void isFinite(double v, const std::string& field, const std::string& what) {
-        need(finite(v), field, fmt::format("{} is not a number: {} must be finite", field, what));
+    void nonNegative(double v, const std::string& field, const char* what) {
+        if (!(finite(v) && v >= 0.0))
+            need(false, field, fmt::format("{} is {}: {} must be zero or positive", field, num(v), what));
+    }
+    void isFinite(double v, const std::string& field, const char* what) {
+        if (!finite(v))
+            need(false, field, fmt::format("{} is not a number: {} must be finite", field, what));
     }
     const std::vector<InputProblem>& problems() const { return m_problems; }
 
@@ -90,8 +100,8 @@ std::vector<InputProblem> designProblems(const Design& d) {
     p.nonNegative(d.supply.internalResistance_ohm, "supply.internalResistance_ohm", "the battery resistance");
 
     const auto& m = d.motor;
-    p.need(m.kind == "permanentMagnet" || m.kind == "seriesWound", "motor.kind",
-           fmt::format("motor.kind is \"{}\": it must be \"permanentMagnet\" or \"seriesWound\"", m.kind));
+    p.needOr(m.kind == "permanentMagnet" || m.kind == "seriesWound", "motor.kind",
+             [&] { return fmt::format("motor.kind is \"{}\": it must be \"permanentMagnet\" or \"seriesWound\"", m.kind); });
     p.nonNegative(m.armatureResistance20_ohm, "motor.armatureResistance20_ohm", "the armature resistance");
     p.isFinite(m.windingTemperature_C, "motor.windingTemperature_C", "the winding temperature");
     p.positive(m.inductance_H, "motor.inductance_H", "the armature inductance");
@@ -109,15 +119,16 @@ std::vector<InputProblem> designProblems(const Design& d) {
     }
 
     p.positive(d.pwm.frequency_Hz, "pwm.frequency_Hz", "the PWM frequency");
-    p.need(finite(d.pwm.maxDuty) && d.pwm.maxDuty > 0.0 && d.pwm.maxDuty <= 1.0, "pwm.maxDuty",
-           fmt::format("pwm.maxDuty is {}: it must lie in (0, 1]", num(d.pwm.maxDuty)));
+    p.needOr(finite(d.pwm.maxDuty) && d.pwm.maxDuty > 0.0 && d.pwm.maxDuty <= 1.0, "pwm.maxDuty",
+             [&] { return fmt::format("pwm.maxDuty is {}: it must lie in (0, 1]", num(d.pwm.maxDuty)); });
     p.nonNegative(d.pwm.currentLimit_A, "pwm.currentLimit_A", "the current limit (0 = none)");
 
     const auto& b = d.bank;
-    p.need(b.count >= 1, "bank.count", fmt::format("bank.count is {}: the bank needs at least one device", b.count));
+    p.needOr(b.count >= 1, "bank.count",
+             [&] { return fmt::format("bank.count is {}: the bank needs at least one device", b.count); });
     const auto& s = b.device;
-    p.need(s.kind == "mosfet" || s.kind == "bipolar" || s.kind == "darlington", "bank.device.kind",
-           fmt::format("bank.device.kind is \"{}\": it must be \"mosfet\", \"bipolar\" or \"darlington\"", s.kind));
+    p.needOr(s.kind == "mosfet" || s.kind == "bipolar" || s.kind == "darlington", "bank.device.kind",
+             [&] { return fmt::format("bank.device.kind is \"{}\": it must be \"mosfet\", \"bipolar\" or \"darlington\"", s.kind); });
     if (s.kind == "mosfet") {
         p.positive(s.mosfet.rdsOn25_ohm, "bank.device.mosfet.rdsOn25_ohm", "R_ds(on) at 25 °C");
         p.isFinite(s.mosfet.rdsOnTempExponent, "bank.device.mosfet.rdsOnTempExponent", "the R_ds(on) exponent");
@@ -137,11 +148,14 @@ std::vector<InputProblem> designProblems(const Design& d) {
     p.nonNegative(s.rthJc_KperW, "bank.device.rthJc_KperW", "R_th,jc");
     p.nonNegative(b.ballast_ohm, "bank.ballast_ohm", "the ballast resistance");
     p.nonNegative(b.legResistance_ohm, "bank.legResistance_ohm", "the leg resistance");
-    p.need(finite(b.derating) && b.derating > 0.0 && b.derating <= 1.0, "bank.derating",
-           fmt::format("bank.derating is {}: it must lie in (0, 1]", num(b.derating)));
+    p.needOr(finite(b.derating) && b.derating > 0.0 && b.derating <= 1.0, "bank.derating",
+             [&] { return fmt::format("bank.derating is {}: it must lie in (0, 1]", num(b.derating)); });
     p.positive(b.sharingTarget, "bank.sharingTarget", "the accepted max/min current ratio");
     for (std::size_t k = 0; k < b.devices.size(); ++k) {
         const auto& dev = b.devices[k];
+        if (finite(dev.rdsOnDeviation) && dev.rdsOnDeviation > -1.0 && finite(dev.ballastDeviation_ohm) &&
+            finite(dev.legResistanceDeviation_ohm))
+            continue; // the usual case: no field names to build
         const std::string f = fmt::format("bank.devices[{}]", k);
         p.need(finite(dev.rdsOnDeviation) && dev.rdsOnDeviation > -1.0, f + ".rdsOnDeviation",
                fmt::format("{}.rdsOnDeviation is {}: it must be above −1 (R_ds(on) stays positive)", f,
@@ -149,8 +163,8 @@ std::vector<InputProblem> designProblems(const Design& d) {
         p.isFinite(dev.ballastDeviation_ohm, f + ".ballastDeviation_ohm", "the ballast deviation");
         p.isFinite(dev.legResistanceDeviation_ohm, f + ".legResistanceDeviation_ohm", "the leg deviation");
     }
-    p.need(b.diodeCount >= 1, "bank.diodeCount",
-           fmt::format("bank.diodeCount is {}: the low-side chopper needs a freewheel diode", b.diodeCount));
+    p.needOr(b.diodeCount >= 1, "bank.diodeCount",
+             [&] { return fmt::format("bank.diodeCount is {}: the low-side chopper needs a freewheel diode", b.diodeCount); });
     p.nonNegative(b.freewheelDiode.vf0_V, "bank.freewheelDiode.vf0_V", "the diode threshold voltage");
     p.nonNegative(b.freewheelDiode.rd_ohm, "bank.freewheelDiode.rd_ohm", "the diode resistance");
     p.isFinite(b.freewheelDiode.vfTempCoeff_VperK, "bank.freewheelDiode.vfTempCoeff_VperK", "dV_f/dT");
