@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 #include "core/engine/evaluate.h"
+#include "core/engine/evaluate_nearby.h"
 #include "core/engine/stage_losses.h"
 #include "core/engine/stage_protection.h"
 
@@ -69,14 +70,24 @@ class ProblemList {
         if (!ok)
             m_problems.push_back({std::move(field), std::move(message)});
     }
-    void positive(double v, const std::string& field, const std::string& what) {
-        need(finite(v) && v > 0.0, field, fmt::format("{} is {}: {} must be a positive number", field, num(v), what));
+    /// need() with the message made only when !ok.
+    template <class Message> void needOr(bool ok, const char* field, Message message) {
+        if (!ok)
+            m_problems.push_back({field, message()});
     }
-    void nonNegative(double v, const std::string& field, const std::string& what) {
-        need(finite(v) && v >= 0.0, field, fmt::format("{} is {}: {} must be zero or positive", field, num(v), what));
+    // The messages are formatted only for a field that fails (evaluate() checks every field of
+    // every design it is given, and most pass).
+    void positive(double v, const std::string& field, const char* what) {
+        if (!(finite(v) && v > 0.0))
+            need(false, field, fmt::format("{} is {}: {} must be a positive number", field, num(v), what));
     }
-    void isFinite(double v, const std::string& field, const std::string& what) {
-        need(finite(v), field, fmt::format("{} is not a number: {} must be finite", field, what));
+    void nonNegative(double v, const std::string& field, const char* what) {
+        if (!(finite(v) && v >= 0.0))
+            need(false, field, fmt::format("{} is {}: {} must be zero or positive", field, num(v), what));
+    }
+    void isFinite(double v, const std::string& field, const char* what) {
+        if (!finite(v))
+            need(false, field, fmt::format("{} is not a number: {} must be finite", field, what));
     }
     const std::vector<InputProblem>& problems() const { return m_problems; }
 
@@ -90,8 +101,8 @@ std::vector<InputProblem> designProblems(const Design& d) {
     p.nonNegative(d.supply.internalResistance_ohm, "supply.internalResistance_ohm", "the battery resistance");
 
     const auto& m = d.motor;
-    p.need(m.kind == "permanentMagnet" || m.kind == "seriesWound", "motor.kind",
-           fmt::format("motor.kind is \"{}\": it must be \"permanentMagnet\" or \"seriesWound\"", m.kind));
+    p.needOr(m.kind == "permanentMagnet" || m.kind == "seriesWound", "motor.kind",
+             [&] { return fmt::format("motor.kind is \"{}\": it must be \"permanentMagnet\" or \"seriesWound\"", m.kind); });
     p.nonNegative(m.armatureResistance20_ohm, "motor.armatureResistance20_ohm", "the armature resistance");
     p.isFinite(m.windingTemperature_C, "motor.windingTemperature_C", "the winding temperature");
     p.positive(m.inductance_H, "motor.inductance_H", "the armature inductance");
@@ -109,15 +120,16 @@ std::vector<InputProblem> designProblems(const Design& d) {
     }
 
     p.positive(d.pwm.frequency_Hz, "pwm.frequency_Hz", "the PWM frequency");
-    p.need(finite(d.pwm.maxDuty) && d.pwm.maxDuty > 0.0 && d.pwm.maxDuty <= 1.0, "pwm.maxDuty",
-           fmt::format("pwm.maxDuty is {}: it must lie in (0, 1]", num(d.pwm.maxDuty)));
+    p.needOr(finite(d.pwm.maxDuty) && d.pwm.maxDuty > 0.0 && d.pwm.maxDuty <= 1.0, "pwm.maxDuty",
+             [&] { return fmt::format("pwm.maxDuty is {}: it must lie in (0, 1]", num(d.pwm.maxDuty)); });
     p.nonNegative(d.pwm.currentLimit_A, "pwm.currentLimit_A", "the current limit (0 = none)");
 
     const auto& b = d.bank;
-    p.need(b.count >= 1, "bank.count", fmt::format("bank.count is {}: the bank needs at least one device", b.count));
+    p.needOr(b.count >= 1, "bank.count",
+             [&] { return fmt::format("bank.count is {}: the bank needs at least one device", b.count); });
     const auto& s = b.device;
-    p.need(s.kind == "mosfet" || s.kind == "bipolar" || s.kind == "darlington", "bank.device.kind",
-           fmt::format("bank.device.kind is \"{}\": it must be \"mosfet\", \"bipolar\" or \"darlington\"", s.kind));
+    p.needOr(s.kind == "mosfet" || s.kind == "bipolar" || s.kind == "darlington", "bank.device.kind",
+             [&] { return fmt::format("bank.device.kind is \"{}\": it must be \"mosfet\", \"bipolar\" or \"darlington\"", s.kind); });
     if (s.kind == "mosfet") {
         p.positive(s.mosfet.rdsOn25_ohm, "bank.device.mosfet.rdsOn25_ohm", "R_ds(on) at 25 °C");
         p.isFinite(s.mosfet.rdsOnTempExponent, "bank.device.mosfet.rdsOnTempExponent", "the R_ds(on) exponent");
@@ -137,11 +149,14 @@ std::vector<InputProblem> designProblems(const Design& d) {
     p.nonNegative(s.rthJc_KperW, "bank.device.rthJc_KperW", "R_th,jc");
     p.nonNegative(b.ballast_ohm, "bank.ballast_ohm", "the ballast resistance");
     p.nonNegative(b.legResistance_ohm, "bank.legResistance_ohm", "the leg resistance");
-    p.need(finite(b.derating) && b.derating > 0.0 && b.derating <= 1.0, "bank.derating",
-           fmt::format("bank.derating is {}: it must lie in (0, 1]", num(b.derating)));
+    p.needOr(finite(b.derating) && b.derating > 0.0 && b.derating <= 1.0, "bank.derating",
+             [&] { return fmt::format("bank.derating is {}: it must lie in (0, 1]", num(b.derating)); });
     p.positive(b.sharingTarget, "bank.sharingTarget", "the accepted max/min current ratio");
     for (std::size_t k = 0; k < b.devices.size(); ++k) {
         const auto& dev = b.devices[k];
+        if (finite(dev.rdsOnDeviation) && dev.rdsOnDeviation > -1.0 && finite(dev.ballastDeviation_ohm) &&
+            finite(dev.legResistanceDeviation_ohm))
+            continue; // the usual case: no field names to build
         const std::string f = fmt::format("bank.devices[{}]", k);
         p.need(finite(dev.rdsOnDeviation) && dev.rdsOnDeviation > -1.0, f + ".rdsOnDeviation",
                fmt::format("{}.rdsOnDeviation is {}: it must be above −1 (R_ds(on) stays positive)", f,
@@ -149,8 +164,8 @@ std::vector<InputProblem> designProblems(const Design& d) {
         p.isFinite(dev.ballastDeviation_ohm, f + ".ballastDeviation_ohm", "the ballast deviation");
         p.isFinite(dev.legResistanceDeviation_ohm, f + ".legResistanceDeviation_ohm", "the leg deviation");
     }
-    p.need(b.diodeCount >= 1, "bank.diodeCount",
-           fmt::format("bank.diodeCount is {}: the low-side chopper needs a freewheel diode", b.diodeCount));
+    p.needOr(b.diodeCount >= 1, "bank.diodeCount",
+             [&] { return fmt::format("bank.diodeCount is {}: the low-side chopper needs a freewheel diode", b.diodeCount); });
     p.nonNegative(b.freewheelDiode.vf0_V, "bank.freewheelDiode.vf0_V", "the diode threshold voltage");
     p.nonNegative(b.freewheelDiode.rd_ohm, "bank.freewheelDiode.rd_ohm", "the diode resistance");
     p.isFinite(b.freewheelDiode.vfTempCoeff_VperK, "bank.freewheelDiode.vfTempCoeff_VperK", "dV_f/dT");
@@ -220,7 +235,7 @@ struct Context {
     BankProblem bankProblem;            // the bank as a network (core/bank/), no load yet
 };
 
-Context makeContext(const Design& d) {
+Context makeContext(const Design& d, EvaluationMemory* memory) {
     Context c;
     c.design = &d;
     c.motor = makeMotorModel(d.motor);
@@ -241,7 +256,11 @@ Context makeContext(const Design& d) {
     c.diodes = std::max(1, d.bank.diodeCount);
     c.losses = planLosses(d);
     c.bankProblem = bankProblemFor(d);
-    c.heatsink = HeatsinkModel(d);
+    if (memory && memory->heatsink && memory->heatsinkOf == d.heatsink && memory->heatsinkCount == d.bank.count &&
+        memory->heatsinkDiodes == d.bank.diodeCount && memory->heatsinkArea_m2 == d.bank.interface.area_m2)
+        c.heatsink = *memory->heatsink; // the same model, with the grid points it has solved
+    else
+        c.heatsink = HeatsinkModel(d);
     for (const auto& dev : d.bank.devices) {
         c.ballast_ohm.push_back(std::max(0.0, d.bank.ballast_ohm + dev.ballastDeviation_ohm));
         c.leg_ohm.push_back(std::max(0.0, d.bank.legResistance_ohm + dev.legResistanceDeviation_ohm));
@@ -696,15 +715,44 @@ LossPoint lossesWithChecks(const Context& c, const Electrical& e) {
     return computeLossPoint(c.losses, *c.design, li);
 }
 
-BankSolve solveBankPoint(const Context& c, const Demand& demand) {
+BankSolve solveBankPoint(const Context& c, const Demand& demand, PointMemory* memory) {
     const Design& d = *c.design;
     const std::size_t n = d.bank.devices.size();
     const double diodeR = std::max(0.0, d.bank.freewheelDiode.rthJc_KperW) + c.rthCs_KperW;
+    constexpr std::size_t kY = 5; // the coupling state's leading entries (see y below)
+    const std::size_t ny = kY + 2 * n;
+    // A warm start: the settled state of the same point of a nearby design (EvaluationMemory).
+    const bool warm = memory && memory->valid && memory->last.y.size() == ny &&
+                      memory->last.resistance_ohm.size() == n && memory->mosfet == c.mosfet;
+    PointState start;
+    if (warm) {
+        start = memory->last;
+        const PointState& p0 = memory->previous;
+        const double step = memory->last.frequency_Hz - p0.frequency_Hz;
+        if (memory->previousValid && step != 0.0 && p0.y.size() == ny && p0.bankState.size() == start.bankState.size() &&
+            p0.resistance_ohm.size() == n) {
+            // Linear in the frequency through the last two states.
+            const double t = (d.pwm.frequency_Hz - memory->last.frequency_Hz) / step;
+            auto extrapolate = [t](std::vector<double>& v, const std::vector<double>& older) {
+                for (std::size_t i = 0; i < v.size(); ++i)
+                    v[i] += t * (v[i] - older[i]);
+            };
+            extrapolate(start.y, p0.y);
+            extrapolate(start.bankState, p0.bankState);
+            extrapolate(start.resistance_ohm, p0.resistance_ohm);
+        }
+    }
     // First waveform and loss point: one chopper solve with the simple model's bank at ambient (the
-    // rounds below settle the bus current of the stage's losses with everything else).
+    // rounds below settle the bus current of the stage's losses with everything else), or with the
+    // remembered state.
     const std::vector<double> ambient(n, d.heatsink.ambient_C);
     Electrical e;
-    {
+    if (warm) {
+        const std::vector<double>& y0 = start.y;
+        const std::vector<double> share(y0.begin() + kY, y0.begin() + static_cast<std::ptrdiff_t>(kY + n));
+        const std::vector<double> tj(y0.begin() + static_cast<std::ptrdiff_t>(kY + n), y0.end());
+        e = chopperWithBank(c, demand, y0[0], std::max(y0[1], 0.0), y0[2], y0[4], share, start.resistance_ohm, tj);
+    } else {
         std::vector<double> path(n), deviceOhm(n);
         for (std::size_t k = 0; k < n; ++k) {
             const double r = c.mosfet ? rdsOn(d.bank.device.mosfet, ambient[k]) * (1.0 + d.bank.devices[k].rdsOnDeviation)
@@ -722,6 +770,10 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     p.stabilityAnalysis = false; // the rounds want losses; the reported solution is judged below
     BankSolution b;
     bool have = false;
+    if (warm) {
+        b.state = start.bankState; // solveBank's warm start reads the state alone
+        have = true;
+    }
     bool settled = false;
     bool runaway = false;
     BankSolution runawayState;
@@ -736,20 +788,28 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
     // SIAM J. Numer. Anal. 49, 2011) cuts the rounds of this mildly contracting map to a few; with
     // the devices' states in y it needs more than one past round to capture the slow modes of a
     // bank whose switching heat moves its shares (depth 1 crept for tens of rounds).
-    constexpr std::size_t kY = 5;
-    const std::size_t ny = kY + 2 * n;
     std::vector<double> y(ny, 0.0), g(ny, 0.0), scale(ny, 1.0), f(ny, 0.0);
     std::vector<std::vector<double>> histF, histG; // the last rounds' residuals and maps
-    for (std::size_t k = 0; k < n; ++k) {
-        y[kY + k] = e.sharing.share[k];
-        y[kY + n + k] = d.heatsink.ambient_C;
-    }
-    {
+    if (warm) {
+        y = start.y;
+    } else {
+        for (std::size_t k = 0; k < n; ++k) {
+            y[kY + k] = e.sharing.share[k];
+            y[kY + n + k] = d.heatsink.ambient_C;
+        }
         double heat = e.diodeLoss_W + e.losses.freewheelRecovery_W;
         for (const double w : junctionHeat(e))
             heat += w;
         y[3] = std::max(0.0, c.heatsink.rthSa(heat));
         y[4] = e.busExtraUsed_A;
+    }
+    if (memory) {
+        // Until this point settles (the early returns below leave it so): the last state moves
+        // back, and the next design starts cold unless this one settles.
+        memory->previousValid = memory->valid && memory->last.frequency_Hz != d.pwm.frequency_Hz;
+        if (memory->previousValid)
+            memory->previous = std::move(memory->last);
+        memory->valid = false;
     }
     for (int round = 0; round < kMaxCouplingRounds; ++round) {
         s.iterations = round + 1;
@@ -821,8 +881,8 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             fmax = std::max(fmax, std::abs(f[i]));
         }
         // Settled (relative 1e-6: the bank's losses then balance the chopper's energy to well below
-        // 1e-6 of the input power); the first round's waveform came from the simple model, not y.
-        if (round > 0 && fmax <= 1e-6) {
+        // 1e-6 of the input power); a cold first round's waveform came from the simple model, not y.
+        if ((round > 0 || warm) && fmax <= 1e-6) {
             settled = true;
             break;
         }
@@ -843,7 +903,7 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
                     for (Eigen::Index j = 0; j < m; ++j)
                         yNext[i] -= gamma(j) * (g[i] - histG[static_cast<std::size_t>(j)][i]);
         }
-        if (round > 0) {
+        if (round > 0 || warm) {
             histF.push_back(f);
             histG.push_back(g);
             if (histF.size() > kMixingDepth) {
@@ -861,6 +921,27 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand) {
             tj[k] = y[kY + n + k];
         }
         e = chopperWithBank(c, demand, y[0], std::max(y[1], 0.0), y[2], y[4], share, resistance, tj);
+    }
+    if (memory) {
+        // What the next nearby design starts from: only a settled, regular state (a runaway or an
+        // unsettled point starts the next one cold).
+        memory->valid = settled && !runaway && b.converged && b.devices.size() == n;
+        if (memory->valid) {
+            PointState& last = memory->last;
+            if (memory->mosfet != c.mosfet)
+                memory->previousValid = false;
+            memory->mosfet = c.mosfet;
+            last.frequency_Hz = d.pwm.frequency_Hz;
+            last.y = y;
+            last.bankState = b.state;
+            last.resistance_ohm.resize(n);
+            for (std::size_t k = 0; k < n; ++k) {
+                const BankDeviceState& dv = b.devices[k];
+                last.resistance_ohm[k] = dv.current_A > 1e-9 ? std::max(dv.voltage_V / dv.current_A, 0.0) : 0.0;
+            }
+        } else {
+            memory->previousValid = false;
+        }
     }
     p.stabilityAnalysis = true;
     completeStability(p, b);
@@ -1135,7 +1216,7 @@ void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t in
 // One duty-profile segment.
 
 OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::size_t index, std::vector<Check>& checks,
-                                      bool full) {
+                                      bool full, PointMemory* memory) {
     const Design& d = *c.design;
     OperatingPointResult op;
     op.name = seg.name.empty() ? fmt::format("Segment {}", index + 1) : seg.name;
@@ -1191,7 +1272,7 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
     }
 
     const bool chopper = c.losses.topology == StageTopology::LowSideChopper;
-    BankSolve s = chopper ? solveBankPoint(c, demand) : solveBankSimple(c, demand);
+    BankSolve s = chopper ? solveBankPoint(c, demand, memory) : solveBankSimple(c, demand);
     const Electrical& e = s.electrical;
     const ChopperSolution& ch = e.chopper;
     const ChopperWaveform& w = ch.waveform;
@@ -1379,7 +1460,9 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
 
 } // namespace
 
-Results evaluate(const Design& input, const EvaluateOptions& options) {
+namespace {
+
+Results evaluateWith(const Design& input, const EvaluateOptions& options, EvaluationMemory* memory) {
     const bool full = options.bankStudies;
     Results r;
     r.design = input.meta.title;
@@ -1395,7 +1478,7 @@ Results evaluate(const Design& input, const EvaluateOptions& options) {
         r.warnings.push_back("the design has invalid fields; no operating point was computed");
         return r;
     }
-    const Context context = makeContext(d);
+    const Context context = makeContext(d, memory);
     if (!context.losses.problems.empty()) {
         for (const auto& p : context.losses.problems)
             r.checks.push_back(makeCheck("design.input", Severity::Fail, 0.0, 0.0, "", "field ranges", p.message,
@@ -1412,7 +1495,10 @@ Results evaluate(const Design& input, const EvaluateOptions& options) {
 
     bool any = false;
     for (std::size_t i = 0; i < d.dutyProfile.size(); ++i) {
-        OperatingPointResult op = evaluateSegment(context, d.dutyProfile[i], i, r.checks, full);
+        if (memory && memory->points.size() != d.dutyProfile.size())
+            memory->points.assign(d.dutyProfile.size(), PointMemory{});
+        OperatingPointResult op =
+            evaluateSegment(context, d.dutyProfile[i], i, r.checks, full, memory ? &memory->points[i] : nullptr);
         if (!op.notes.empty() && op.devices.empty()) {
             // The segment could not be set up: its reasons are input problems.
             for (const auto& note : op.notes)
@@ -1438,7 +1524,24 @@ Results evaluate(const Design& input, const EvaluateOptions& options) {
             sourceLosses(context, r, i, tj, p, lossMemory[std::min(i, lossMemory.size() - 1)]);
         },
         {options.thermalTransient, options.designStudies}, r);
+    if (memory) {
+        memory->heatsink = context.heatsink;
+        memory->heatsinkOf = d.heatsink;
+        memory->heatsinkCount = d.bank.count;
+        memory->heatsinkDiodes = d.bank.diodeCount;
+        memory->heatsinkArea_m2 = d.bank.interface.area_m2;
+    }
     return r;
+}
+
+} // namespace
+
+Results evaluate(const Design& design, const EvaluateOptions& options) {
+    return evaluateWith(design, options, nullptr);
+}
+
+Results evaluateNear(const Design& design, const EvaluateOptions& options, EvaluationMemory& memory) {
+    return evaluateWith(design, options, &memory);
 }
 
 Results evaluateFull(const Design& design) {

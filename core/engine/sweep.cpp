@@ -2,6 +2,7 @@
 #include "core/engine/sweep.h"
 
 #include "core/engine/evaluate.h"
+#include "core/engine/evaluate_nearby.h"
 #include "core/units/units.h"
 
 #include <algorithm>
@@ -110,21 +111,28 @@ SweepResult sweepCountAndFrequency(const Design& design, const CountFrequencyGri
 
     EvaluateOptions options;
     options.designStudies = false;
+    // Whole rows to each thread, each row in order of frequency: every cell starts its coupled
+    // solve from its left neighbour's settled state (evaluate_nearby.h). A row's cells depend on
+    // the row alone, so the map is the same whatever the number of threads.
+    // The largest banks first: they take longest, and the small ones then fill the threads' ends.
     std::atomic<int> next{0};
     auto work = [&] {
         Design d = base;
-        for (int i = next++; i < total; i = next++) {
-            // From the design's own devices each time, so that a cell never depends on the one
-            // this thread computed before it.
+        for (int k = next++; k < out.counts; k = next++) {
+            const int row = out.counts - 1 - k;
             d.bank.devices = base.bank.devices;
-            d.bank.count = grid.countMin + i / out.frequencies;
+            d.bank.count = grid.countMin + row;
             normalizeBank(d.bank);
-            d.pwm.frequency_Hz = freqs[static_cast<std::size_t>(i % out.frequencies)];
-            out.cells[static_cast<std::size_t>(i)] = cellOf(evaluate(d, options), d.bank.count, d.pwm.frequency_Hz);
+            EvaluationMemory memory;
+            for (int j = 0; j < out.frequencies; ++j) {
+                d.pwm.frequency_Hz = freqs[static_cast<std::size_t>(j)];
+                const auto i = static_cast<std::size_t>(row * out.frequencies + j);
+                out.cells[i] = cellOf(evaluateNear(d, options, memory), d.bank.count, d.pwm.frequency_Hz);
+            }
         }
     };
     const int hardware = static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
-    const int threads = std::clamp(grid.threads > 0 ? grid.threads : hardware, 1, std::max(1, total));
+    const int threads = std::clamp(grid.threads > 0 ? grid.threads : hardware, 1, std::max(1, out.counts));
     std::vector<std::thread> pool;
     for (int t = 1; t < threads; ++t)
         pool.emplace_back(work);

@@ -3,8 +3,12 @@
 // A design-space map: one operating point of a design evaluated for every combination of the
 // number of parallel switches and the PWM frequency, on every core. Each cell is the design with
 // bank.count and pwm.frequency_Hz replaced (devices added by normalizeBank are nominal parts) and
-// the duty profile cut to the chosen segment, evaluated by evaluate() without the design-wide
-// studies (stall, protection sizing: they do not change with the point's figures shown here).
+// the duty profile cut to the chosen segment, evaluated without the design-wide studies (stall,
+// protection sizing: they do not change with the point's figures shown here). A thread takes a
+// whole row (one device count) and goes along it in order of frequency, each cell starting its
+// coupled solve from its left neighbours' settled states (core/engine/evaluate_nearby.h): the
+// cells agree with a cold evaluate() of the same design within the solvers' tolerances, and the
+// map is the same whatever the number of threads.
 // The answer per cell is what a builder reads off such a map: can the point be reached, how hot
 // the hottest junction runs, what the stage dissipates, whether the bank is stable, and how many
 // checks fail there.
@@ -58,8 +62,8 @@ struct SweepResult {
 /// The frequencies of the grid's columns, in Hz.
 std::vector<double> gridFrequencies(const CountFrequencyGrid& grid);
 
-/// Evaluate every cell; deterministic (each cell depends on its own inputs only, whatever the
-/// number of threads).
+/// Evaluate every cell; deterministic (each cell depends on its own row only, whatever the number
+/// of threads).
 SweepResult sweepCountAndFrequency(const Design& design, const CountFrequencyGrid& grid);
 
 } // namespace amp

@@ -1,7 +1,9 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
-// The count × frequency map (core/engine/sweep.h): every cell is evaluate() of its own design copy,
-// whatever the number of threads; the grid's frequencies follow their formula; bad grids are
-// refused with the field named; and the map shows the trade's two well-known trends.
+// The count × frequency map (core/engine/sweep.h): the same map whatever the number of threads;
+// every cell agrees with a cold evaluate() of its own design copy within the solvers' tolerances
+// (the cells of a row start from their left neighbours' states); the grid's frequencies follow
+// their formula; bad grids are refused with the field named; and the map shows the trade's two
+// well-known trends.
 
 #include "core/engine/evaluate.h"
 #include "core/engine/sweep.h"
@@ -92,7 +94,8 @@ private slots:
         refused("point", [&](CountFrequencyGrid& g) { g.point = d.dutyProfile.size(); });
     }
 
-    void everyCellIsItsOwnEvaluationWhateverTheThreads() {
+    void theMapIsTheSameWhateverTheThreads() {
+        // Each row is computed in order on one thread, so the cells are bit for bit the same.
         const Design d = loadDemo();
         CountFrequencyGrid g = grid(3, 6, 4000.0, 20000.0); // the demo's second segment, 3 frequencies
         g.threads = 1;
@@ -107,27 +110,60 @@ private slots:
             QCOMPARE(one.cells[i].totalLoss_W, three.cells[i].totalLoss_W);
             QCOMPARE(one.cells[i].failedChecks, three.cells[i].failedChecks);
         }
-        // One cell recomputed by hand: the design with the count and frequency replaced and only
-        // that segment, through evaluate() without the design-wide studies.
-        Design copy = d;
-        copy.dutyProfile = {d.dutyProfile[1]};
-        copy.bank.count = 5;
-        normalizeBank(copy.bank);
-        copy.pwm.frequency_Hz = 12000.0;
-        EvaluateOptions options;
-        options.designStudies = false;
-        const Results r = evaluate(copy, options);
-        QVERIFY(!r.stallTimeToLimit_s);
-        const SweepCell& c = one.at(5, 1);
-        QCOMPARE(c.count, 5);
-        QCOMPARE(c.frequency_Hz, 12000.0);
-        QVERIFY(c.valid);
-        double tj = 0.0;
-        for (const auto& dv : r.operatingPoints.front().devices)
-            tj = std::max(tj, dv.tj_C);
-        QCOMPARE(c.tjMax_C, tj);
-        QCOMPARE(c.totalLoss_W, r.operatingPoints.front().totalLoss_W);
-        QCOMPARE(c.stable, r.operatingPoints.front().bank.stable);
+    }
+
+    void everyCellAgreesWithAColdEvaluation() {
+        // Every cell recomputed on its own: the design with the count and frequency replaced and
+        // only that segment, through evaluate() without the design-wide studies, from ambient.
+        // The warm-started cells reach the same fixed point; they may differ by the solvers'
+        // tolerances (coupling rounds settled to 1e-6 relative, the bank's junctions to 1e-6 K):
+        // accepted here up to 1e-4 K and 1e-6 relative in the losses, and nothing else may differ.
+        // Both segments: the stall at the current limit and a driven point; 8 frequency steps,
+        // so that the rows' later cells start from an extrapolation of two earlier ones.
+        const Design d = loadDemo();
+        for (std::size_t point : {std::size_t(0), std::size_t(1)}) {
+            CountFrequencyGrid g = grid(2, 7, 2000.0, 40000.0);
+            g.frequencies = 8;
+            g.point = point;
+            const SweepResult map = sweepCountAndFrequency(d, g);
+            QVERIFY2(map.ok(), describe(map.problems).c_str());
+            const std::vector<double> freqs = gridFrequencies(g);
+            EvaluateOptions options;
+            options.designStudies = false;
+            for (int n = g.countMin; n <= g.countMax; ++n)
+                for (int j = 0; j < g.frequencies; ++j) {
+                    Design copy = d;
+                    copy.dutyProfile = {d.dutyProfile[point]};
+                    copy.bank.count = n;
+                    normalizeBank(copy.bank);
+                    copy.pwm.frequency_Hz = freqs[static_cast<std::size_t>(j)];
+                    const Results r = evaluate(copy, options);
+                    QVERIFY(!r.stallTimeToLimit_s);
+                    const SweepCell& c = map.at(n, j);
+                    const QString where = QString("segment %1, N = %2, f = %3 Hz")
+                                              .arg(point).arg(n).arg(copy.pwm.frequency_Hz);
+                    QCOMPARE(c.count, n);
+                    QCOMPARE(c.frequency_Hz, copy.pwm.frequency_Hz);
+                    const OperatingPointResult& op = r.operatingPoints.front();
+                    QVERIFY2(c.valid == (op.valid && !op.devices.empty()), qPrintable(where));
+                    int failed = 0;
+                    for (const Check& ch : r.checks)
+                        failed += ch.severity == Severity::Fail ? 1 : 0;
+                    QVERIFY2(c.failedChecks == failed, qPrintable(where));
+                    if (!c.valid)
+                        continue;
+                    double tj = 0.0;
+                    for (const auto& dv : op.devices)
+                        tj = std::max(tj, dv.tj_C);
+                    QVERIFY2(std::abs(c.tjMax_C - tj) <= 1e-4, qPrintable(where + QString(": T_j %1 against %2")
+                                                                               .arg(c.tjMax_C, 0, 'g', 12).arg(tj, 0, 'g', 12)));
+                    QVERIFY2(std::abs(c.heatsink_C - op.heatsinkTemperature_C) <= 1e-4, qPrintable(where));
+                    QVERIFY2(std::abs(c.totalLoss_W - op.totalLoss_W) <= 1e-6 * op.totalLoss_W, qPrintable(where));
+                    QVERIFY2(std::abs(c.bankLoss_W - op.bankLoss_W) <= 1e-6 * op.bankLoss_W, qPrintable(where));
+                    QVERIFY2(c.stable == (op.bank.converged && op.bank.stable), qPrintable(where));
+                    QVERIFY2(std::abs(c.maxMinCurrentRatio - op.bank.maxMinCurrentRatio) <= 1e-6, qPrintable(where));
+                }
+        }
     }
 
     void theMapShowsTheTradesTrends() {
