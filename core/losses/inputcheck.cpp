@@ -16,37 +16,29 @@ std::string num(double value) {
     return units::plain(value, 4);
 }
 
-bool InputCheck::finite(std::string_view field, double value, std::string_view meaning) {
-    if (std::isfinite(value))
-        return true;
+bool InputCheck::failFinite(std::string_view field, double value, std::string_view meaning) {
     fail(field, std::string(meaning) + " must be a finite number, got " + num(value));
     return false;
 }
 
-bool InputCheck::positive(std::string_view field, double value, std::string_view meaning) {
-    if (!finite(field, value, meaning))
-        return false;
-    if (value > 0.0)
-        return true;
+bool InputCheck::failPositive(std::string_view field, double value, std::string_view meaning) {
+    if (!std::isfinite(value))
+        return failFinite(field, value, meaning);
     fail(field, std::string(meaning) + " must be greater than zero, got " + num(value));
     return false;
 }
 
-bool InputCheck::nonNegative(std::string_view field, double value, std::string_view meaning) {
-    if (!finite(field, value, meaning))
-        return false;
-    if (value >= 0.0)
-        return true;
+bool InputCheck::failNonNegative(std::string_view field, double value, std::string_view meaning) {
+    if (!std::isfinite(value))
+        return failFinite(field, value, meaning);
     fail(field, std::string(meaning) + " must not be negative, got " + num(value));
     return false;
 }
 
-bool InputCheck::inRange(std::string_view field, double value, double min, double max,
-                         std::string_view meaning) {
-    if (!finite(field, value, meaning))
-        return false;
-    if (value >= min && value <= max)
-        return true;
+bool InputCheck::failRange(std::string_view field, double value, double min, double max,
+                           std::string_view meaning) {
+    if (!std::isfinite(value))
+        return failFinite(field, value, meaning);
     fail(field, std::string(meaning) + " must lie between " + num(min) + " and " + num(max) + ", got " +
                     num(value));
     return false;

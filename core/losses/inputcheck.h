@@ -6,6 +6,7 @@
 
 #include "core/model/problem.h"
 
+#include <cmath>
 #include <string>
 #include <string_view>
 #include <utility>
@@ -27,14 +28,24 @@ struct LimitCheck {
 /// passed, so a model can stop before using it.
 class InputCheck {
   public:
+    // The passing test is inline (the loss models check their inputs on every call); the
+    // message is built out of line, only for a value that fails.
     /// Finite and > 0.
-    bool positive(std::string_view field, double value, std::string_view meaning);
+    bool positive(std::string_view field, double value, std::string_view meaning) {
+        return (std::isfinite(value) && value > 0.0) || failPositive(field, value, meaning);
+    }
     /// Finite and ≥ 0.
-    bool nonNegative(std::string_view field, double value, std::string_view meaning);
+    bool nonNegative(std::string_view field, double value, std::string_view meaning) {
+        return (std::isfinite(value) && value >= 0.0) || failNonNegative(field, value, meaning);
+    }
     /// Finite (any sign).
-    bool finite(std::string_view field, double value, std::string_view meaning);
+    bool finite(std::string_view field, double value, std::string_view meaning) {
+        return std::isfinite(value) || failFinite(field, value, meaning);
+    }
     /// Finite and within [min, max].
-    bool inRange(std::string_view field, double value, double min, double max, std::string_view meaning);
+    bool inRange(std::string_view field, double value, double min, double max, std::string_view meaning) {
+        return (std::isfinite(value) && value >= min && value <= max) || failRange(field, value, min, max, meaning);
+    }
     /// A free-form problem on a field.
     void fail(std::string_view field, std::string message);
 
@@ -43,6 +54,12 @@ class InputCheck {
     std::vector<Problem> take() { return std::move(m_problems); }
 
   private:
+    // Each records the problem and returns false.
+    bool failFinite(std::string_view field, double value, std::string_view meaning);
+    bool failPositive(std::string_view field, double value, std::string_view meaning);
+    bool failNonNegative(std::string_view field, double value, std::string_view meaning);
+    bool failRange(std::string_view field, double value, double min, double max, std::string_view meaning);
+
     std::vector<Problem> m_problems;
 };
 
