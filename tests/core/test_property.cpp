@@ -136,12 +136,13 @@ class TestProperty : public QObject {
         // or two seconds: core/thermal/stall.cpp). All 10,000 cases pass, every balance within
         // 1e-6 (worst 5.0e-7), discontinuous points included (worst 3.3e-7 there): the 1e-4 once
         // allowed in discontinuous conduction (its output-capacitance energy is an estimate) is
-        // not needed. The ten shards and the round trip took 15.8 minutes of wall time with ctest
-        // -j2 (10.7 minutes of CPU) on the shared 2-core machine under other builds.
-        // Open: that is more than the 6 minutes aimed at. The slowest cases (times under that
-        // load): 1938 (91 s), 3017 (51 s), 7401, 4859, 9854, 4343 (34–42 s), 722 (32 s; profiled:
-        // a bipolar bank whose electrical solves spend their time in the loss stage, its input
-        // checks and the bipolar edge and base-drive models).
+        // not needed. Time of the ten shards and the round trip with ctest -j2 on the shared
+        // 2-core machine: 601 s of test time, about 5 minutes of wall time, in the whole suite's
+        // run (5 min 58 s for all 57 tests) with the machine nearly free; 15.8 minutes under other
+        // builds. The slowest cases (times under that load): 1938 (91 s), 3017 (51 s), 7401, 4859,
+        // 9854, 4343 (34–42 s), 722 (32 s; profiled: a bipolar bank whose electrical solves spend
+        // their time in the loss stage, its input checks and the bipolar edge and base-drive
+        // models).
         // AMPWRIGHT_PROPERTY_SHARD=i/n evaluates the i-th of n runs of consecutive cases (ctest
         // runs the shards side by side: tests/CMakeLists.txt); without it, all of them.
         int begin = 0, cases = m_cases;
