@@ -141,6 +141,11 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
             std::max(longest, net.rsa.at(steady.state.heatsink_C - ambient_C) * net.heatsinkCapacity_JperK);
     }
     const double horizon = std::max(10.0 * longest, 10.0 * opt.firstStep_s);
+    // The steps grow to maxStep_s, or to 1/200 of `longest` where that is more (a heavy heatsink
+    // in still air: R_sa·C of days). Each step is exact for power moving linearly, so a step of
+    // τ/200 is as fine for such a network as 20 s is for a sink of an hour; with steps held at
+    // 20 s, ten time constants of days took millions of steps (minutes of evaluate()).
+    const double maxStep = std::max(opt.maxStep_s, longest / 200.0);
 
     double t = 0.0, dt = opt.firstStep_s;
     int sameStep = 0;
@@ -208,7 +213,7 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
         t += dt;
         if (++sameStep == opt.stepsPerDoubling) {
             sameStep = 0;
-            dt = std::min(2.0 * dt, opt.maxStep_s);
+            dt = std::min(2.0 * dt, maxStep);
         }
     }
     out.simulated_s = t;

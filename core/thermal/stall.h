@@ -6,7 +6,8 @@
 //
 // Method: the transient network of transient.h with one constant segment, stepped from the
 // starting state with steps that start at `firstStep_s` and double every `stepsPerDoubling` steps
-// up to `maxStep_s` (exact exponentials keep any step stable; the small first steps resolve the
+// up to `maxStep_s`, or to 1/200 of the network's longest time constant where that is longer
+// (exact exponentials keep any step stable; the small first steps resolve the
 // fast Foster stages, the long ones the heatsink; runs of equal steps reuse their exponentials).
 // Within a step the power moves linearly from its start value to its value at the end of a trial
 // step (a predictor–corrector with the exact first-order-hold update of every RC part), since over

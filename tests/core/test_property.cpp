@@ -1,7 +1,8 @@
 // SPDX-License-Identifier: GPL-3.0-or-later
 // Property tests over random valid designs (fixed seed). Cases: 10,000 in the normal build, 1,000
-// under the sanitizers, AMPWRIGHT_PROPERTY_CASES in the long run (DEVELOPERS.md); evaluate() over the
-// first 1,000 of them (100 under the sanitizers) unless AMPWRIGHT_PROPERTY_EVALUATE=1 asks for all.
+// under the sanitizers, AMPWRIGHT_PROPERTY_CASES in the long run (DEVELOPERS.md). ctest runs the
+// round trip as one test and evaluate() over all the cases in shards of consecutive cases
+// (AMPWRIGHT_PROPERTY_SHARD=i/n: 10 in the normal build, 4 under the sanitizers), side by side.
 #include "core/engine/evaluate.h"
 #include "core/engine/results_json.h"
 #include "core/io/partslibrary.h"
@@ -116,9 +117,6 @@ class TestProperty : public QObject {
     }
 
     void evaluateRandomDesigns() {
-        // Every build runs the first 1,000 cases (100 under the sanitizers); all of them
-        // (AMPWRIGHT_PROPERTY_CASES, 10,000 by default) with AMPWRIGHT_PROPERTY_EVALUATE=1, until that is fast
-        // enough for every build.
         // Found and fixed (2 December 2026): a crash on a synchronous-topology point with no bus
         // voltage left (evaluate.cpp); case 53, a bank's conduction time counted per Simpson sample
         // so a sample on the zero crossing flipped the base drive (losses/topology.cpp); case 125,
@@ -133,29 +131,39 @@ class TestProperty : public QObject {
         // the reason); case 1462, a MOSFET gate path with no resistance at all, which the table let
         // through and evaluate() refused (now a cross-field rule). The first 5,500 cases of this
         // seed pass, with every balance within 1e-6, discontinuous points included (worst 7.6e-8).
-        // Open: time. 1,600 cases took 4.5 minutes on a busy 2-core machine, most of it in a few
-        // designs: full-bridge and half-bridge stall searches of the thermal transient (cases 488,
-        // 722, 3794, 4275: one to six minutes each), a MOSFET full bridge whose gate-drive
-        // model formats its messages on every call (case 838), and large bipolar or Darlington
-        // banks whose network solves fail near runaway temperatures (cases 579, 892, 1938: 10–20 s).
-#ifdef AMPWRIGHT_SANITIZED
-        constexpr int kEveryBuild = 100;
-#else
-        constexpr int kEveryBuild = 1000;
-#endif
-        const bool all = !qEnvironmentVariableIsEmpty("AMPWRIGHT_PROPERTY_EVALUATE");
-        const int cases = all ? m_cases : std::min(m_cases, kEveryBuild);
-        if (!all)
-            qInfo("evaluate(): the first %d cases (all %d with AMPWRIGHT_PROPERTY_EVALUATE=1)", cases, m_cases);
+        // Time (2 December 2026): the stall search's steps were held at 20 s over horizons of days
+        // (a heavy heatsink in still air; cases 488, 3794, 4275: one to six minutes each, now one
+        // or two seconds: core/thermal/stall.cpp). All 10,000 cases pass, every balance within
+        // 1e-6 (worst 5.0e-7), discontinuous points included (worst 3.3e-7 there): the 1e-4 once
+        // allowed in discontinuous conduction (its output-capacitance energy is an estimate) is
+        // not needed. Time of the ten shards and the round trip with ctest -j2 on the shared
+        // 2-core machine: 601 s of test time, about 5 minutes of wall time, in the whole suite's
+        // run (5 min 58 s for all 57 tests) with the machine nearly free; 15.8 minutes under other
+        // builds. The slowest cases (times under that load): 1938 (91 s), 3017 (51 s), 7401, 4859,
+        // 9854, 4343 (34–42 s), 722 (32 s; profiled: a bipolar bank whose electrical solves spend
+        // their time in the loss stage, its input checks and the bipolar edge and base-drive
+        // models).
+        // AMPWRIGHT_PROPERTY_SHARD=i/n evaluates the i-th of n runs of consecutive cases (ctest
+        // runs the shards side by side: tests/CMakeLists.txt); without it, all of them.
+        int begin = 0, cases = m_cases;
+        if (const QByteArray shard = qgetenv("AMPWRIGHT_PROPERTY_SHARD"); !shard.isEmpty()) {
+            const QList<QByteArray> parts = shard.split('/');
+            const int index = parts.size() == 2 ? parts[0].toInt() : -1;
+            const int count = parts.size() == 2 ? parts[1].toInt() : 0;
+            QVERIFY2(count > 0 && index >= 0 && index < count, "AMPWRIGHT_PROPERTY_SHARD must be i/n with 0 <= i < n");
+            begin = static_cast<int>(static_cast<long long>(m_cases) * index / count);
+            cases = static_cast<int>(static_cast<long long>(m_cases) * (index + 1) / count);
+        }
+        qInfo("evaluate(): cases %d to %d of %d", begin, cases - 1, m_cases);
         auto sink = std::make_shared<NonFiniteSink>();
         spdlog::default_logger()->sinks().push_back(sink);
         std::mt19937_64 rng(0x5eed0002);
         int points = 0, solved = 0, discontinuous = 0, limited = 0;
-        double worstBalance = 0.0;
+        double worstBalance = 0.0, worstDiscontinuous = 0.0;
         double slowest = 0.0;
         // AMPWRIGHT_PROPERTY_FIRST=k draws (without evaluating) the designs before case k: for
         // going straight to a reported case.
-        const int first = qEnvironmentVariableIntValue("AMPWRIGHT_PROPERTY_FIRST");
+        const int first = std::max(begin, qEnvironmentVariableIntValue("AMPWRIGHT_PROPERTY_FIRST"));
         for (int i = 0; i < cases; ++i) {
             const test::RandomDesign r = test::randomDesign(rng, m_parts);
             if (i < first)
@@ -206,21 +214,18 @@ class TestProperty : public QObject {
                 const double scale = std::max({1.0, std::abs(input), std::abs(parts)});
                 const double rel = std::abs(input - parts) / scale;
                 worstBalance = std::max(worstBalance, rel);
-                // In discontinuous conduction the output capacitance's energy is booked by an
-                // estimate (the node rings down to the back-EMF after the current ends), which
-                // leaves up to about 1e-5 of the input unaccounted in tiny-current corners (a 62-
-                // device bank at 3 mA, for one): 1e-4 there, still far below a lost loss term.
-                const double tolerance = p.conductionMode == "discontinuous" ? 1e-4 : 1e-6;
-                if (rel > tolerance)
+                if (p.conductionMode == "discontinuous")
+                    worstDiscontinuous = std::max(worstDiscontinuous, rel);
+                if (rel > 1e-6)
                     QFAIL((which + " point '" + p.name + "': V_bus·I_bat " + std::to_string(input) + " W vs parts " +
                            std::to_string(parts) + " W; the design: " + keep(r.design, i))
                               .c_str());
             }
         }
         spdlog::default_logger()->sinks().pop_back();
-        qInfo("%d points, %d solved (%d discontinuous, %d at the current limit); worst balance %.3g relative; "
-              "slowest evaluation %.3f s",
-              points, solved, discontinuous, limited, worstBalance, slowest);
+        qInfo("%d points, %d solved (%d discontinuous, %d at the current limit); worst balance %.3g relative "
+              "(%.3g in discontinuous conduction); slowest evaluation %.3f s",
+              points, solved, discontinuous, limited, worstBalance, worstDiscontinuous, slowest);
         // The generator must reach the engine's main paths (about half the points solve; the rest ask
         // for more than the supply or the limit gives), or the property proves little.
         QVERIFY(solved > points * 2 / 5);

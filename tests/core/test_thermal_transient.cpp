@@ -297,6 +297,27 @@ class TestThermalTransient : public QObject {
         QVERIFY(held.timeToLimit_s && *held.timeToLimit_s > *s.timeToLimit_s);
     }
 
+    void stallTimeWithSlowHeatsink() {
+        // stallTimeWithRisingLoss with a heatsink of 1,000,000 J/K (still air and a big mass):
+        // Δ(t) = 100·(1 − e^(−t/2,000,000 s)), 60 K at t = 2,000,000·ln(2.5) = 1,832,581 s [calc].
+        // The steps grow past 20 s here, to a 200th of R_sa·C; the crossing must keep within 0.1 %.
+        TransientNetwork net;
+        net.sources = {{"device", {}, 0.0, 0.0, 1.0}};
+        net.rsa = rsaCurve(StatedHeatsink{1.0, 50.0, 0.0});
+        net.heatsinkCapacity_JperK = 1e6;
+        auto p = [](double t) { return 50.0 * (1.0 + 0.01 * (t - 25.0)); };
+        TransientLosses l;
+        l.resolve = [&](std::size_t, const std::vector<double>& tj, std::vector<double>& out) {
+            out = {p(tj[0])};
+        };
+        l.rescale = [&](std::size_t, const std::vector<double>&, const std::vector<double>&,
+                        const std::vector<double>& tj, std::vector<double>& out) { out = {p(tj[0])}; };
+        const StallResult s = stallTimeToLimit(net, restState(net, 25.0), 25.0, l, {85.0});
+        QVERIFY(s.ok && s.timeToLimit_s);
+        QVERIFY2(relDiff(*s.timeToLimit_s, 2e6 * std::log(2.5)) < 1e-3,
+                 qPrintable(QString::number(*s.timeToLimit_s)));
+    }
+
     void fallingLossDoesNotOvershoot() {
         // A loss that falls as the junction warms, P = 0.5 W/K·(60 °C − T_j) (a cold bipolar
         // device leaving its active region behaves so), into one fast stage (R 1 K/W, τ 1 ms)
