@@ -32,6 +32,7 @@
 #include <algorithm>
 #include <array>
 #include <cmath>
+#include <limits>
 #include <string>
 #include <vector>
 
@@ -523,10 +524,15 @@ BankSolve solveBankSimple(const Context& c, const Demand& demand) {
         std::vector<double> next = s.thermal.junction_C;
         double delta = 0.0;
         busExtra = s.electrical.busExtra_A; // warm start for the next pass
+        // The thermal stage may return more temperatures than the first guess laid out (its
+        // layout is the one kept from here on): a pass whose layout changed has not converged.
+        if (next.size() != t.size())
+            delta = std::numeric_limits<double>::infinity();
         for (std::size_t k = 0; k < next.size(); ++k) {
             if (!finite(next[k]) || next[k] > kRunawayLimit_C)
                 runaway = true;
-            delta = std::max(delta, std::abs(next[k] - t[k]));
+            if (k < t.size())
+                delta = std::max(delta, std::abs(next[k] - t[k]));
         }
         s.temperatures = next;
         if (runaway)
