@@ -1500,9 +1500,9 @@ Results evaluateWith(const Design& input, const EvaluateOptions& options, Evalua
         r.warnings.push_back("the duty profile is empty: no operating point to evaluate");
 
     bool any = false;
+    if (memory && memory->points.size() != d.dutyProfile.size())
+        memory->points.assign(d.dutyProfile.size(), PointMemory{});
     for (std::size_t i = 0; i < d.dutyProfile.size(); ++i) {
-        if (memory && memory->points.size() != d.dutyProfile.size())
-            memory->points.assign(d.dutyProfile.size(), PointMemory{});
         OperatingPointResult op =
             evaluateSegment(context, d.dutyProfile[i], i, r.checks, full, memory ? &memory->points[i] : nullptr);
         if (!op.notes.empty() && op.devices.empty()) {

@@ -177,7 +177,6 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
             // stages) follow the end power at once and the first trial, made with the start
             // power, under-states it. Over a long step the losses change with the temperature:
             // holding the start value would lag by a share of the step.
-            const TransientState before = stepper.state();
             stepper.advance(dt, power, ambient_C);
             for (int pass = 0; pass < 2; ++pass) {
                 for (std::size_t k = 0; k < n; ++k)
@@ -186,7 +185,7 @@ StallResult stallTimeToLimit(const TransientNetwork& net, const TransientState& 
                 if (endPower.size() != n ||
                     !std::all_of(endPower.begin(), endPower.end(), [](double p) { return std::isfinite(p); }))
                     break;
-                stepper.setState(before);
+                stepper.undo(); // back to the step's start (each pass follows one advance)
                 stepper.advanceRamp(dt, power, endPower, ambient_C);
             }
         } else {

@@ -85,6 +85,26 @@ TransientLosses lossesOf(const BankLosses& b) {
     return l;
 }
 
+// One source on a first-order sink (R_sa 1 K/W, heat capacity C) whose loss rises with its
+// temperature, P = 50·(1 + 0.01·(T − 25 °C)) W, with the rescale (the stall-search cases below).
+struct RisingLoss {
+    TransientNetwork net;
+    TransientLosses losses;
+};
+RisingLoss risingLoss(double capacity_JperK) {
+    RisingLoss c;
+    c.net.sources = {{"device", {}, 0.0, 0.0, 1.0}};
+    c.net.rsa = rsaCurve(StatedHeatsink{1.0, 50.0, 0.0});
+    c.net.heatsinkCapacity_JperK = capacity_JperK;
+    const auto p = [](double t) { return 50.0 * (1.0 + 0.01 * (t - 25.0)); };
+    c.losses.resolve = [p](std::size_t, const std::vector<double>& tj, std::vector<double>& out) {
+        out = {p(tj[0])};
+    };
+    c.losses.rescale = [p](std::size_t, const std::vector<double>&, const std::vector<double>&,
+                           const std::vector<double>& tj, std::vector<double>& out) { out = {p(tj[0])}; };
+    return c;
+}
+
 } // namespace
 
 class TestThermalTransient : public QObject {
@@ -276,17 +296,7 @@ class TestThermalTransient : public QObject {
         // sink (R 1 K/W, C 1000 J/K): C·dΔ/dt = 50 + 0.5·Δ − Δ/R, so Δ(t) = 100·(1 − e^(−t/2000 s))
         // and the 60 K rise is reached at t = 2000·ln(2.5) = 1832.6 s [calc]. The search takes
         // steps up to 20 s; its predictor–corrector must keep within 0.1 %.
-        TransientNetwork net;
-        net.sources = {{"device", {}, 0.0, 0.0, 1.0}};
-        net.rsa = rsaCurve(StatedHeatsink{1.0, 50.0, 0.0});
-        net.heatsinkCapacity_JperK = 1000.0;
-        auto p = [](double t) { return 50.0 * (1.0 + 0.01 * (t - 25.0)); };
-        TransientLosses l;
-        l.resolve = [&](std::size_t, const std::vector<double>& tj, std::vector<double>& out) {
-            out = {p(tj[0])};
-        };
-        l.rescale = [&](std::size_t, const std::vector<double>&, const std::vector<double>&,
-                        const std::vector<double>& tj, std::vector<double>& out) { out = {p(tj[0])}; };
+        auto [net, l] = risingLoss(1000.0);
         const StallResult s = stallTimeToLimit(net, restState(net, 25.0), 25.0, l, {85.0});
         QVERIFY(s.ok && s.timeToLimit_s);
         QVERIFY2(relDiff(*s.timeToLimit_s, 2000.0 * std::log(2.5)) < 1e-3,
@@ -301,17 +311,7 @@ class TestThermalTransient : public QObject {
         // stallTimeWithRisingLoss with a heatsink of 1,000,000 J/K (still air and a big mass):
         // Δ(t) = 100·(1 − e^(−t/2,000,000 s)), 60 K at t = 2,000,000·ln(2.5) = 1,832,581 s [calc].
         // The steps grow past 20 s here, to a 200th of R_sa·C; the crossing must keep within 0.1 %.
-        TransientNetwork net;
-        net.sources = {{"device", {}, 0.0, 0.0, 1.0}};
-        net.rsa = rsaCurve(StatedHeatsink{1.0, 50.0, 0.0});
-        net.heatsinkCapacity_JperK = 1e6;
-        auto p = [](double t) { return 50.0 * (1.0 + 0.01 * (t - 25.0)); };
-        TransientLosses l;
-        l.resolve = [&](std::size_t, const std::vector<double>& tj, std::vector<double>& out) {
-            out = {p(tj[0])};
-        };
-        l.rescale = [&](std::size_t, const std::vector<double>&, const std::vector<double>&,
-                        const std::vector<double>& tj, std::vector<double>& out) { out = {p(tj[0])}; };
+        auto [net, l] = risingLoss(1e6);
         const StallResult s = stallTimeToLimit(net, restState(net, 25.0), 25.0, l, {85.0});
         QVERIFY(s.ok && s.timeToLimit_s);
         QVERIFY2(relDiff(*s.timeToLimit_s, 2e6 * std::log(2.5)) < 1e-3,
