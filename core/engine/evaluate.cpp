@@ -33,7 +33,9 @@
 #include <array>
 #include <cmath>
 #include <limits>
+#include <optional>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace amp {
@@ -297,6 +299,8 @@ struct Electrical {
     double busExtraUsed_A = 0.0;        // the bus current for those losses this solve assumed
     double busExtra_A = 0.0;            // the bus current they draw (V_bus·I = their power)
     bool busSettled = true;             // the bus current of those losses found (solveElectrical)
+    double peakStageLoss_W = 0.0;       // the largest of those losses over the bus passes (the
+                                        // last pass of an unsettled bus may have none left)
 };
 
 // The motor circuit the chopper drives, with the bank's on-state drop and resistance and the
@@ -395,6 +399,7 @@ Electrical solveElectrical(const Context& c, const Demand& demand, const std::ve
         li.otherTj_C = otherTj_C;
         li.withChecks = false;
         e.losses = computeLossPoint(c.losses, d, li);
+        e.peakStageLoss_W = std::max(e.peakStageLoss_W, e.losses.stageLoss_W);
         e.lossInput = std::move(li);
         // Synchronous topologies: the stage has every bank's conduction (none when it could not
         // compute the point, e.g. with no bus voltage left).
@@ -1221,6 +1226,21 @@ void pointChecks(const Design& d, const OperatingPointResult& op, std::size_t in
 // ---------------------------------------------------------------------------------------------
 // One duty-profile segment.
 
+// Two segments ask for the same operating point when they have the same mode and the same values
+// of the fields that mode reads (evaluateSegment): torque and speed, current and speed, current
+// and duty, or none at a stall. Their names, durations and directions may differ.
+bool sameOperatingPoint(const Segment& a, const Segment& b) {
+    if (a.mode != b.mode)
+        return false;
+    if (a.mode == "torqueSpeed")
+        return a.torque_Nm == b.torque_Nm && a.speed_rpm == b.speed_rpm;
+    if (a.mode == "currentSpeed")
+        return a.motorCurrent_A == b.motorCurrent_A && a.speed_rpm == b.speed_rpm;
+    if (a.mode == "currentDuty")
+        return a.motorCurrent_A == b.motorCurrent_A && a.duty == b.duty;
+    return a.mode == "stall";
+}
+
 OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::size_t index, std::vector<Check>& checks,
                                       bool full, PointMemory* memory) {
     const Design& d = *c.design;
@@ -1288,12 +1308,15 @@ OperatingPointResult evaluateSegment(const Context& c, const Segment& seg, std::
         return op;
     }
     if (!e.busSettled) {
-        // No bus current carries the stage's losses: they take more than the battery can give
-        // (at most V²/(4·R) into any load), so the bus collapses and there is no steady point.
+        // No bus current carries the stage's losses with the motor's draw: together they take more
+        // than the battery can give (at most V²/(4·R) into any load), so the bus collapses and there
+        // is no steady point. The losses quoted are the largest the passes met: the last pass, on a
+        // collapsed bus, may have none left.
         op.valid = false;
-        op.notes.push_back(fmt::format("the switching, drive and recovery losses ({} W) take more than the battery "
-                                       "can give through its {} Ω (at most {} W): the bus collapses",
-                                       num(e.losses.stageLoss_W), num(c.supply.resistance_ohm),
+        op.notes.push_back(fmt::format("the bus current does not settle: the switching, drive and recovery losses "
+                                       "(up to {} W) with the motor's draw take more than the battery can give "
+                                       "through its {} Ω (at most {} W): the bus collapses",
+                                       num(e.peakStageLoss_W), num(c.supply.resistance_ohm),
                                        num(c.supply.resistance_ohm > 0.0
                                                ? c.supply.voltage_V * c.supply.voltage_V / (4.0 * c.supply.resistance_ohm)
                                                : 0.0)));
@@ -1502,9 +1525,35 @@ Results evaluateWith(const Design& input, const EvaluateOptions& options, Evalua
     bool any = false;
     if (memory && memory->points.size() != d.dutyProfile.size())
         memory->points.assign(d.dutyProfile.size(), PointMemory{});
+    // A segment that asks for the same operating point as an earlier one (sameOperatingPoint) is
+    // not solved again: it takes that result, and the checks found while solving it, under its
+    // own name. Where this point's checks begin and end in r.checks, per segment.
+    std::vector<std::pair<std::size_t, std::size_t>> pointChecksAt(d.dutyProfile.size(), {0, 0});
     for (std::size_t i = 0; i < d.dutyProfile.size(); ++i) {
-        OperatingPointResult op =
-            evaluateSegment(context, d.dutyProfile[i], i, r.checks, full, memory ? &memory->points[i] : nullptr);
+        const Segment& seg = d.dutyProfile[i];
+        std::optional<std::size_t> same;
+        if (!memory && segmentProblems(seg, i).empty())
+            for (std::size_t j = 0; j < i && !same; ++j)
+                if (sameOperatingPoint(d.dutyProfile[j], seg) && segmentProblems(d.dutyProfile[j], j).empty())
+                    same = j;
+        const std::size_t checksBegin = r.checks.size();
+        OperatingPointResult op;
+        if (same) {
+            op = r.operatingPoints[*same];
+            const std::string from = op.name;
+            op.name = seg.name.empty() ? fmt::format("Segment {}", i + 1) : seg.name;
+            for (std::size_t k = pointChecksAt[*same].first; k < pointChecksAt[*same].second; ++k) {
+                Check ch = r.checks[k];
+                if (ch.operatingPoint == from)
+                    ch.operatingPoint = op.name;
+                if (ch.message.starts_with(from + ": "))
+                    ch.message = op.name + ch.message.substr(from.size());
+                r.checks.push_back(std::move(ch));
+            }
+        } else {
+            op = evaluateSegment(context, seg, i, r.checks, full, memory ? &memory->points[i] : nullptr);
+        }
+        pointChecksAt[i] = {checksBegin, r.checks.size()};
         if (!op.notes.empty() && op.devices.empty()) {
             // The segment could not be set up: its reasons are input problems.
             for (const auto& note : op.notes)

@@ -353,6 +353,94 @@ class TestEvaluate : public QObject {
         QVERIFY(test::relDiff(cd->backEmf_V, d.motor.torqueConstant_NmPerA * cd->speed_rpm * 2.0 * M_PI / 60.0) < 1e-9);
     }
 
+    void repeatedOperatingPointsAreSolvedOnce() {
+        // Segments that ask for the same operating point (same mode and the fields it reads; a stall
+        // reads none) take the first one's result and checks under their own names. Each must be
+        // what solving it afresh gives: the point is a steady state, whatever comes before it.
+        Design d = loadDemo();
+        d.pwm.currentLimit_A = 120.0; // so that the hill (136 A asked) is held at the limit and has its notes
+        Segment hill = d.dutyProfile[2];
+        hill.name = "Hill climb, again";
+        hill.duration_s = 12.0;
+        hill.direction = "reverse";
+        hill.motorCurrent_A = 33.0; // not read in torqueSpeed mode
+        Segment start = d.dutyProfile[0];
+        start.name = "";           // named by its place
+        start.torque_Nm = 5.0;      // a stall reads neither
+        start.speed_rpm = 100.0;
+        d.dutyProfile.push_back(hill);
+        d.dutyProfile.push_back(start);
+        const Results r = evaluate(d);
+        QCOMPARE(r.operatingPoints.size(), std::size_t{6});
+        const json all = resultsToJson(r);
+        auto pointJson = [](json p) {
+            p.erase("name");
+            return p;
+        };
+        QCOMPARE(r.operatingPoints[4].name, std::string("Hill climb, again"));
+        QCOMPARE(r.operatingPoints[5].name, std::string("Segment 6"));
+        QVERIFY(r.operatingPoints[2].currentLimited);
+        QVERIFY(pointJson(all["operatingPoints"][4]) == pointJson(all["operatingPoints"][2]));
+        QVERIFY(pointJson(all["operatingPoints"][5]) == pointJson(all["operatingPoints"][0]));
+
+        // Solved afresh, alone: the same figures (to the solvers' rounding).
+        for (const auto& [copy, alone] : {std::pair{std::size_t{4}, hill}, std::pair{std::size_t{5}, start}}) {
+            Design one = d;
+            one.dutyProfile = {alone};
+            const json fresh = resultsToJson(evaluate(one))["operatingPoints"][0];
+            const json& reused = all["operatingPoints"][copy];
+            for (const auto& [key, value] : fresh.items())
+                if (value.is_number())
+                    QVERIFY2(std::abs(value.get<double>() - reused[key].get<double>()) <=
+                                 1e-9 * std::max(1.0, std::abs(value.get<double>())),
+                             key.c_str());
+            QCOMPARE(reused["devices"].size(), fresh["devices"].size());
+            QCOMPARE(reused["valid"], fresh["valid"]);
+            QCOMPARE(reused["notes"], fresh["notes"]);
+        }
+
+        // The checks: the same list for the copy as for the first, under the copy's name.
+        auto checksOf = [&](const std::string& name) {
+            std::multiset<std::string> out;
+            for (const Check& c : r.checks)
+                if (c.operatingPoint == name) {
+                    std::string m = c.message;
+                    if (m.starts_with(name + ": "))
+                        m = m.substr(name.size());
+                    out.insert(c.id + " " + std::to_string(static_cast<int>(c.severity)) + m);
+                }
+            return out;
+        };
+        QVERIFY(!checksOf("Hill climb").empty());
+        QVERIFY(checksOf("Hill climb") == checksOf("Hill climb, again"));
+        QVERIFY(checksOf("Start") == checksOf("Segment 6"));
+    }
+
+    void busCollapseNamesTheLosses() {
+        // A 2 Ω battery feeding a bank switched at 1 MHz through 1 kΩ gate resistors: the edges'
+        // losses with the motor's draw take more than the battery can give, and no bus current
+        // settles. The most a source of V and R can give any load is V²/(4·R) (the maximum power
+        // transfer theorem; circuit textbooks, e.g. Hayt & Kemmerly, from memory): 48² / 8 = 288 W.
+        Design d = loadDemo();
+        d.supply.internalResistance_ohm = 2.0;
+        d.pwm.frequency_Hz = 1.0e6;
+        d.drive.driverResistance_ohm = 1000.0;
+        const Results r = evaluate(d);
+        const auto* start = point(r, "Start"); // the stall at the 200 A limit
+        QVERIFY(start);
+        QVERIFY(!start->valid);
+        std::string note;
+        for (const auto& n : start->notes)
+            if (n.find("the bus collapses") != std::string::npos)
+                note = n;
+        QVERIFY2(!note.empty(), "no bus-collapse note");
+        QVERIFY2(note.find("(at most 288 W)") != std::string::npos, note.c_str());
+        // The losses quoted are those the passes met, not the nothing left on a collapsed bus.
+        const auto at = note.find("up to ");
+        QVERIFY2(at != std::string::npos, note.c_str());
+        QVERIFY2(std::stod(note.substr(at + 6)) > 0.0, note.c_str());
+    }
+
     void torqueAboveTheLimit() {
         Design d = loadDemo();
         d.dutyProfile[2].torque_Nm = 40.0; // 312 A asked, 200 A allowed
