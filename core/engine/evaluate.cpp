@@ -1528,13 +1528,16 @@ Results evaluateWith(const Design& input, const EvaluateOptions& options, Evalua
     // A segment that asks for the same operating point as an earlier one (sameOperatingPoint) is
     // not solved again: it takes that result, and the checks found while solving it, under its
     // own name. Where this point's checks begin and end in r.checks, per segment.
+    // Whether each segment so far passed its own input checks (only those are shared).
     std::vector<std::pair<std::size_t, std::size_t>> pointChecksAt(d.dutyProfile.size(), {0, 0});
+    std::vector<bool> wellFormed(d.dutyProfile.size(), false);
     for (std::size_t i = 0; i < d.dutyProfile.size(); ++i) {
         const Segment& seg = d.dutyProfile[i];
         std::optional<std::size_t> same;
-        if (!memory && segmentProblems(seg, i).empty())
+        wellFormed[i] = !memory && segmentProblems(seg, i).empty();
+        if (wellFormed[i])
             for (std::size_t j = 0; j < i && !same; ++j)
-                if (sameOperatingPoint(d.dutyProfile[j], seg) && segmentProblems(d.dutyProfile[j], j).empty())
+                if (wellFormed[j] && sameOperatingPoint(d.dutyProfile[j], seg))
                     same = j;
         const std::size_t checksBegin = r.checks.size();
         OperatingPointResult op;
