@@ -151,9 +151,21 @@ Eigen::Matrix<Scalar, Eigen::Dynamic, 1> inverseIteration(const Matrix& m, Scala
     return v;
 }
 
-// Z·S; S is the N×N average-power sensitivity.
+// Z·S; S is the N×N average-power sensitivity. Without neighbour coupling Z = z_self·I +
+// z_common·11ᵀ and Z·S = z_self·S + z_common·1·(1ᵀS): O(N²) instead of the O(N³) product.
 Eigen::MatrixXd loopMatrix(const ThermalMatrices& th, const std::vector<double>& s) {
     const int n = th.count;
+    if (th.uniform) {
+        Eigen::MatrixXd m(n, n);
+        Eigen::RowVectorXd columnSums = Eigen::RowVectorXd::Zero(n);
+        for (int k = 0; k < n; ++k)
+            for (int j = 0; j < n; ++j)
+                columnSums(j) += s[static_cast<std::size_t>(k * n + j)];
+        for (int k = 0; k < n; ++k)
+            for (int j = 0; j < n; ++j)
+                m(k, j) = th.zSelf * s[static_cast<std::size_t>(k * n + j)] + th.zCommon * columnSums(j);
+        return m;
+    }
     Eigen::MatrixXd z(n, n), sm(n, n);
     for (int k = 0; k < n; ++k)
         for (int j = 0; j < n; ++j) {
@@ -230,6 +242,74 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
     }
     st.mode = mixed ? BankMode::Differential : BankMode::Common;
     return st;
+}
+
+// The Newton step (I − Z·S)·ΔT = rhs in O(N) when Z = z_self·I + z_common·11ᵀ (no neighbour
+// coupling) and S, times the power scale, is the factored diag(d) + L·R of detail::ElectricalPoint:
+// then I − Z·S = Δ − U·W with Δ diagonal, U (N×3) and W (3×N), where with c = 1ᵀL
+//   Δ_k = 1 − s·z_self·d_k,  U_k = s·(z_self·L_k0, z_self·L_k1, z_common),
+//   W_·j = (R_0j, R_1j, d_j + c_0·R_0j + c_1·R_1j),
+// solved by the Sherman–Morrison–Woodbury identity with its determinant from the matrix
+// determinant lemma (Golub & Van Loan, Matrix Computations, 4th ed., §2.1.4; from memory).
+// False where that is not safe (a Δ_k near zero, a residual above rounding): the caller factors
+// the dense matrix instead.
+bool structuredNewtonStep(const ThermalMatrices& th, const detail::ElectricalPoint& pt, double s,
+                          const Eigen::VectorXd& rhs, Eigen::VectorXd& dt, double& det) {
+    const int n = th.count;
+    const auto nn = static_cast<std::size_t>(n);
+    if (!th.uniform || !pt.sFactored || pt.sDiag.size() != nn || pt.sLeft.size() != 2 * nn ||
+        pt.sRight.size() != 2 * nn)
+        return false;
+    const double a = th.zSelf, b = th.zCommon;
+    double c0 = 0.0, c1 = 0.0;
+    for (std::size_t k = 0; k < nn; ++k) {
+        c0 += pt.sLeft[2 * k];
+        c1 += pt.sLeft[2 * k + 1];
+    }
+    auto uOf = [&](std::size_t k) {
+        return Eigen::Vector3d(s * a * pt.sLeft[2 * k], s * a * pt.sLeft[2 * k + 1], s * b);
+    };
+    auto wOf = [&](std::size_t k) {
+        const double r0 = pt.sRight[k], r1 = pt.sRight[nn + k];
+        return Eigen::Vector3d(r0, r1, pt.sDiag[k] + c0 * r0 + c1 * r1);
+    };
+    Eigen::VectorXd delta(n), y(n);
+    Eigen::Matrix<double, Eigen::Dynamic, 3> yU(n, 3);
+    Eigen::Matrix3d cap = Eigen::Matrix3d::Identity();
+    Eigen::Vector3d wy = Eigen::Vector3d::Zero();
+    det = 1.0;
+    for (std::size_t k = 0; k < nn; ++k) {
+        const auto i = static_cast<Eigen::Index>(k);
+        delta(i) = 1.0 - s * a * pt.sDiag[k];
+        if (!(std::abs(delta(i)) >= 1e-3))
+            return false;
+        det *= delta(i);
+        const Eigen::Vector3d u = uOf(k) / delta(i);
+        const Eigen::Vector3d w = wOf(k);
+        yU.row(i) = u.transpose();
+        y(i) = rhs(i) / delta(i);
+        cap -= w * u.transpose();
+        wy += w * y(i);
+    }
+    const Eigen::FullPivLU<Eigen::Matrix3d> lu(cap);
+    if (!lu.isInvertible())
+        return false;
+    det *= lu.determinant();
+    dt = y + yU * lu.solve(wy);
+    if (!dt.allFinite() || !std::isfinite(det))
+        return false;
+    // The residual Δ·ΔT − U·(W·ΔT) − rhs against the size of its terms.
+    Eigen::Vector3d wdt = Eigen::Vector3d::Zero();
+    for (std::size_t k = 0; k < nn; ++k)
+        wdt += wOf(k) * dt(static_cast<Eigen::Index>(k));
+    double worst = 0.0, size = 0.0;
+    for (std::size_t k = 0; k < nn; ++k) {
+        const auto i = static_cast<Eigen::Index>(k);
+        const Eigen::Vector3d u = uOf(k);
+        worst = std::max(worst, std::abs(delta(i) * dt(i) - u.dot(wdt) - rhs(i)));
+        size = std::max(size, std::abs(delta(i) * dt(i)) + u.cwiseAbs().dot(wdt.cwiseAbs()) + std::abs(rhs(i)));
+    }
+    return worst <= 1e-10 * size;
 }
 
 struct Context {
@@ -397,8 +477,9 @@ void verdictIfAsked(const BankProblem& p, BankSolution& sol) {
 void judge(const Context& c, const detail::ElectricalPoint& pt, BankSolution& sol) {
     const BankProblem& p = c.p;
     std::vector<double> s = detail::denseSensitivity(pt);
+    const double scale = powerScale(p, pt);
     for (double& v : s)
-        v *= powerScale(p, pt);
+        v *= scale;
     if (p.stabilityAnalysis) {
         sol.stability = stabilityOf(c.th, s, p.feed);
     } else {
@@ -680,7 +761,12 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         const double scale = powerScale(p, pt);
         for (int k = 0; k < n; ++k)
             gv(k) = -g[static_cast<std::size_t>(k)];
-        if (pt.sFactored) {
+        Eigen::VectorXd dt;
+        double det = 0.0;
+        const bool structured = structuredNewtonStep(c.th, pt, scale, gv, dt, det);
+        if (structured) {
+            // O(N): solved.
+        } else if (pt.sFactored) {
             // S = diag(d) + L·R (L: N×2, R: 2×N; see detail::ElectricalPoint), so
             // Z·S = Z·diag(d) + (Z·L)·R: O(N²) instead of the O(N³) product.
             for (int k = 0; k < n; ++k) {
@@ -714,9 +800,11 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
                     a(k, j) = (k == j ? 1.0 : 0.0) - zs[static_cast<std::size_t>(j)];
             }
         }
-        const Eigen::PartialPivLU<Eigen::MatrixXd> lu(a);
-        Eigen::VectorXd dt = lu.solve(gv);
-        const double det = lu.determinant();
+        if (!structured) {
+            const Eigen::PartialPivLU<Eigen::MatrixXd> lu(a);
+            dt = lu.solve(gv);
+            det = lu.determinant();
+        }
         // Past a fold (det ≤ 0) with every junction still heating, Newton would point back down
         // the curve; follow the heating instead (a fixed-point step, taken whole).
         const bool heatingStep = !dt.allFinite() || (det <= 0.0 && heatingEverywhere);
@@ -809,8 +897,9 @@ BankStability analyseStability(const BankProblem& p, const BankSolution& at) {
     const ThermalMatrices th = buildThermalMatrices(
         {static_cast<int>(nn), p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW, p.neighbourCoupling_KperW});
     std::vector<double> s = detail::denseSensitivity(pt);
+    const double scale = powerScale(p, pt);
     for (double& v : s)
-        v *= powerScale(p, pt);
+        v *= scale;
     return stabilityOf(th, s, p.feed);
 }
 

@@ -15,6 +15,9 @@ ThermalMatrices buildThermalMatrices(const ThermalNetworkSpec& spec) {
     m.zSink.assign(static_cast<std::size_t>(n), spec.rthSa_KperW);
 
     if (spec.neighbour_KperW <= 0.0 || n == 1) {
+        m.uniform = true;
+        m.zSelf = spec.rthJc_KperW + spec.rthCs_KperW;
+        m.zCommon = spec.rthSa_KperW;
         for (int k = 0; k < n; ++k)
             for (int j = 0; j < n; ++j)
                 m.z[static_cast<std::size_t>(k * n + j)] =

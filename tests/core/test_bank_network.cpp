@@ -445,6 +445,54 @@ class TestBankNetwork : public QObject {
         QVERIFY(s.reason.find("bank.device.kind") != std::string::npos);
     }
 
+    void structuredSolvesMatchTheDenseOnes() {
+        // Without neighbour coupling Z = (R_jc + R_cs)·I + R_sa·11ᵀ, and the solver takes the
+        // thermal Newton step by the Sherman–Morrison–Woodbury identity and forms Z·S in O(N²)
+        // (Golub & Van Loan, Matrix Computations, 4th ed., §2.1.4; from memory). A neighbour
+        // resistance of 1e6 K/W (the field's limit) couples the cases by 1e-6 W/K, which moves the
+        // junctions by microkelvins, yet takes the dense path (Z from the nodal LU, the product, a
+        // dense LU per step): the two must give the same bank to that. A spread MOSFET bank of 24
+        // and a bipolar bank of 12 with ballast.
+        std::vector<BankProblem> cases;
+        BankProblem m = mosfetBank(24, 600.0);
+        for (std::size_t k = 0; k < m.devices.size(); ++k)
+            m.devices[k].rdsOnDeviation = 0.08 * std::sin(1.0 + 3.0 * static_cast<double>(k));
+        cases.push_back(m);
+        BankProblem b;
+        b.part = idealNpn(isFor(0.65, 5.0, 300.0), 0.01);
+        b.devices.resize(12);
+        for (std::size_t k = 0; k < b.devices.size(); ++k)
+            b.devices[k].vbeDeviation_V = 0.01 * std::cos(2.0 * static_cast<double>(k));
+        b.load_A = 60.0;
+        b.ballast_ohm = 0.05;
+        b.rthCs_KperW = 0.4;
+        b.rthSa_KperW = 0.8;
+        cases.push_back(b);
+        for (const BankProblem& uniform : cases) {
+            BankProblem dense = uniform;
+            dense.neighbourCoupling_KperW = 1e6;
+            const BankSolution a = solveBank(uniform);
+            const BankSolution c = solveBank(dense);
+            QVERIFY2(a.converged && c.converged, (a.reason + " / " + c.reason).c_str());
+            QVERIFY(a.stability.valid && c.stability.valid);
+            QCOMPARE(a.devices.size(), c.devices.size());
+            for (std::size_t k = 0; k < a.devices.size(); ++k) {
+                QVERIFY2(std::abs(a.devices[k].tj_C - c.devices[k].tj_C) < 1e-4,
+                         qPrintable(QString("device %1: %2 against %3 °C").arg(k).arg(a.devices[k].tj_C, 0, 'g', 12)
+                                        .arg(c.devices[k].tj_C, 0, 'g', 12)));
+                QVERIFY(std::abs(a.devices[k].current_A - c.devices[k].current_A) < 1e-6 * uniform.load_A);
+                QVERIFY(std::abs(a.stability.modeShape[k] - c.stability.modeShape[k]) < 1e-4);
+            }
+            QVERIFY(std::abs(a.stability.loopGain - c.stability.loopGain) < 1e-5 * c.stability.loopGain + 1e-12);
+            QVERIFY(std::abs(a.stability.dominantEigenvalue - c.stability.dominantEigenvalue) <
+                    1e-5 * std::abs(c.stability.dominantEigenvalue) + 1e-12);
+            QCOMPARE(a.stable, c.stable);
+            // Exact Newton steps both ways: the same number of them (a wrong matrix converges
+            // more slowly, if at all).
+            QCOMPARE(a.thermalIterations, c.thermalIterations);
+        }
+    }
+
     void warmStartGivesSameAnswer() {
         BankProblem p = mosfetBank(6, 150.0);
         p.devices[2].rdsOnDeviation = 0.15;
