@@ -24,14 +24,14 @@ struct PointState {
     std::vector<double> bankState;      ///< the bank network's unknowns and junctions (solveBank's warm start)
 };
 
-/// The last two settled states of one operating point: the next design starts from the last, or,
-/// when both are there, from their linear extrapolation in the PWM frequency (along a row of the
-/// map the states move smoothly with it, and the prediction's error is second order in the step).
+/// The last settled states of one operating point (at most four, each at its own PWM frequency,
+/// newest last): the next design starts from their polynomial extrapolation in the frequency
+/// (along a row of the map the states move smoothly with it; through four states the
+/// prediction's error is fourth order in the step). Emptied when a design's point does not settle
+/// or runs away: the next one then starts cold.
 struct PointMemory {
-    bool valid = false;                 ///< `last` is a settled, regular state (not a runaway or unsettled)
-    bool previousValid = false;         ///< so is `previous`, of the same size, at another frequency
     bool mosfet = true;                 ///< the bank's kind they belong to
-    PointState last, previous;
+    std::vector<PointState> settled;
 };
 
 /// What one evaluation leaves for the next; one per sequence (and thread).

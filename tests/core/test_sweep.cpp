@@ -119,7 +119,7 @@ private slots:
         // tolerances (coupling rounds settled to 1e-6 relative, the bank's junctions to 1e-6 K):
         // accepted here up to 1e-4 K and 1e-6 relative in the losses, and nothing else may differ.
         // Both segments: the stall at the current limit and a driven point; 8 frequency steps,
-        // so that the rows' later cells start from an extrapolation of two earlier ones.
+        // so that the rows' later cells start from an extrapolation of up to four earlier ones.
         const Design d = loadDemo();
         for (std::size_t point : {std::size_t(0), std::size_t(1)}) {
             CountFrequencyGrid g = grid(2, 7, 2000.0, 40000.0);
