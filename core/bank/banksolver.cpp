@@ -11,6 +11,7 @@
 #include <algorithm>
 #include <cmath>
 #include <complex>
+#include <optional>
 
 namespace amp {
 
@@ -193,6 +194,93 @@ Eigen::VectorXcd eigenvaluesOf(const Eigen::MatrixXd& m) {
     return eigenvaluesIn<Eigen::MatrixXd>(m);
 }
 
+// Devices that the loop matrix cannot tell apart: k and j are interchangeable when swapping them
+// leaves M unchanged (M_kk = M_jj, M_kj = M_jk, and M_ki = M_ji, M_ik = M_ij for every other i), to
+// a tolerance far below any real spread of parts. The classes of such devices partition the bank
+// equitably, so (Cvetković, Rowlinson & Simić, An Introduction to the Theory of Graph Spectra,
+// §3.9, for the equitable partition; from memory)
+//   * the vectors constant within each class are invariant: M acts on them as the p×p matrix
+//     M_red(a, b) = Σ_{j ∈ class b} M_{r_a j}, r_a any device of class a;
+//   * e_k − e_j for k, j in one class is an eigenvector with eigenvalue M_kk − M_kj,
+//     m − 1 of them in a class of m.
+// A bank of identical parts at identical states (the map's added devices are nominal parts) then
+// needs the eigenvalues of a small matrix instead of an N×N eigen-decomposition.
+struct Lumping {
+    std::vector<int> classOf;        ///< per device
+    std::vector<int> representative; ///< per class: its first device
+    std::vector<int> size;           ///< per class
+};
+
+bool interchangeable(const Eigen::MatrixXd& m, int k, int j, double tol) {
+    if (std::abs(m(k, k) - m(j, j)) > tol || std::abs(m(k, j) - m(j, k)) > tol)
+        return false;
+    for (Eigen::Index i = 0; i < m.rows(); ++i)
+        if (i != k && i != j && (std::abs(m(k, i) - m(j, i)) > tol || std::abs(m(i, k) - m(i, j)) > tol))
+            return false;
+    return true;
+}
+
+// The classes, or nothing when every device is its own class (no reduction).
+std::optional<Lumping> lumpingOf(const Eigen::MatrixXd& m) {
+    const int n = static_cast<int>(m.rows());
+    if (n < 2 || !m.allFinite())
+        return std::nullopt;
+    const double tol = 1e-13 * m.cwiseAbs().maxCoeff();
+    Lumping l;
+    l.classOf.assign(static_cast<std::size_t>(n), -1);
+    for (int k = 0; k < n; ++k) {
+        if (l.classOf[static_cast<std::size_t>(k)] >= 0)
+            continue;
+        const int c = static_cast<int>(l.representative.size());
+        l.classOf[static_cast<std::size_t>(k)] = c;
+        l.representative.push_back(k);
+        l.size.push_back(1);
+        for (int j = k + 1; j < n; ++j)
+            if (l.classOf[static_cast<std::size_t>(j)] < 0 && interchangeable(m, k, j, tol)) {
+                l.classOf[static_cast<std::size_t>(j)] = c;
+                ++l.size.back();
+            }
+    }
+    if (static_cast<int>(l.representative.size()) == n)
+        return std::nullopt;
+    return l;
+}
+
+Eigen::MatrixXd reducedMatrix(const Eigen::MatrixXd& m, const Lumping& l) {
+    const auto p = static_cast<Eigen::Index>(l.representative.size());
+    Eigen::MatrixXd r = Eigen::MatrixXd::Zero(p, p);
+    for (Eigen::Index a = 0; a < p; ++a)
+        for (Eigen::Index j = 0; j < m.cols(); ++j)
+            r(a, l.classOf[static_cast<std::size_t>(j)]) += m(l.representative[static_cast<std::size_t>(a)], j);
+    return r;
+}
+
+// Every eigenvalue of M with its multiplicity: the reduced matrix's first (in Eigen's order), then
+// each class's differential one; the full decomposition when there are no classes.
+Eigen::VectorXcd spectrumOf(const Eigen::MatrixXd& m, const std::optional<Lumping>& lumping) {
+    if (!lumping)
+        return eigenvaluesOf(m);
+    const Eigen::VectorXcd reduced = eigenvaluesOf(reducedMatrix(m, *lumping));
+    const auto p = static_cast<Eigen::Index>(lumping->representative.size());
+    if (reduced.size() != p)
+        return {};
+    Eigen::VectorXcd ev(m.rows());
+    ev.head(p) = reduced;
+    Eigen::Index next = p;
+    for (Eigen::Index a = 0; a < p; ++a) {
+        const int r = lumping->representative[static_cast<std::size_t>(a)];
+        if (lumping->size[static_cast<std::size_t>(a)] < 2)
+            continue;
+        int other = r + 1;
+        while (lumping->classOf[static_cast<std::size_t>(other)] != a)
+            ++other;
+        const double mu = m(r, r) - m(r, other);
+        for (int c = 1; c < lumping->size[static_cast<std::size_t>(a)]; ++c)
+            ev(next++) = mu;
+    }
+    return ev;
+}
+
 // Loop gain of Z·S; S is the N×N average-power sensitivity.
 BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& s, BankFeed feed) {
     const int n = th.count;
@@ -200,7 +288,8 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
     st.held = heldText(feed);
     st.sensitivity_WperK = s;
     const Eigen::MatrixXd m = loopMatrix(th, s);
-    const Eigen::VectorXcd ev = eigenvaluesOf(m);
+    const std::optional<Lumping> lumping = lumpingOf(m);
+    const Eigen::VectorXcd ev = spectrumOf(m, lumping);
     if (ev.size() != n)
         return st;
     // Spectral radius, and the eigenvalue with the largest real part: the mode that grows.
@@ -213,16 +302,39 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
     }
     const std::complex<double> lambda = ev(grow);
     Eigen::VectorXcd v;
-    if (lambda.imag() == 0.0)
+    // With classes, an eigenvalue of the reduced matrix that is simple in M has its eigenvector
+    // constant within each class: the reduced matrix's, spread over the classes. Otherwise (and for
+    // a class's differential eigenvalue, whose space has many vectors) inverse iteration on M.
+    const auto p = lumping ? static_cast<Eigen::Index>(lumping->representative.size()) : Eigen::Index(0);
+    bool simple = lumping && grow < p;
+    for (Eigen::Index i = 0; simple && i < n; ++i)
+        if (i != grow && std::abs(ev(i) - lambda) <= 1e-9 * std::max(radius, 1e-300))
+            simple = false;
+    if (simple) {
+        const Eigen::MatrixXd r = reducedMatrix(m, *lumping);
+        const Eigen::VectorXcd w = lambda.imag() == 0.0
+                                       ? Eigen::VectorXcd(inverseIteration(r, lambda.real()).cast<std::complex<double>>())
+                                       : Eigen::VectorXcd(inverseIteration(r, lambda));
+        if (w.size() == p) {
+            v.resize(n);
+            for (Eigen::Index i = 0; i < n; ++i)
+                v(i) = w(lumping->classOf[static_cast<std::size_t>(i)]);
+        }
+    } else if (lambda.imag() == 0.0) {
         v = inverseIteration(m, lambda.real()).cast<std::complex<double>>();
-    else
+    } else {
         v = inverseIteration(m, lambda);
+    }
     if (v.size() != n) {
         // Z·S = 0, or (not expected) a solve that overflows: the full decomposition's vector.
         const Eigen::EigenSolver<Eigen::MatrixXd> full(m, true);
         if (full.info() != Eigen::Success)
             return st;
-        v = full.eigenvectors().col(grow);
+        Eigen::Index column = 0; // the decomposition's own order: its eigenvalue nearest λ
+        for (Eigen::Index i = 1; i < n; ++i)
+            if (std::abs(full.eigenvalues()(i) - lambda) < std::abs(full.eigenvalues()(column) - lambda))
+                column = i;
+        v = full.eigenvectors().col(column);
     }
     int big = 0;
     for (int i = 1; i < n; ++i)
@@ -533,7 +645,7 @@ double spectralRadiusAbove(const BankProblem& p, const BankSolution& sol, double
         if (norm < 0.999 * limit)
             return 0.0;
     }
-    const Eigen::VectorXcd ev = eigenvaluesOf(m);
+    const Eigen::VectorXcd ev = spectrumOf(m, lumpingOf(m));
     double radius = 0.0;
     for (Eigen::Index i = 0; i < ev.size(); ++i)
         radius = std::max(radius, std::abs(ev(i)));

@@ -183,6 +183,52 @@ class TestBankStabilitySkip : public QObject {
         QCOMPARE(s.stability.mode, BankMode::Differential);
     }
 
+    void interchangeableDevicesAreLumped() {
+        // Devices the loop matrix cannot tell apart form classes, and the eigenvalues come from a
+        // small matrix (an equitable partition, banksolver.cpp). Against the full N×N
+        // decomposition of the same bank with every device's R_DS(on) moved by a different 1e-9
+        // (too little to show, enough to make each device its own class): loop gain and dominant
+        // eigenvalue to 1e-6, the mode shape to 1e-6 where the dominant eigenvalue is simple.
+        // One class of 16 and two classes of 8 (every other device 10 % higher R_DS(on)), current
+        // fed; two classes of 3 voltage fed, where a class's differential mode dominates (as in
+        // dominantModeIsAnEigenvector). Each also through a skipping solve and spectralRadius().
+        for (int which = 0; which < 3; ++which) {
+            BankProblem lumped = which == 2 ? mosfetBank(6, 240.0) : mosfetBank(16, 640.0);
+            if (which >= 1)
+                for (std::size_t k = 1; k < lumped.devices.size(); k += 2)
+                    lumped.devices[k].rdsOnDeviation = 0.1;
+            if (which == 2) {
+                lumped.feed = BankFeed::Voltage;
+                lumped.commonNode_V = 0.3;
+            }
+            BankProblem distinct = lumped;
+            for (std::size_t k = 0; k < distinct.devices.size(); ++k)
+                distinct.devices[k].rdsOnDeviation += 1e-9 * static_cast<double>(k + 1);
+            const BankSolution a = solveBank(lumped);
+            const BankSolution b = solveBank(distinct);
+            const QString where = QString("case %1").arg(which);
+            QVERIFY2(a.converged && b.converged, qPrintable(where));
+            QVERIFY2(a.stability.valid && b.stability.valid, qPrintable(where));
+            QVERIFY2(test::relDiff(a.stability.loopGain, b.stability.loopGain) < 1e-6,
+                     qPrintable(where + QString(": loop gain %1 against %2").arg(a.stability.loopGain, 0, 'g', 12)
+                                            .arg(b.stability.loopGain, 0, 'g', 12)));
+            QVERIFY2(test::relDiff(a.stability.dominantEigenvalue, b.stability.dominantEigenvalue) < 1e-6,
+                     qPrintable(where));
+            QCOMPARE(a.stability.mode, b.stability.mode);
+            QCOMPARE(a.stable, b.stable);
+            if (which < 2) {
+                QCOMPARE(a.stability.mode, BankMode::Common);
+                for (std::size_t k = 0; k < a.stability.modeShape.size(); ++k)
+                    QVERIFY2(std::abs(a.stability.modeShape[k] - b.stability.modeShape[k]) < 1e-6, qPrintable(where));
+            } else {
+                QCOMPARE(a.stability.mode, BankMode::Differential);
+            }
+            const BankSolution fast = solveBank(skipping(lumped));
+            QVERIFY(!fast.stability.valid);
+            QVERIFY2(test::relDiff(spectralRadius(lumped, fast), a.stability.loopGain) < 1e-9, qPrintable(where));
+        }
+    }
+
     void symmetricBankCommonMode() {
         // Identical devices on one sink, no coupling: by symmetry the mode that heats the whole
         // bank is v = (1, …, 1) exactly, and its eigenvalue for a fully enhanced current-fed
