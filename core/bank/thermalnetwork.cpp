@@ -11,19 +11,15 @@ ThermalMatrices buildThermalMatrices(const ThermalNetworkSpec& spec) {
     const int n = std::max(spec.count, 1);
     ThermalMatrices m;
     m.count = n;
-    m.z.assign(static_cast<std::size_t>(n * n), 0.0);
     m.zSink.assign(static_cast<std::size_t>(n), spec.rthSa_KperW);
 
     if (spec.neighbour_KperW <= 0.0 || n == 1) {
         m.uniform = true;
         m.zSelf = spec.rthJc_KperW + spec.rthCs_KperW;
         m.zCommon = spec.rthSa_KperW;
-        for (int k = 0; k < n; ++k)
-            for (int j = 0; j < n; ++j)
-                m.z[static_cast<std::size_t>(k * n + j)] =
-                    spec.rthSa_KperW + (k == j ? spec.rthJc_KperW + spec.rthCs_KperW : 0.0);
         return m;
     }
+    m.z.assign(static_cast<std::size_t>(n * n), 0.0);
 
     // Nodes 0..n−1: cases; node n: heatsink. Ambient is the reference.
     constexpr double kFloor = 1e-9;

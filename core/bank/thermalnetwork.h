@@ -25,13 +25,16 @@ struct ThermalNetworkSpec {
 
 struct ThermalMatrices {
     int count = 0;
-    std::vector<double> z;     ///< N×N row-major, K/W: junction k's rise per watt in junction j
+    std::vector<double> z;     ///< N×N row-major, K/W: junction k's rise per watt in junction j (empty when uniform)
     std::vector<double> zSink; ///< N, K/W: junction rise per watt put on the heatsink
-    /// Without neighbour coupling Z = zSelf·I + zCommon·11ᵀ exactly (the structured solves use it).
+    /// Without neighbour coupling Z = zSelf·I + zCommon·11ᵀ exactly: z is not filled, at() gives
+    /// its entries, and the structured solves use the two numbers.
     bool uniform = false;
     double zSelf = 0.0;        ///< K/W: R_th,jc + R_th,cs
     double zCommon = 0.0;      ///< K/W: R_th,sa
-    double at(int k, int j) const { return z[static_cast<std::size_t>(k * count + j)]; }
+    double at(int k, int j) const {
+        return uniform ? zCommon + (k == j ? zSelf : 0.0) : z[static_cast<std::size_t>(k * count + j)];
+    }
 };
 
 ThermalMatrices buildThermalMatrices(const ThermalNetworkSpec& spec);
