@@ -68,6 +68,17 @@ MosfetModel MosfetModel::make(const MosfetParams& p, double rdsOnDeviation, doub
 }
 
 double MosfetModel::consistencyRaise(const MosfetParams& p, double tMax_K) {
+    // A pure function of the part and the range, asked by every bank solve (a design's evaluation
+    // solves the same part tens of times): each thread keeps its last answer.
+    struct Last {
+        bool valid = false;
+        MosfetParams part;
+        double tMax_K = 0.0;
+        double raise = 1.0;
+    };
+    thread_local Last last;
+    if (last.valid && last.tMax_K == tMax_K && last.part == p)
+        return last.raise;
     // The channel alone must not take more than 90 % of R_ds(on) anywhere in range.
     const MosfetModel m = make(p, 0.0, 0.0, tMax_K, 1.0);
     double worst = 0.0;
@@ -81,7 +92,11 @@ double MosfetModel::consistencyRaise(const MosfetParams& p, double tMax_K) {
         const double rch = 1.0 / (2.0 * k * (vovSpec + kEnhancementWidth_V));
         worst = std::max(worst, rch / m.nominalOnResistance(t));
     }
-    return worst > 0.9 ? worst / 0.9 : 1.0;
+    last.part = p;
+    last.tMax_K = tMax_K;
+    last.raise = worst > 0.9 ? worst / 0.9 : 1.0;
+    last.valid = true;
+    return last.raise;
 }
 
 double MosfetModel::nominalOnResistance(double t_K) const {

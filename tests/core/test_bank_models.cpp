@@ -12,6 +12,7 @@
 #include <QTest>
 
 #include <cmath>
+#include <thread>
 
 using namespace amp;
 
@@ -190,6 +191,28 @@ class TestBankModels : public QObject {
             }
             QVERIFY(v / lo2 >= m.onResistance(t) && v / lo2 < 1.02 * m.onResistance(t));
         }
+    }
+
+    void weakChannelRaiseIsRemembered() {
+        // The channel alone must stay within 90 % of R_ds(on) over the range (mosfetmodel.h), so a
+        // part whose K is small for its R_ds(on) has K raised. Every bank solve asks this; each
+        // thread keeps its last answer. The answer must be the part's own whatever was asked
+        // before: another part in between, the same part again, another thread.
+        MosfetParams weak;
+        weak.transconductance_AperV2 = 2.0; // channel ≈ 1/(2·K·V_ov) ≈ 36 mΩ against 4 mΩ
+        MosfetParams strong;                // K = 60: the channel well inside R_ds(on)
+        const double tMax = toKelvin(175.0) + 125.0;
+        const double first = MosfetModel::consistencyRaise(weak, tMax);
+        QVERIFY(first > 1.0);
+        QCOMPARE(MosfetModel::consistencyRaise(strong, tMax), 1.0);
+        QCOMPARE(MosfetModel::consistencyRaise(weak, tMax), first);
+        MosfetParams weaker = weak;
+        weaker.transconductance_AperV2 = 1.0;
+        QVERIFY(MosfetModel::consistencyRaise(weaker, tMax) > first);
+        QVERIFY(MosfetModel::consistencyRaise(weak, tMax - 100.0) <= first); // a smaller range
+        double inThread = 0.0;
+        std::thread([&] { inThread = MosfetModel::consistencyRaise(weak, tMax); }).join();
+        QCOMPARE(inThread, first);
     }
 
     void zeroTemperatureCoefficientPoint() {
