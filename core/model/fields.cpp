@@ -647,8 +647,8 @@ Table buildDesignFields() {
                "\"pvc\" (conductor limit 70 °C, k = 115) or \"xlpe\" (90 °C, k = 143)."),
 
         num("thermal.step_s", Unit::Second, 1e-4, 10.0, "Transient time step",
-            "Largest time step of the duty-profile transient; segments are split into equal steps "
-            "(optional; default 10 ms).",
+            "Largest time step of the duty-profile transient; segments are split into equal steps, "
+            "at most a million per segment (optional; default 10 ms).",
             true),
         num("thermal.resolveStep_K", Unit::Kelvin, 0.0, 50.0, "Full solve every",
             "The transient repeats the full bank solve when a junction has moved this much since the last; "

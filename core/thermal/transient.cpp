@@ -16,6 +16,12 @@ constexpr double kMaxSubSteps = 50.0;
 constexpr double kHeldLossChange = 0.2;
 // ... while a run has solves left of this many for it.
 constexpr int kSubStepBudget = 2000;
+// Most steps one segment is split into. A segment of hours or days (a parked load, a long cruise)
+// at the usual 10 ms would take tens of millions of steps, and a repeated profile many times that;
+// its junctions and sink settle within the first minutes, and the exact exponential steps stay
+// exact for a held power at any length. 10^6 steps of 10 ms are 2.8 h: shorter segments keep
+// their steps of step_s.
+constexpr double kMaxStepsPerSegment = 1e6;
 
 double masslessJc(const TransientSource& s) {
     return s.zthJc.empty() ? s.rthJc_KperW : 0.0;
@@ -333,8 +339,8 @@ TransientResult runTransient(const TransientNetwork& net, const std::vector<Tran
 
         for (std::size_t si = 0; si < segments.size(); ++si) {
             const TransientSegment& seg = segments[si];
-            const auto steps =
-                static_cast<std::size_t>(std::max(1.0, std::ceil(seg.duration_s / opt.step_s - 1e-9)));
+            const auto steps = static_cast<std::size_t>(
+                std::clamp(std::ceil(seg.duration_s / opt.step_s - 1e-9), 1.0, kMaxStepsPerSegment));
             const double dt = seg.duration_s / static_cast<double>(steps);
             bool segmentStart = true;
             for (std::size_t step = 0; step < steps; ++step) {

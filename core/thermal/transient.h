@@ -22,7 +22,7 @@
 // package's physical structure, so it buys little for these time scales.
 //
 // Integration: steps of at most `step_s`, aligned to segment boundaries (each segment is split into
-// equal steps). Within a step the power is held (zero-order hold) and every RC part is advanced by
+// equal steps, at most 10^6 of them: a segment longer than 10^6·step_s takes longer steps). Within a step the power is held (zero-order hold) and every RC part is advanced by
 // its exact exponential: θ' = θ·e^(−Δt/τ) + R·P·(1 − e^(−Δt/τ)); the heatsink likewise with
 // τ = R_sa(ΔT)·C at the start of the step. Losses come from the caller: a full solve (the bank's
 // electrothermal network) at each segment start and whenever any junction has moved more than

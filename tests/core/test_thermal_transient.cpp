@@ -210,6 +210,30 @@ class TestThermalTransient : public QObject {
         QVERIFY(relDiff(r.tjMax_C[0], t1 + 40.0 * 0.7) < 1e-9);
     }
 
+    void longSegmentsTakeLongerSteps() {
+        // A segment of four days at 10 ms would take 34.6 million steps (and a repeated profile
+        // many times that): a segment takes at most 10^6 equal steps. The heatsink RC of
+        // heatsinkRcAndSegmentAlignment (R 0.5 K/W, C 2 J/K) at 40 W for four days ends at
+        // 40·0.5 = 20 K above ambient exactly (its steady state, the sum of the series resistances;
+        // [calc]), and the junction 40·0.7 K above the sink; one hour at 10 ms keeps its 360,000.
+        TransientNetwork net;
+        net.sources = {{"device", {{0.3, 0.01}, {0.2, 0.5}}, 0.5, 0.2, 1.0}};
+        net.rsa = rsaCurve(StatedHeatsink{0.5, 50.0, 0.0});
+        net.heatsinkCapacity_JperK = 2.0;
+        TransientOptions opt;
+        opt.step_s = 0.01;
+        const TransientResult days =
+            runTransient(net, {{4 * 86400.0, 0.0}}, {constantPerSegment({40.0}), {}}, opt, restState(net, 0.0));
+        QVERIFY(days.ok);
+        QCOMPARE(days.steps, std::size_t(1000000));
+        QVERIFY(relDiff(days.finalState.heatsink_C, 20.0) < 1e-9);
+        QVERIFY(relDiff(days.tjMax_C[0], 20.0 + 40.0 * (0.3 + 0.2 + 0.2)) < 1e-9);
+        const TransientResult hour =
+            runTransient(net, {{3600.0, 0.0}}, {constantPerSegment({40.0}), {}}, opt, restState(net, 0.0));
+        QVERIFY(hour.ok);
+        QCOMPARE(hour.steps, std::size_t(360000));
+    }
+
     void longConstantRunIsSteadyState() {
         // Six hours at a constant 120 A with temperature-dependent losses: the end of the run must
         // equal the steady-state fixed point, and satisfy the path identity
