@@ -763,7 +763,8 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         x.assign(warmStart->state.begin(), warmStart->state.end() - static_cast<long>(nn));
         t.assign(warmStart->state.end() - static_cast<long>(nn), warmStart->state.end());
     }
-    auto finish = [&](detail::ElectricalPoint pt, const std::vector<double>& temps) {
+    // (The point is the caller's: fillRegions only adds its regions, which nothing reads before.)
+    auto finish = [&](detail::ElectricalPoint& pt, const std::vector<double>& temps) {
         net.fillRegions(pt, temps);
         fillDevices(c, pt, temps, sol);
         sol.state = pt.x;
@@ -775,7 +776,7 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
         if (p.isothermalTjPerDevice_C.size() == nn)
             for (std::size_t k = 0; k < nn; ++k)
                 t[k] = toKelvin(p.isothermalTjPerDevice_C[k]);
-        const detail::ElectricalPoint pt = net.solve(t, x.empty() ? nullptr : &x, true);
+        detail::ElectricalPoint pt = net.solve(t, x.empty() ? nullptr : &x, true);
         sol.newtonIterations = pt.iterations;
         if (!pt.ok) {
             sol.failure = pt.failure;

@@ -115,7 +115,7 @@ std::vector<Problem> validatePlateFin(const PlateFinGeometry& g) {
             }
         }
     }
-    if (!heatsinkMaterial(g.material)) {
+    if (!findHeatsinkMaterial(g.material)) {
         std::string ids;
         for (const auto& id : heatsinkMaterialIds())
             ids += (ids.empty() ? "" : ", ") + id;
@@ -142,7 +142,7 @@ PlateFinResult solvePlateFin(const PlateFinInput& in) {
     if (!out.problems.empty())
         return out;
 
-    const HeatsinkMaterial mat = *heatsinkMaterial(g.material);
+    const HeatsinkMaterial& mat = *findHeatsinkMaterial(g.material);
     const Surfaces s = surfaces(g);
     const bool finned = g.finCount >= 2;
     const bool forced = g.airVelocity_mps > 0.0;

@@ -21,10 +21,16 @@ const std::vector<HeatsinkMaterial>& table() {
 
 } // namespace
 
-std::optional<HeatsinkMaterial> heatsinkMaterial(std::string_view id) {
+const HeatsinkMaterial* findHeatsinkMaterial(std::string_view id) {
     for (const auto& m : table())
         if (m.id == id)
-            return m;
+            return &m;
+    return nullptr;
+}
+
+std::optional<HeatsinkMaterial> heatsinkMaterial(std::string_view id) {
+    if (const HeatsinkMaterial* m = findHeatsinkMaterial(id))
+        return *m;
     return std::nullopt;
 }
 

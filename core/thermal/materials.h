@@ -32,6 +32,8 @@ struct HeatsinkMaterial {
 
 /// The material for an id, or nothing for an unknown id.
 std::optional<HeatsinkMaterial> heatsinkMaterial(std::string_view id);
+/// The same without a copy (the table lives as long as the program); null for an unknown id.
+const HeatsinkMaterial* findHeatsinkMaterial(std::string_view id);
 
 /// Every material id, in display order.
 const std::vector<std::string>& heatsinkMaterialIds();
