@@ -108,6 +108,15 @@ double powerScale(const BankProblem& p, const detail::ElectricalPoint& pt) {
     return p.duty * (1.0 + resistive * (r - 1.0));
 }
 
+// S of the average junction powers: the on-state sensitivity times the waveform's power scale.
+std::vector<double> scaledSensitivity(const BankProblem& p, const detail::ElectricalPoint& pt) {
+    std::vector<double> s = detail::denseSensitivity(pt);
+    const double scale = powerScale(p, pt);
+    for (double& v : s)
+        v *= scale;
+    return s;
+}
+
 std::string heldText(BankFeed f) {
     switch (f) {
     case BankFeed::Current:
@@ -209,6 +218,7 @@ struct Lumping {
     std::vector<int> classOf;        ///< per device
     std::vector<int> representative; ///< per class: its first device
     std::vector<int> size;           ///< per class
+    Eigen::MatrixXd reduced;         ///< M_red
 };
 
 bool interchangeable(const Eigen::MatrixXd& m, int k, int j, double tol) {
@@ -241,18 +251,14 @@ std::optional<Lumping> lumpingOf(const Eigen::MatrixXd& m) {
                 ++l.size.back();
             }
     }
-    if (static_cast<int>(l.representative.size()) == n)
-        return std::nullopt;
-    return l;
-}
-
-Eigen::MatrixXd reducedMatrix(const Eigen::MatrixXd& m, const Lumping& l) {
     const auto p = static_cast<Eigen::Index>(l.representative.size());
-    Eigen::MatrixXd r = Eigen::MatrixXd::Zero(p, p);
+    if (p == n)
+        return std::nullopt;
+    l.reduced = Eigen::MatrixXd::Zero(p, p);
     for (Eigen::Index a = 0; a < p; ++a)
-        for (Eigen::Index j = 0; j < m.cols(); ++j)
-            r(a, l.classOf[static_cast<std::size_t>(j)]) += m(l.representative[static_cast<std::size_t>(a)], j);
-    return r;
+        for (Eigen::Index j = 0; j < n; ++j)
+            l.reduced(a, l.classOf[static_cast<std::size_t>(j)]) += m(l.representative[static_cast<std::size_t>(a)], j);
+    return l;
 }
 
 // Every eigenvalue of M with its multiplicity: the reduced matrix's first (in Eigen's order), then
@@ -260,7 +266,7 @@ Eigen::MatrixXd reducedMatrix(const Eigen::MatrixXd& m, const Lumping& l) {
 Eigen::VectorXcd spectrumOf(const Eigen::MatrixXd& m, const std::optional<Lumping>& lumping) {
     if (!lumping)
         return eigenvaluesOf(m);
-    const Eigen::VectorXcd reduced = eigenvaluesOf(reducedMatrix(m, *lumping));
+    const Eigen::VectorXcd reduced = eigenvaluesOf(lumping->reduced);
     const auto p = static_cast<Eigen::Index>(lumping->representative.size());
     if (reduced.size() != p)
         return {};
@@ -311,7 +317,7 @@ BankStability stabilityOf(const ThermalMatrices& th, const std::vector<double>& 
         if (i != grow && std::abs(ev(i) - lambda) <= 1e-9 * std::max(radius, 1e-300))
             simple = false;
     if (simple) {
-        const Eigen::MatrixXd r = reducedMatrix(m, *lumping);
+        const Eigen::MatrixXd& r = lumping->reduced;
         const Eigen::VectorXcd w = lambda.imag() == 0.0
                                        ? Eigen::VectorXcd(inverseIteration(r, lambda.real()).cast<std::complex<double>>())
                                        : Eigen::VectorXcd(inverseIteration(r, lambda));
@@ -422,6 +428,51 @@ bool structuredNewtonStep(const ThermalMatrices& th, const detail::ElectricalPoi
         size = std::max(size, std::abs(delta(i) * dt(i)) + u.cwiseAbs().dot(wdt.cwiseAbs()) + std::abs(rhs(i)));
     }
     return worst <= 1e-10 * size;
+}
+
+// The same step with the dense matrix I − Z·S (in `a`, N×N) and its LU: with neighbour coupling,
+// or where the structured solve is not safe.
+void denseNewtonStep(const ThermalMatrices& th, const detail::ElectricalPoint& pt, double scale,
+                     const Eigen::VectorXd& rhs, Eigen::MatrixXd& a, Eigen::VectorXd& dt, double& det) {
+    const int n = th.count;
+    const auto nn = static_cast<std::size_t>(n);
+    if (pt.sFactored) {
+        // S = diag(d) + L·R (L: N×2, R: 2×N; see detail::ElectricalPoint), so
+        // Z·S = Z·diag(d) + (Z·L)·R: O(N²) instead of the O(N³) product.
+        for (int k = 0; k < n; ++k) {
+            double zl0 = 0.0, zl1 = 0.0;
+            for (int l = 0; l < n; ++l) {
+                const double z = th.at(k, l);
+                zl0 += z * pt.sLeft[static_cast<std::size_t>(2 * l)];
+                zl1 += z * pt.sLeft[static_cast<std::size_t>(2 * l + 1)];
+            }
+            zl0 *= scale;
+            zl1 *= scale;
+            for (int j = 0; j < n; ++j) {
+                const auto jj = static_cast<std::size_t>(j);
+                const double zs =
+                    scale * th.at(k, j) * pt.sDiag[jj] + zl0 * pt.sRight[jj] + zl1 * pt.sRight[nn + jj];
+                a(k, j) = (k == j ? 1.0 : 0.0) - zs;
+            }
+        }
+    } else {
+        // (Row by row, each sum Σ_l Z_kl·scale·S_lj accumulated in the order of l.)
+        std::vector<double> zs(nn);
+        for (int k = 0; k < n; ++k) {
+            std::fill(zs.begin(), zs.end(), 0.0);
+            for (int l = 0; l < n; ++l) {
+                const double zl = th.at(k, l) * scale;
+                const double* sRow = &pt.sOn[static_cast<std::size_t>(l * n)];
+                for (std::size_t j = 0; j < nn; ++j)
+                    zs[j] += zl * sRow[j];
+            }
+            for (int j = 0; j < n; ++j)
+                a(k, j) = (k == j ? 1.0 : 0.0) - zs[static_cast<std::size_t>(j)];
+        }
+    }
+    const Eigen::PartialPivLU<Eigen::MatrixXd> lu(a);
+    dt = lu.solve(rhs);
+    det = lu.determinant();
 }
 
 struct Context {
@@ -588,10 +639,7 @@ void verdictIfAsked(const BankProblem& p, BankSolution& sol) {
 // caller skips the analysis).
 void judge(const Context& c, const detail::ElectricalPoint& pt, BankSolution& sol) {
     const BankProblem& p = c.p;
-    std::vector<double> s = detail::denseSensitivity(pt);
-    const double scale = powerScale(p, pt);
-    for (double& v : s)
-        v *= scale;
+    std::vector<double> s = scaledSensitivity(p, pt);
     if (p.stabilityAnalysis) {
         sol.stability = stabilityOf(c.th, s, p.feed);
     } else {
@@ -876,48 +924,8 @@ BankSolution solveBank(const BankProblem& p, const BankSolution* warmStart) {
             gv(k) = -g[static_cast<std::size_t>(k)];
         Eigen::VectorXd dt;
         double det = 0.0;
-        const bool structured = structuredNewtonStep(c.th, pt, scale, gv, dt, det);
-        if (structured) {
-            // O(N): solved.
-        } else if (pt.sFactored) {
-            // S = diag(d) + L·R (L: N×2, R: 2×N; see detail::ElectricalPoint), so
-            // Z·S = Z·diag(d) + (Z·L)·R: O(N²) instead of the O(N³) product.
-            for (int k = 0; k < n; ++k) {
-                double zl0 = 0.0, zl1 = 0.0;
-                for (int l = 0; l < n; ++l) {
-                    const double z = c.th.at(k, l);
-                    zl0 += z * pt.sLeft[static_cast<std::size_t>(2 * l)];
-                    zl1 += z * pt.sLeft[static_cast<std::size_t>(2 * l + 1)];
-                }
-                zl0 *= scale;
-                zl1 *= scale;
-                for (int j = 0; j < n; ++j) {
-                    const auto jj = static_cast<std::size_t>(j);
-                    const double zs = scale * c.th.at(k, j) * pt.sDiag[jj] + zl0 * pt.sRight[jj] +
-                                      zl1 * pt.sRight[nn + jj];
-                    a(k, j) = (k == j ? 1.0 : 0.0) - zs;
-                }
-            }
-        } else {
-            // (Row by row, each sum Σ_l Z_kl·scale·S_lj accumulated in the order of l.)
-            std::vector<double> zs(nn);
-            for (int k = 0; k < n; ++k) {
-                std::fill(zs.begin(), zs.end(), 0.0);
-                for (int l = 0; l < n; ++l) {
-                    const double zl = c.th.at(k, l) * scale;
-                    const double* sRow = &pt.sOn[static_cast<std::size_t>(l * n)];
-                    for (std::size_t j = 0; j < nn; ++j)
-                        zs[j] += zl * sRow[j];
-                }
-                for (int j = 0; j < n; ++j)
-                    a(k, j) = (k == j ? 1.0 : 0.0) - zs[static_cast<std::size_t>(j)];
-            }
-        }
-        if (!structured) {
-            const Eigen::PartialPivLU<Eigen::MatrixXd> lu(a);
-            dt = lu.solve(gv);
-            det = lu.determinant();
-        }
+        if (!structuredNewtonStep(c.th, pt, scale, gv, dt, det))
+            denseNewtonStep(c.th, pt, scale, gv, a, dt, det);
         // Past a fold (det ≤ 0) with every junction still heating, Newton would point back down
         // the curve; follow the heating instead (a fixed-point step, taken whole).
         const bool heatingStep = !dt.allFinite() || (det <= 0.0 && heatingEverywhere);
@@ -1009,10 +1017,7 @@ BankStability analyseStability(const BankProblem& p, const BankSolution& at) {
         return {};
     const ThermalMatrices th = buildThermalMatrices(
         {static_cast<int>(nn), p.part.rthJc_KperW, p.rthCs_KperW, p.rthSa_KperW, p.neighbourCoupling_KperW});
-    std::vector<double> s = detail::denseSensitivity(pt);
-    const double scale = powerScale(p, pt);
-    for (double& v : s)
-        v *= scale;
+    std::vector<double> s = scaledSensitivity(p, pt);
     return stabilityOf(th, s, p.feed);
 }
 

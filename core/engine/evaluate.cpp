@@ -726,6 +726,11 @@ LossPoint lossesWithChecks(const Context& c, const Electrical& e) {
     return computeLossPoint(c.losses, *c.design, li);
 }
 
+// A device's on-state V/I (0 when it carries next to nothing): the loss stage's SOA point.
+double onStateResistance(const BankDeviceState& dv) {
+    return dv.current_A > 1e-9 ? std::max(dv.voltage_V / dv.current_A, 0.0) : 0.0;
+}
+
 // The settled states a point keeps for the next nearby design: four, so that the frequency's
 // extrapolation is cubic. On the demo's row of 50 devices (200 steps from 2 to 40 kHz) the
 // coupling rounds per point fell from 4.6 with a quadratic prediction to 2.0 with a cubic one;
@@ -733,35 +738,28 @@ LossPoint lossesWithChecks(const Context& c, const Electrical& e) {
 // the rounds' tolerance) than they took off the truncation error, and the map took longer.
 constexpr std::size_t kExtrapolationStates = 4;
 
-// The state at frequency f predicted from the kept ones (newest last, each at its own frequency):
-// the polynomial in f through the last state and those before it that have its shape (Lagrange's
-// form): constant through one, linear through two, and so on. Along a row of the map the states
-// move smoothly with the frequency and the prediction's error is of the order of the step to the
-// power of the number of states used.
+// The state at frequency f predicted from the kept ones (newest last, each at its own frequency,
+// all of one shape: the memory keeps no other): the polynomial in f through them (Lagrange's form),
+// constant through one, linear through two, and so on. Along a row of the map the states move
+// smoothly with the frequency and the prediction's error is of the order of the step to the power
+// of the number of states.
 PointState extrapolatedState(const std::vector<PointState>& kept, double f) {
     const PointState& last = kept.back();
-    std::vector<const PointState*> used{&last};
-    for (auto it = kept.rbegin() + 1; it != kept.rend(); ++it) {
-        if (it->y.size() != last.y.size() || it->bankState.size() != last.bankState.size() ||
-            it->resistance_ohm.size() != last.resistance_ohm.size())
-            break;
-        used.push_back(&*it);
-    }
     PointState out = last;
     out.frequency_Hz = f;
-    if (used.size() < 2)
+    if (kept.size() < 2)
         return out;
-    std::vector<double> weight(used.size(), 1.0);
-    for (std::size_t i = 0; i < used.size(); ++i)
-        for (std::size_t j = 0; j < used.size(); ++j)
+    std::vector<double> weight(kept.size(), 1.0);
+    for (std::size_t i = 0; i < kept.size(); ++i)
+        for (std::size_t j = 0; j < kept.size(); ++j)
             if (j != i)
-                weight[i] *= (f - used[j]->frequency_Hz) / (used[i]->frequency_Hz - used[j]->frequency_Hz);
+                weight[i] *= (f - kept[j].frequency_Hz) / (kept[i].frequency_Hz - kept[j].frequency_Hz);
     auto combine = [&](std::vector<double> PointState::*field) {
         std::vector<double>& v = out.*field;
         for (std::size_t k = 0; k < v.size(); ++k) {
             double sum = 0.0;
-            for (std::size_t i = 0; i < used.size(); ++i)
-                sum += weight[i] * (used[i]->*field)[k];
+            for (std::size_t i = 0; i < kept.size(); ++i)
+                sum += weight[i] * (kept[i].*field)[k];
             v[k] = sum;
         }
     };
@@ -967,7 +965,7 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand, PointMemory* me
             const BankDeviceState& dv = b.devices[k];
             share[k] = y[kY + k];
             // The on-state resistance V/I only sets the stage's SOA point: the network's latest.
-            resistance[k] = dv.current_A > 1e-9 ? std::max(dv.voltage_V / dv.current_A, 0.0) : 0.0;
+            resistance[k] = onStateResistance(dv);
             tj[k] = y[kY + n + k];
         }
         e = chopperWithBank(c, demand, y[0], std::max(y[1], 0.0), y[2], y[4], share, resistance, tj);
@@ -988,11 +986,8 @@ BankSolve solveBankPoint(const Context& c, const Demand& demand, PointMemory* me
         last.frequency_Hz = d.pwm.frequency_Hz;
         last.y = yKept.size() == ny ? yKept : y;
         last.bankState = b.state;
-        last.resistance_ohm.resize(n);
-        for (std::size_t k = 0; k < n; ++k) {
-            const BankDeviceState& dv = b.devices[k];
-            last.resistance_ohm[k] = dv.current_A > 1e-9 ? std::max(dv.voltage_V / dv.current_A, 0.0) : 0.0;
-        }
+        for (const BankDeviceState& dv : b.devices)
+            last.resistance_ohm.push_back(onStateResistance(dv));
         states.push_back(std::move(last));
         if (states.size() > kExtrapolationStates)
             states.erase(states.begin(), states.end() - static_cast<std::ptrdiff_t>(kExtrapolationStates));
