@@ -185,7 +185,8 @@ class TestBankStabilitySkip : public QObject {
 
     void interchangeableDevicesAreLumped() {
         // Devices the loop matrix cannot tell apart form classes, and the eigenvalues come from a
-        // small matrix (an equitable partition, banksolver.cpp). Against the full N×N
+        // small matrix (an equitable partition: Cvetković, Rowlinson & Simić, An Introduction to
+        // the Theory of Graph Spectra, §3.9; from memory). Against Eigen's full N×N
         // decomposition of the same bank with every device's R_DS(on) moved by a different 1e-9
         // (too little to show, enough to make each device its own class): loop gain and dominant
         // eigenvalue to 1e-6, the mode shape to 1e-6 where the dominant eigenvalue is simple.

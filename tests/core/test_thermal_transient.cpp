@@ -214,8 +214,9 @@ class TestThermalTransient : public QObject {
         // A segment of four days at 10 ms would take 34.6 million steps (and a repeated profile
         // many times that): a segment takes at most 10^6 equal steps. The heatsink RC of
         // heatsinkRcAndSegmentAlignment (R 0.5 K/W, C 2 J/K) at 40 W for four days ends at
-        // 40·0.5 = 20 K above ambient exactly (its steady state, the sum of the series resistances;
-        // [calc]), and the junction 40·0.7 K above the sink; one hour at 10 ms keeps its 360,000.
+        // 40·0.5 = 20 K above ambient exactly (its steady state: thermal resistances in series add,
+        // as in Incropera & DeWitt's thermal circuits; from memory; [calc]), and the junction
+        // 40·0.7 K above the sink; one hour at 10 ms keeps its 360,000.
         TransientNetwork net;
         net.sources = {{"device", {{0.3, 0.01}, {0.2, 0.5}}, 0.5, 0.2, 1.0}};
         net.rsa = rsaCurve(StatedHeatsink{0.5, 50.0, 0.0});
